@@ -1,0 +1,67 @@
+import type { QueryClient } from '@tanstack/react-query';
+import { useMemo } from 'react';
+import { createBrowserRouter, Navigate, RouterProvider, type RouteObject } from 'react-router-dom';
+
+import { LoadingState } from '../components/states';
+import { paths } from '../config/paths';
+import { protectedLoader, ProtectedRoute } from './routes/protected';
+import { RouteError } from './routes/route-error';
+
+type RouteModule = {
+  clientLoader?: (queryClient: QueryClient) => () => Promise<unknown>;
+  default: React.ComponentType;
+};
+
+/** Route modules are loaded on first visit; their loaders only warm the query cache. */
+const lazyRoute =
+  (queryClient: QueryClient, load: () => Promise<RouteModule>): RouteObject['lazy'] =>
+  async () => {
+    const { clientLoader, default: Component } = await load();
+    return clientLoader ? { loader: clientLoader(queryClient), Component } : { Component };
+  };
+
+export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
+  return [
+    {
+      errorElement: <RouteError />,
+      hydrateFallbackElement: <LoadingState label="Opening Workback…" />,
+      children: [
+        {
+          path: paths.signIn.path,
+          lazy: lazyRoute(queryClient, () => import('./routes/sign-in')),
+        },
+        {
+          path: paths.createAccount.path,
+          lazy: lazyRoute(queryClient, () => import('./routes/create-account')),
+        },
+        {
+          path: paths.app.root.path,
+          loader: protectedLoader(queryClient),
+          element: <ProtectedRoute />,
+          children: [
+            { index: true, element: <Navigate to={paths.app.students.getHref()} replace /> },
+            {
+              path: paths.app.students.path,
+              lazy: lazyRoute(queryClient, () => import('./routes/students')),
+            },
+            {
+              path: paths.app.account.path,
+              lazy: lazyRoute(queryClient, () => import('./routes/account')),
+            },
+          ],
+        },
+        {
+          path: '*',
+          loader: () => {
+            throw new Response('Not here', { status: 404 });
+          },
+        },
+      ],
+    },
+  ];
+}
+
+export function AppRouter({ queryClient }: { queryClient: QueryClient }) {
+  const router = useMemo(() => createBrowserRouter(createAppRoutes(queryClient)), [queryClient]);
+  return <RouterProvider router={router} />;
+}

@@ -1,0 +1,33 @@
+import type { QueryClient } from '@tanstack/react-query';
+import { Navigate, Outlet, redirect, useLocation, type LoaderFunctionArgs } from 'react-router-dom';
+
+import { AppShell } from '../../components/layouts/app-shell';
+import { paths } from '../../config/paths';
+import { meQueryOptions, useMe } from '../../lib/auth';
+
+/** Runs before every signed-in page: nobody signed in → the sign-in page, then back here. */
+export const protectedLoader =
+  (queryClient: QueryClient) =>
+  async ({ request }: LoaderFunctionArgs) => {
+    const me = await queryClient.ensureQueryData(meQueryOptions());
+    if (!me) {
+      const url = new URL(request.url);
+      throw redirect(paths.signIn.getHref(url.pathname + url.search));
+    }
+    return null;
+  };
+
+export function ProtectedRoute() {
+  const me = useMe();
+  const location = useLocation();
+  // The session can also end while a page is open (a 401 from any request clears it).
+  if (me.data === null) {
+    return <Navigate to={paths.signIn.getHref(location.pathname + location.search)} replace />;
+  }
+  if (!me.data) return null;
+  return (
+    <AppShell>
+      <Outlet />
+    </AppShell>
+  );
+}

@@ -1,0 +1,93 @@
+import { Button } from '@blueprintjs/core';
+import { LogOutIcon, PeopleIcon, UserIcon } from '@blueprintjs/icons';
+import type { ReactNode } from 'react';
+import { NavLink, useNavigate } from 'react-router-dom';
+
+import { paths } from '../../config/paths';
+import { roleLabel, useSignOut, useSignedIn } from '../../lib/auth';
+import { Brand } from '../brand';
+import { useToast } from '../toaster';
+
+type NavItem = { to: string; label: string; icon: ReactNode };
+
+// Later pages slot in here in reading order; the phone bar will lead with "Log a miss".
+const NAV_ITEMS: readonly NavItem[] = [
+  { to: paths.app.students.getHref(), label: 'Students', icon: <PeopleIcon /> },
+  { to: paths.app.account.getHref(), label: 'Account', icon: <UserIcon /> },
+];
+
+export function SignOutButton({ className }: { className?: string }) {
+  const signOut = useSignOut();
+  const navigate = useNavigate();
+  const toast = useToast();
+  return (
+    <Button
+      className={className}
+      icon={<LogOutIcon />}
+      variant="minimal"
+      loading={signOut.isPending}
+      onClick={() =>
+        signOut.mutate(undefined, {
+          onSettled: () => {
+            toast('You are signed out.');
+            void navigate(paths.signIn.getHref(), { replace: true });
+          },
+        })
+      }
+    >
+      Sign out
+    </Button>
+  );
+}
+
+/** The signed-in frame: side navigation on wide screens, a bottom bar on phones. */
+export function AppShell({ children }: { children: ReactNode }) {
+  const me = useSignedIn();
+  const householdName = me.household?.name ?? 'Workback site';
+  return (
+    <div className="wb-shell">
+      <a className="wb-skip" href="#main">
+        Skip to the page
+      </a>
+      <aside className="wb-sidebar" aria-label="Workback">
+        <Brand />
+        <div className="wb-household">
+          <span className="wb-household-label">Household</span>
+          <span className="wb-household-name">{householdName}</span>
+        </div>
+        <nav aria-label="Main">
+          <ul className="wb-nav">
+            {NAV_ITEMS.map((item) => (
+              <li key={item.to}>
+                <NavLink to={item.to} className="wb-nav-link">
+                  {item.icon}
+                  <span>{item.label}</span>
+                </NavLink>
+              </li>
+            ))}
+          </ul>
+        </nav>
+        <div className="wb-person">
+          <span className="wb-person-name">{me.user.displayName}</span>
+          <span className="wb-person-role">{roleLabel(me)}</span>
+          <SignOutButton className="wb-person-signout" />
+        </div>
+      </aside>
+      <header className="wb-topbar">
+        <Brand />
+        <span className="wb-topbar-household">{householdName}</span>
+      </header>
+      <main className="wb-main" id="main" tabIndex={-1}>
+        {children}
+      </main>
+      <nav className="wb-bottombar" aria-label="Main (phone)">
+        {NAV_ITEMS.map((item) => (
+          <NavLink key={item.to} to={item.to} className="wb-bottombar-link">
+            {item.icon}
+            <span>{item.label}</span>
+          </NavLink>
+        ))}
+      </nav>
+    </div>
+  );
+}

@@ -1,0 +1,28 @@
+// The one table of paths in the web app. Later pages (Log a miss, Notebook, Patterns, Review plans,
+// Keys, Sittings) add their entries here and in the navigation table of the app shell.
+export const paths = {
+  signIn: {
+    path: '/sign-in',
+    getHref: (redirectTo?: string | null) =>
+      redirectTo && redirectTo !== '/'
+        ? `/sign-in?redirectTo=${encodeURIComponent(redirectTo)}`
+        : '/sign-in',
+  },
+  createAccount: {
+    path: '/create-account',
+    getHref: () => '/create-account',
+  },
+  app: {
+    root: { path: '/', getHref: () => '/' },
+    students: { path: '/students', getHref: () => '/students' },
+    account: { path: '/account', getHref: () => '/account' },
+  },
+} as const;
+
+/** Where to go after signing in: only same-app paths, never another site. */
+export function safeRedirect(target: string | null | undefined): string {
+  if (!target || !target.startsWith('/') || target.startsWith('//')) {
+    return paths.app.students.getHref();
+  }
+  return target;
+}

@@ -1,0 +1,124 @@
+/** Field name → message, as the API names bad input. */
+export type FieldErrors = Record<string, string>;
+
+const TOO_MANY_TRIES = 'Too many tries — wait a minute and try again.';
+const OFFLINE = 'Workback could not be reached. Check your connection and try again.';
+
+/** Every failed request becomes one of these, so screens can rely on `status` and `fields`. */
+export class ApiError extends Error {
+  readonly status: number;
+  readonly fields: FieldErrors;
+
+  constructor(status: number, message: string, fields: FieldErrors = {}) {
+    super(message);
+    this.name = 'ApiError';
+    this.status = status;
+    this.fields = fields;
+  }
+}
+
+export function isApiError(error: unknown, status?: number): error is ApiError {
+  return error instanceof ApiError && (status === undefined || error.status === status);
+}
+
+type Method = 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE';
+
+let csrfToken: string | null = null;
+let csrfRequest: Promise<string> | null = null;
+
+/**
+ * The CSRF token is bound to the session and the session id changes on sign-in, sign-up and
+ * sign-out: forget it then, and the next write fetches a fresh one.
+ */
+export function forgetCsrfToken(): void {
+  csrfToken = null;
+  csrfRequest = null;
+}
+
+async function getCsrfToken(): Promise<string> {
+  if (csrfToken) return csrfToken;
+  csrfRequest ??= send<{ token: string }>('GET', '/auth/csrf').then(
+    ({ token }) => {
+      csrfToken = token;
+      return token;
+    },
+    (error: unknown) => {
+      csrfRequest = null;
+      throw error;
+    },
+  );
+  return csrfRequest;
+}
+
+function isRecord(value: unknown): value is Record<string, unknown> {
+  return typeof value === 'object' && value !== null && !Array.isArray(value);
+}
+
+async function toApiError(response: Response): Promise<ApiError> {
+  let body: unknown = null;
+  try {
+    body = await response.json();
+  } catch {
+    body = null;
+  }
+  const fields: FieldErrors = {};
+  let message = response.statusText || `Request failed (${response.status})`;
+  if (isRecord(body)) {
+    if (typeof body.message === 'string') message = body.message;
+    else if (Array.isArray(body.message)) message = body.message.map(String).join(' ');
+    if (isRecord(body.fields)) {
+      for (const [field, text] of Object.entries(body.fields)) {
+        fields[field] = Array.isArray(text) ? text.map(String).join(' ') : String(text);
+      }
+    }
+  }
+  if (response.status === 429) message = TOO_MANY_TRIES;
+  return new ApiError(response.status, message, fields);
+}
+
+async function send<T>(method: Method, path: string, body?: unknown, csrf?: string): Promise<T> {
+  const headers: Record<string, string> = { accept: 'application/json' };
+  if (body !== undefined) headers['content-type'] = 'application/json';
+  if (csrf) headers['x-csrf-token'] = csrf;
+  let response: Response;
+  try {
+    response = await fetch(`/api${path}`, {
+      method,
+      headers,
+      credentials: 'same-origin',
+      body: body === undefined ? undefined : JSON.stringify(body),
+    });
+  } catch {
+    throw new ApiError(0, OFFLINE);
+  }
+  if (!response.ok) {
+    const error = await toApiError(response);
+    if (error.status === 401) forgetCsrfToken();
+    throw error;
+  }
+  if (response.status === 204) return undefined as T;
+  const text = await response.text();
+  return (text ? JSON.parse(text) : undefined) as T;
+}
+
+async function write<T>(method: Exclude<Method, 'GET'>, path: string, body?: unknown): Promise<T> {
+  try {
+    return await send<T>(method, path, body, await getCsrfToken());
+  } catch (error) {
+    // A stale token (the session changed underneath us): fetch a new one and retry once.
+    if (isApiError(error, 403) && /csrf/i.test(error.message)) {
+      forgetCsrfToken();
+      return send<T>(method, path, body, await getCsrfToken());
+    }
+    throw error;
+  }
+}
+
+/** The one client for Workback's JSON API (same origin, under /api). */
+export const api = {
+  get: <T>(path: string) => send<T>('GET', path),
+  post: <T>(path: string, body?: unknown) => write<T>('POST', path, body),
+  put: <T>(path: string, body?: unknown) => write<T>('PUT', path, body),
+  patch: <T>(path: string, body?: unknown) => write<T>('PATCH', path, body),
+  delete: <T = void>(path: string) => write<T>('DELETE', path),
+};

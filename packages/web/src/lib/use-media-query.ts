@@ -1,0 +1,18 @@
+import { useSyncExternalStore } from 'react';
+
+/** `useMediaQuery('(max-width: 640px)')` → `true` on a phone. */
+export function useMediaQuery(query: string): boolean {
+  return useSyncExternalStore(
+    (onChange) => {
+      const list = window.matchMedia(query);
+      list.addEventListener('change', onChange);
+      return () => list.removeEventListener('change', onChange);
+    },
+    () => window.matchMedia(query).matches,
+    () => false,
+  );
+}
+
+export const PHONE_QUERY = '(max-width: 640px)';
+
+export const useIsPhone = () => useMediaQuery(PHONE_QUERY);

@@ -1,0 +1,18 @@
+import react from '@vitejs/plugin-react';
+import { defaultClientConditions, defaultServerConditions } from 'vite';
+import { defineConfig } from 'vitest/config';
+
+export default defineConfig({
+  plugins: [react()],
+  resolve: { conditions: ['workback-source', ...defaultClientConditions] },
+  ssr: { resolve: { conditions: ['workback-source', ...defaultServerConditions] } },
+  test: {
+    name: 'web',
+    include: ['src/**/*.test.{ts,tsx}'],
+    environment: 'happy-dom',
+    setupFiles: ['./src/testing/setup.ts'],
+    css: false,
+    restoreMocks: true,
+    unstubGlobals: true,
+  },
+});
