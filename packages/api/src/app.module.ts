@@ -1,0 +1,79 @@
+import { randomUUID } from 'node:crypto';
+import { Module } from '@nestjs/common';
+import { ConfigModule, ConfigService } from '@nestjs/config';
+import { APP_FILTER, APP_GUARD } from '@nestjs/core';
+import { ThrottlerModule } from '@nestjs/throttler';
+import type { Request } from 'express';
+import { LoggerModule } from 'nestjs-pino';
+import { AuthModule } from './auth/auth.module.js';
+import { HttpExceptionFilter } from './common/filters/http-exception.filter.js';
+import { AccessGuard } from './common/guards/access.guard.js';
+import { CsrfGuard } from './common/guards/csrf.guard.js';
+import { appConfig, type AppConfig } from './config/app.config.js';
+import { DatabaseModule } from './database/database.module.js';
+import { HealthModule } from './health/health.module.js';
+import { HouseholdsModule } from './households/households.module.js';
+import { SeedModule } from './seed/seed.module.js';
+import { SessionsModule } from './sessions/sessions.module.js';
+import { StudentsModule } from './students/students.module.js';
+import { UsersModule } from './users/users.module.js';
+
+const emailOf = (req: Request) =>
+  typeof req.body?.email === 'string' ? req.body.email.trim().toLowerCase() : '';
+
+@Module({
+  imports: [
+    ConfigModule.forRoot({ isGlobal: true, ignoreEnvFile: true, load: [appConfig] }),
+    LoggerModule.forRootAsync({
+      inject: [ConfigService],
+      useFactory: (config: ConfigService) => ({
+        pinoHttp: {
+          level: config.getOrThrow<AppConfig>('app').logLevel,
+          genReqId: (req, res) => {
+            const id = randomUUID();
+            res.setHeader('x-request-id', id);
+            return id;
+          },
+          // Never log credentials or session ids.
+          redact: [
+            'req.headers.cookie',
+            'req.headers["x-csrf-token"]',
+            'res.headers["set-cookie"]',
+          ],
+        },
+      }),
+    }),
+    ThrottlerModule.forRootAsync({
+      inject: [ConfigService],
+      useFactory: (config: ConfigService) => {
+        const limit = config.getOrThrow<AppConfig>('app').signInLimitPerMinute;
+        return {
+          errorMessage: 'Too many tries: please wait a minute and try again',
+          throttlers: [
+            {
+              name: 'sign-in',
+              ttl: 60_000,
+              limit,
+              getTracker: (req) => `${(req as Request).ip}|${emailOf(req as Request)}`,
+            },
+            { name: 'sign-in-ip', ttl: 60_000, limit: limit * 6 },
+          ],
+        };
+      },
+    }),
+    DatabaseModule,
+    SessionsModule,
+    UsersModule,
+    HouseholdsModule,
+    AuthModule,
+    StudentsModule,
+    HealthModule,
+    SeedModule,
+  ],
+  providers: [
+    { provide: APP_GUARD, useClass: CsrfGuard },
+    { provide: APP_GUARD, useClass: AccessGuard },
+    { provide: APP_FILTER, useClass: HttpExceptionFilter },
+  ],
+})
+export class AppModule {}

@@ -1,0 +1,117 @@
+import { existsSync } from 'node:fs';
+import path from 'node:path';
+import type { NestExpressApplication } from '@nestjs/platform-express';
+import { DocumentBuilder, SwaggerModule } from '@nestjs/swagger';
+import type { NextFunction, Request, Response } from 'express';
+import session from 'express-session';
+import helmet from 'helmet';
+import { Logger } from 'nestjs-pino';
+import passport from 'passport';
+import { createValidationPipe } from './common/pipes/validation.pipe.js';
+import type { AppConfig } from './config/app.config.js';
+import { API_VERSION } from './health/health.controller.js';
+import { SessionStoreService } from './sessions/session-store.service.js';
+
+const strictCsp = {
+  defaultSrc: ["'self'"],
+  scriptSrc: ["'self'"],
+  styleSrc: ["'self'"],
+  imgSrc: ["'self'", 'data:', 'blob:'],
+  fontSrc: ["'self'"],
+  connectSrc: ["'self'"],
+  objectSrc: ["'none'"],
+  baseUri: ["'none'"],
+  formAction: ["'self'"],
+  frameAncestors: ["'none'"],
+};
+
+/** Everything the HTTP app needs around its modules: security headers, sessions, docs, the web app. */
+export function configureApp(app: NestExpressApplication, config: AppConfig): void {
+  app.useLogger(app.get(Logger));
+  app.setGlobalPrefix('api');
+  if (config.trustProxy) app.set('trust proxy', 1);
+  app.disable('x-powered-by');
+  app.useBodyParser('json', { limit: '256kb' });
+
+  const hsts = config.env === 'production' ? undefined : false;
+  // Swagger UI ships inline styles; only its own pages get them.
+  app.use(
+    '/api/docs',
+    helmet({
+      strictTransportSecurity: hsts,
+      contentSecurityPolicy: {
+        directives: { ...strictCsp, styleSrc: ["'self'", "'unsafe-inline'"] },
+      },
+    }),
+  );
+  app.use(
+    helmet({ strictTransportSecurity: hsts, contentSecurityPolicy: { directives: strictCsp } }),
+  );
+  app.use('/api', (_req: Request, res: Response, next: NextFunction) => {
+    res.setHeader('Cache-Control', 'no-store');
+    next();
+  });
+
+  app.use(
+    session({
+      name: config.session.cookieName,
+      secret: config.session.secret,
+      store: app.get(SessionStoreService).store,
+      resave: false,
+      saveUninitialized: false,
+      rolling: true,
+      unset: 'destroy',
+      cookie: {
+        httpOnly: true,
+        sameSite: 'lax',
+        secure: config.session.secure,
+        maxAge: config.session.idleMs,
+      },
+    }),
+  );
+  app.use(absoluteLifetime(config.session.maxAgeMs));
+  app.use(passport.initialize());
+  app.use(passport.session());
+
+  app.useGlobalPipes(createValidationPipe());
+  app.enableShutdownHooks();
+
+  const document = SwaggerModule.createDocument(
+    app,
+    new DocumentBuilder()
+      .setTitle('Workback API')
+      .setDescription(
+        'Error-analysis notebook for home-teaching families. Send the token from GET /api/auth/csrf as x-csrf-token on every write.',
+      )
+      .setVersion(API_VERSION)
+      .addCookieAuth(config.session.cookieName)
+      .build(),
+  );
+  SwaggerModule.setup('api/docs', app, document, { useGlobalPrefix: false });
+
+  serveWebApp(app, config.webDist);
+}
+
+/** A signed-in session ends 12 h after sign-in however active it is (the idle limit is the cookie's). */
+function absoluteLifetime(maxAgeMs: number) {
+  return (req: Request, _res: Response, next: NextFunction) => {
+    const started = req.session?.signedInAt;
+    if (started !== undefined && Date.now() - started > maxAgeMs) {
+      req.session.regenerate((err) => next(err));
+      return;
+    }
+    next();
+  };
+}
+
+/** The built web app on the same origin, with client-side routes falling back to index.html. */
+function serveWebApp(app: NestExpressApplication, webDist: string): void {
+  const index = path.join(webDist, 'index.html');
+  if (!existsSync(index)) return;
+  app.useStaticAssets(webDist, { index: false, maxAge: '1h', immutable: false });
+  app.use((req: Request, res: Response, next: NextFunction) => {
+    if (req.method !== 'GET' || req.path.startsWith('/api') || !req.accepts('html')) return next();
+    res.setHeader('Cache-Control', 'no-cache');
+    res.sendFile(index);
+  });
+}

@@ -1,0 +1,76 @@
+import { Body, Controller, Get, HttpCode, Post, Req, Res, UseGuards } from '@nestjs/common';
+import { ConfigService } from '@nestjs/config';
+import { ApiOperation, ApiTags } from '@nestjs/swagger';
+import { ThrottlerGuard } from '@nestjs/throttler';
+import type { Request, Response } from 'express';
+import { CurrentUser } from '../common/decorators/current-member.decorator.js';
+import { AllowNoHousehold, Public } from '../common/decorators/public.decorator.js';
+import type { SessionUser } from '../common/member-context.js';
+import type { AppConfig } from '../config/app.config.js';
+import { AuthService } from './auth.service.js';
+import { LoginDto } from './dto/login.dto.js';
+import { RegisterDto } from './dto/register.dto.js';
+import { LocalAuthGuard } from './local-auth.guard.js';
+import {
+  destroySession,
+  logIn,
+  logOut,
+  newCsrfToken,
+  startSignedInSession,
+} from './session-lifetime.js';
+
+@ApiTags('auth')
+@Controller('auth')
+export class AuthController {
+  private readonly cookieName: string;
+
+  constructor(
+    private readonly auth: AuthService,
+    config: ConfigService,
+  ) {
+    this.cookieName = config.getOrThrow<AppConfig>('app').session.cookieName;
+  }
+
+  @Public()
+  @Get('csrf')
+  @ApiOperation({ summary: 'The CSRF token bound to this session (send it as x-csrf-token)' })
+  csrf(@Req() req: Request) {
+    req.session.csrfToken ??= newCsrfToken();
+    return { token: req.session.csrfToken };
+  }
+
+  @Public()
+  @UseGuards(ThrottlerGuard)
+  @Post('register')
+  async register(@Body() dto: RegisterDto, @Req() req: Request) {
+    const user = await this.auth.register(dto);
+    await logIn(req, user);
+    startSignedInSession(req);
+    return this.auth.describe(user, undefined);
+  }
+
+  @Public()
+  @UseGuards(ThrottlerGuard, LocalAuthGuard)
+  @Post('login')
+  @HttpCode(200)
+  @ApiOperation({ summary: 'Sign in with { email, password }' })
+  login(@Body() _dto: LoginDto, @Req() req: Request, @CurrentUser() user: SessionUser) {
+    startSignedInSession(req);
+    return this.auth.describe(user, undefined);
+  }
+
+  @AllowNoHousehold()
+  @Post('logout')
+  @HttpCode(204)
+  async logout(@Req() req: Request, @Res({ passthrough: true }) res: Response): Promise<void> {
+    await logOut(req);
+    await destroySession(req);
+    res.clearCookie(this.cookieName);
+  }
+
+  @AllowNoHousehold()
+  @Get('me')
+  me(@Req() req: Request, @CurrentUser() user: SessionUser) {
+    return this.auth.describe(user, req.session.householdId);
+  }
+}

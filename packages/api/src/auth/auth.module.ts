@@ -1,0 +1,17 @@
+import { Module } from '@nestjs/common';
+import { PassportModule } from '@nestjs/passport';
+import { HouseholdsModule } from '../households/households.module.js';
+import { UsersModule } from '../users/users.module.js';
+import { AuthController } from './auth.controller.js';
+import { AuthService } from './auth.service.js';
+import { LocalStrategy } from './local.strategy.js';
+import { PasswordService } from './password.service.js';
+import { SessionSerializer } from './session.serializer.js';
+
+@Module({
+  imports: [PassportModule.register({ session: true }), UsersModule, HouseholdsModule],
+  controllers: [AuthController],
+  providers: [AuthService, PasswordService, LocalStrategy, SessionSerializer],
+  exports: [AuthService, PasswordService],
+})
+export class AuthModule {}

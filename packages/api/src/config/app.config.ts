@@ -1,0 +1,68 @@
+import { registerAs } from '@nestjs/config';
+import { fileURLToPath } from 'node:url';
+import path from 'node:path';
+import { validateEnv } from './env.validation.js';
+import { loadOrCreateSecret } from './session-secret.js';
+
+export const DEMO_ADMIN_EMAIL = 'admin@workback.test';
+
+export interface AppConfig {
+  env: 'development' | 'production' | 'test';
+  port: number;
+  host: string;
+  dataDir: string;
+  databaseFile: string;
+  sessionsFile: string;
+  photosDir: string;
+  webDist: string;
+  publicUrl: string | undefined;
+  trustProxy: boolean;
+  logLevel: string;
+  seedDemo: boolean;
+  adminEmails: readonly string[];
+  signInLimitPerMinute: number;
+  session: {
+    secret: string;
+    idleMs: number;
+    maxAgeMs: number;
+    cookieName: string;
+    secure: boolean;
+  };
+  mail: { smtpUrl: string | undefined; from: string };
+}
+
+const defaultWebDist = fileURLToPath(new URL('../../../web/dist', import.meta.url));
+
+export const appConfig = registerAs('app', (): AppConfig => {
+  const env = validateEnv(process.env);
+  const dataDir = path.resolve(env.DATA_DIR);
+  const admins = env.ADMIN_EMAILS.split(',')
+    .map((e) => e.trim().toLowerCase())
+    .filter(Boolean);
+  // The demo's site-admin sign-in only exists when the demo household is seeded.
+  if (env.SEED_DEMO && !admins.includes(DEMO_ADMIN_EMAIL)) admins.push(DEMO_ADMIN_EMAIL);
+  return {
+    env: env.NODE_ENV,
+    port: env.PORT,
+    host: env.HOST,
+    dataDir,
+    databaseFile: path.join(dataDir, 'workback.sqlite'),
+    sessionsFile: path.join(dataDir, 'sessions.sqlite'),
+    photosDir: path.join(dataDir, 'photos'),
+    webDist: env.WEB_DIST ? path.resolve(env.WEB_DIST) : defaultWebDist,
+    publicUrl: env.PUBLIC_URL,
+    trustProxy: env.TRUST_PROXY,
+    logLevel: env.NODE_ENV === 'test' && !process.env.LOG_LEVEL ? 'silent' : env.LOG_LEVEL,
+    seedDemo: env.SEED_DEMO,
+    adminEmails: admins,
+    signInLimitPerMinute: env.SIGN_IN_LIMIT_PER_MINUTE,
+    session: {
+      secret: env.SESSION_SECRET ?? loadOrCreateSecret(dataDir),
+      idleMs: env.SESSION_IDLE_MINUTES * 60_000,
+      maxAgeMs: env.SESSION_MAX_HOURS * 3_600_000,
+      cookieName: 'workback.sid',
+      secure: env.NODE_ENV === 'production' && env.TRUST_PROXY,
+    },
+    mail: { smtpUrl: env.SMTP_URL, from: env.MAIL_FROM },
+  };
+});

@@ -1,0 +1,48 @@
+import type { Sequelize } from 'sequelize-typescript';
+
+/**
+ * Pragmas every connection needs. Sequelize's sqlite dialect opens a fresh
+ * connection per transaction and runs no connect hooks, so they are applied
+ * whenever it hands out a connection it has not seen before.
+ *
+ * synchronous=FULL: in WAL mode this syncs the log on every commit, so a
+ * transaction that answered 2xx survives a power cut, not only a process kill
+ * (NORMAL would survive the kill but may lose the last commits on power loss).
+ */
+export const CONNECTION_PRAGMAS = [
+  'PRAGMA journal_mode = WAL',
+  'PRAGMA foreign_keys = ON',
+  'PRAGMA busy_timeout = 10000',
+  'PRAGMA synchronous = FULL',
+] as const;
+
+interface RawConnection {
+  exec(sql: string, callback: (err: Error | null) => void): void;
+}
+
+const prepared = new WeakSet<object>();
+
+function exec(connection: RawConnection, sql: string): Promise<void> {
+  return new Promise((resolve, reject) =>
+    connection.exec(sql, (err) => (err ? reject(err) : resolve())),
+  );
+}
+
+export async function applyPragmas(connection: RawConnection): Promise<void> {
+  if (prepared.has(connection)) return;
+  for (const pragma of CONNECTION_PRAGMAS) await exec(connection, pragma);
+  prepared.add(connection);
+}
+
+/** Wraps the dialect's getConnection so each new connection is prepared before use. */
+export function preparePragmasOnConnect(sequelize: Sequelize): void {
+  const manager = sequelize.connectionManager as unknown as {
+    getConnection(options?: object): Promise<RawConnection>;
+  };
+  const original = manager.getConnection.bind(manager);
+  manager.getConnection = async (options?: object) => {
+    const connection = await original(options);
+    await applyPragmas(connection);
+    return connection;
+  };
+}

@@ -1,0 +1,103 @@
+import { Injectable } from '@nestjs/common';
+import { InjectModel } from '@nestjs/sequelize';
+import { Role } from '@workback/core';
+import type { Transaction } from 'sequelize';
+import type { MemberContext } from '../common/member-context.js';
+import { Household } from './models/household.model.js';
+import { Membership } from './models/membership.model.js';
+import { StudentGrant } from './models/student-grant.model.js';
+
+export interface HouseholdSummary {
+  id: number;
+  name: string;
+  role: Role;
+}
+
+@Injectable()
+export class HouseholdsService {
+  constructor(
+    @InjectModel(Household) private readonly householdModel: typeof Household,
+    @InjectModel(Membership) private readonly membershipModel: typeof Membership,
+    @InjectModel(StudentGrant) private readonly grantModel: typeof StudentGrant,
+  ) {}
+
+  /** The membership a request acts under: the session's household if still a member, else the first. */
+  async resolveMember(
+    userId: number,
+    preferredHouseholdId?: number,
+  ): Promise<MemberContext | null> {
+    const memberships = await this.membershipModel.findAll({
+      where: { userId },
+      order: [['id', 'ASC']],
+    });
+    const membership =
+      memberships.find((m) => m.householdId === preferredHouseholdId) ?? memberships[0];
+    if (!membership) return null;
+    let studentIds: number[] | null = null;
+    if (membership.role === Role.tutor) {
+      const grants = await this.grantModel.findAll({ where: { membershipId: membership.id } });
+      studentIds = grants.map((g) => g.studentId);
+    }
+    return {
+      userId,
+      membershipId: membership.id,
+      householdId: membership.householdId,
+      role: membership.role,
+      studentIds,
+    };
+  }
+
+  async listForUser(userId: number): Promise<HouseholdSummary[]> {
+    const memberships = await this.membershipModel.findAll({
+      where: { userId },
+      include: [Household],
+      order: [['id', 'ASC']],
+    });
+    return memberships.map((m) => ({ id: m.householdId, name: m.household!.name, role: m.role }));
+  }
+
+  async findCurrent(member: MemberContext) {
+    const household = await this.householdModel.findByPk(member.householdId, {
+      rejectOnEmpty: true,
+    });
+    return {
+      id: household.id,
+      name: household.name,
+      role: member.role,
+      createdAt: household.createdAt,
+    };
+  }
+
+  async createWithOwner(
+    name: string,
+    ownerId: number,
+    transaction: Transaction,
+  ): Promise<Household> {
+    const household = await this.householdModel.create({ name }, { transaction });
+    await this.membershipModel.create(
+      { householdId: household.id, userId: ownerId, role: Role.owner },
+      { transaction },
+    );
+    return household;
+  }
+
+  async addMember(
+    householdId: number,
+    userId: number,
+    role: Role,
+    studentIds: readonly number[],
+    transaction?: Transaction,
+  ): Promise<Membership> {
+    const membership = await this.membershipModel.create(
+      { householdId, userId, role },
+      { transaction },
+    );
+    if (role === Role.tutor && studentIds.length > 0) {
+      await this.grantModel.bulkCreate(
+        studentIds.map((studentId) => ({ membershipId: membership.id, studentId })),
+        { transaction },
+      );
+    }
+    return membership;
+  }
+}

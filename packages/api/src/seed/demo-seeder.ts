@@ -1,0 +1,65 @@
+import { readFile } from 'node:fs/promises';
+import { Injectable, Logger } from '@nestjs/common';
+import { InjectConnection } from '@nestjs/sequelize';
+import type { Role } from '@workback/core';
+import type { Sequelize } from 'sequelize-typescript';
+import { AuthService } from '../auth/auth.service.js';
+import { PasswordService } from '../auth/password.service.js';
+import { HouseholdsService } from '../households/households.service.js';
+import { StudentsService } from '../students/students.service.js';
+import { User } from '../users/models/user.model.js';
+import { UsersService } from '../users/users.service.js';
+
+export const DEMO_FILE = new URL('../../../../seeds/demo-household.json', import.meta.url);
+
+interface DemoScenario {
+  password: string;
+  household: { name: string };
+  owner: { email: string; displayName: string };
+  members: { email: string; displayName: string; role: Role; students: string[] }[];
+  admin: { email: string; displayName: string };
+  students: { name: string; gradeLevel: string }[];
+}
+
+/** Loads the invented demo household through the app's own services, into an empty database only. */
+@Injectable()
+export class DemoSeeder {
+  private readonly logger = new Logger(DemoSeeder.name);
+
+  constructor(
+    private readonly auth: AuthService,
+    private readonly users: UsersService,
+    private readonly passwords: PasswordService,
+    private readonly households: HouseholdsService,
+    private readonly students: StudentsService,
+    @InjectConnection() private readonly sequelize: Sequelize,
+  ) {}
+
+  async seedIfEmpty(): Promise<boolean> {
+    if ((await User.count()) > 0) return false;
+    const demo = JSON.parse(await readFile(DEMO_FILE, 'utf8')) as DemoScenario;
+    const owner = await this.auth.register({
+      ...demo.owner,
+      password: demo.password,
+      householdName: demo.household.name,
+      adultConfirmed: true,
+    });
+    const ownerMember = await this.households.resolveMember(owner.id);
+    if (!ownerMember) throw new Error('Demo owner has no household');
+    const byName = new Map<string, number>();
+    for (const s of demo.students) {
+      byName.set(s.name, (await this.students.create(ownerMember, s)).id);
+    }
+    const passwordHash = await this.passwords.hash(demo.password);
+    await this.sequelize.transaction(async (transaction) => {
+      for (const m of demo.members) {
+        const user = await this.users.create({ ...m, passwordHash }, transaction);
+        const ids = m.students.map((name) => byName.get(name)!);
+        await this.households.addMember(ownerMember.householdId, user.id, m.role, ids, transaction);
+      }
+      await this.users.create({ ...demo.admin, passwordHash }, transaction);
+    });
+    this.logger.log(`Demo household "${demo.household.name}" loaded`);
+    return true;
+  }
+}

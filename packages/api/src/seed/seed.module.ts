@@ -1,0 +1,24 @@
+import { Module, type OnApplicationBootstrap } from '@nestjs/common';
+import { ConfigService } from '@nestjs/config';
+import { AuthModule } from '../auth/auth.module.js';
+import type { AppConfig } from '../config/app.config.js';
+import { HouseholdsModule } from '../households/households.module.js';
+import { StudentsModule } from '../students/students.module.js';
+import { UsersModule } from '../users/users.module.js';
+import { DemoSeeder } from './demo-seeder.js';
+
+@Module({
+  imports: [AuthModule, UsersModule, HouseholdsModule, StudentsModule],
+  providers: [DemoSeeder],
+  exports: [DemoSeeder],
+})
+export class SeedModule implements OnApplicationBootstrap {
+  constructor(
+    private readonly seeder: DemoSeeder,
+    private readonly config: ConfigService,
+  ) {}
+
+  async onApplicationBootstrap(): Promise<void> {
+    if (this.config.getOrThrow<AppConfig>('app').seedDemo) await this.seeder.seedIfEmpty();
+  }
+}

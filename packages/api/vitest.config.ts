@@ -1,0 +1,16 @@
+import { defineConfig } from 'vitest/config';
+
+export default defineConfig({
+  // Nest's injector reads design:paramtypes; without this metadata it silently injects undefined.
+  oxc: { decorator: { legacy: true, emitDecoratorMetadata: true } },
+  resolve: { conditions: ['workback-source'] },
+  ssr: { resolve: { conditions: ['workback-source'] } },
+  test: {
+    name: 'api',
+    include: ['src/**/*.spec.ts', 'test/**/*.test.ts'],
+    environment: 'node',
+    testTimeout: 30_000,
+    hookTimeout: 30_000,
+    pool: 'forks',
+  },
+});
