@@ -1,0 +1,19 @@
+// `npm run dev`: the API with reload on :3000 and Vite's dev server (proxying /api) side by side.
+import { spawn } from 'node:child_process';
+
+const run = (args, name) => {
+  const child = spawn('npm', args, { stdio: 'inherit', env: { ...process.env, FORCE_COLOR: '1' } });
+  child.on('exit', (code) => {
+    console.log(`${name} exited with ${code}`);
+    process.exit(code ?? 1);
+  });
+  return child;
+};
+
+const children = [
+  run(['run', 'start:dev', '-w', 'packages/api'], 'api'),
+  run(['run', 'dev', '-w', 'packages/web'], 'web'),
+];
+for (const signal of ['SIGINT', 'SIGTERM']) {
+  process.on(signal, () => children.forEach((c) => c.kill(signal)));
+}
