@@ -1,0 +1,225 @@
+import { castOutElevens } from '../checks/castOutElevens.js';
+import { castOutNines } from '../checks/castOutNines.js';
+import type { CheckResult } from '../checks/types.js';
+import { diagnose } from '../diagnose/diagnose.js';
+import type { Diagnosis, WrittenSteps } from '../diagnose/types.js';
+import { parseAnswer } from '../parse/parseAnswer.js';
+import { parseProblem } from '../parse/parseProblem.js';
+import { practiceFor } from '../practice/practiceFor.js';
+import { formatTrace } from './formatTrace.js';
+
+/** Anything with a `write`, such as `process.stdout`. */
+export interface Output {
+  write(text: string): unknown;
+}
+
+const USAGE = `workback — Workback's step checker
+
+Usage:
+  workback diagnose "<problem>" "<answer>" [--steps JSON] [--json]
+  workback nines "<problem>" "<answer>" [--json]
+  workback practice <ruleId> [--count N] [--digits N] [--seed N] [--json]
+  workback --help
+
+Examples:
+  workback diagnose "304 - 75" "139"
+  workback diagnose "34 x 12" "418" --steps '{"partials":["68","340"]}'
+  workback nines "347 + 589" "936" --json
+  workback practice sub.borrow-across-zero --count 5 --digits 4
+
+Exit status: 0 when a diagnosis (or check, or practice set) was produced, 2 when the
+problem, the answer or the command could not be read.
+`;
+
+interface Parsed {
+  positional: string[];
+  flags: Map<string, string | true>;
+}
+
+const VALUE_FLAGS = new Set(['--steps', '--count', '--digits', '--seed']);
+const BOOLEAN_FLAGS = new Set(['--json', '--help', '-h']);
+
+function readArgs(argv: readonly string[]): Parsed | string {
+  const positional: string[] = [];
+  const flags = new Map<string, string | true>();
+  for (let i = 0; i < argv.length; i += 1) {
+    const arg = argv[i] as string;
+    if (arg.startsWith('--') || arg === '-h') {
+      const [name, inline] = arg.includes('=')
+        ? [arg.slice(0, arg.indexOf('=')), arg.slice(arg.indexOf('=') + 1)]
+        : [arg, undefined];
+      if (VALUE_FLAGS.has(name)) {
+        const value = inline ?? argv[i + 1];
+        if (value === undefined) return `${name} needs a value.`;
+        if (inline === undefined) i += 1;
+        flags.set(name, value);
+      } else if (BOOLEAN_FLAGS.has(name)) flags.set(name, true);
+      else return `unknown option ${name}; see workback --help.`;
+    } else positional.push(arg);
+  }
+  return { positional, flags };
+}
+
+/**
+ * The `workback` command line. Returns the exit status: 0 when it produced a result, 2
+ * with a one-line message on `err` when the input or the usage could not be read.
+ * `main(['diagnose', '81 - 38', '57', '--json'], out, err)` → `0`, writing the Diagnosis JSON to `out`.
+ */
+export function main(argv: readonly string[], out: Output, err: Output): number {
+  const fail = (message: string): number => {
+    err.write(`workback: ${message}\n`);
+    return 2;
+  };
+  const args = readArgs(argv);
+  if (typeof args === 'string') return fail(args);
+  const [command, ...rest] = args.positional;
+  if (args.flags.has('--help') || args.flags.has('-h') || command === 'help') {
+    out.write(USAGE);
+    return 0;
+  }
+  if (command === undefined) return fail('no command given; try workback --help.');
+  const json = args.flags.has('--json');
+
+  if (command === 'diagnose') {
+    if (rest.length !== 2)
+      return fail(
+        'diagnose needs a problem and an answer, e.g. workback diagnose "304 - 75" "139".',
+      );
+    let steps: WrittenSteps | undefined;
+    const stepsText = args.flags.get('--steps');
+    if (typeof stepsText === 'string') {
+      try {
+        steps = JSON.parse(stepsText) as WrittenSteps;
+      } catch {
+        return fail('the --steps value is not valid JSON, e.g. {"partials":["68","340"]}.');
+      }
+    }
+    const result = diagnose(
+      rest[0] as string,
+      rest[1] as string,
+      steps === undefined ? {} : { steps },
+    );
+    if (!result.ok) return fail(`could not read the ${result.part}: ${result.error.message}`);
+    out.write(json ? `${JSON.stringify(result, null, 2)}\n` : describeDiagnosis(result));
+    return 0;
+  }
+
+  if (command === 'nines') {
+    if (rest.length !== 2)
+      return fail('nines needs a problem and an answer, e.g. workback nines "347 + 589" "936".');
+    const problem = parseProblem(rest[0] as string);
+    if (!problem.ok) return fail(`could not read the problem: ${problem.error.message}`);
+    const answer = parseAnswer(rest[1] as string);
+    if (!answer.ok) return fail(`could not read the answer: ${answer.error.message}`);
+    const nines = castOutNines(problem.problem, answer.answer);
+    const elevens = castOutElevens(problem.problem, answer.answer);
+    out.write(
+      json
+        ? `${JSON.stringify({ problem: problem.problem, answer: answer.answer.text, nines, elevens }, null, 2)}\n`
+        : [
+            `${problem.problem.text} = ${answer.answer.text}`,
+            ...describeCheck('Casting out nines', nines),
+            ...describeCheck('Elevens check', elevens),
+            '',
+          ].join('\n'),
+    );
+    return 0;
+  }
+
+  if (command === 'practice') {
+    if (rest.length !== 1)
+      return fail('practice needs one rule id, e.g. workback practice sub.borrow-across-zero.');
+    const numbers: Record<string, number> = {};
+    for (const [flag, key, fallback] of [
+      ['--count', 'count', 5],
+      ['--digits', 'digits', 3],
+      ['--seed', 'seed', 1],
+    ] as const) {
+      const value = args.flags.get(flag);
+      if (value === undefined) numbers[key] = fallback;
+      else if (typeof value !== 'string' || !/^\d+$/.test(value))
+        return fail(`${flag} needs a whole number.`);
+      else numbers[key] = Number(value);
+    }
+    const set = practiceFor(rest[0] as string, {
+      count: numbers.count as number,
+      digits: numbers.digits as number,
+      seed: numbers.seed as number,
+    });
+    if (!set.ok) return fail(set.error.message);
+    out.write(
+      json
+        ? `${JSON.stringify(set, null, 2)}\n`
+        : [
+            `Practice for ${set.ruleId}:`,
+            ...set.problems.map(
+              (p, i) =>
+                `${i + 1}. ${p.problem}    (answer ${p.answer}; the rule would give ${p.ruleAnswer})`,
+            ),
+            '',
+          ].join('\n'),
+    );
+    return 0;
+  }
+  return fail(`unknown command “${command}”; try workback --help.`);
+}
+
+function describeCheck(title: string, check: CheckResult): string[] {
+  if (!check.applies) return [`${title}: does not apply — ${check.reason}`];
+  return [
+    `${title}:`,
+    ...check.numbers.map(
+      (n) =>
+        `  ${n.number}: ${n.working.length > 0 ? `${n.working.join(', ')} → ` : ''}${n.residue}`,
+    ),
+    `  problem side ${check.problemSide.working}; answer side ${check.answerSide.working}`,
+    `  ${check.verdict}`,
+    ...check.warnings.map((w) => `  Note: ${w}`),
+    `  ${check.caveat}`,
+  ];
+}
+
+function describeDiagnosis(d: Diagnosis): string {
+  const lines = [
+    `Problem:  ${d.problem.text}`,
+    `Answer:   ${d.answer}`,
+    `Expected: ${d.expected}`,
+    d.correct ? 'The answer is right.' : 'The answer differs from the usual working.',
+  ];
+  if (d.firstWrongStep !== null)
+    lines.push(`First difference (${d.firstWrongStep.place}): ${d.firstWrongStep.note}`);
+  if (!d.correct) {
+    if (d.rules.length === 0)
+      lines.push(
+        'No rule in the catalog reproduces this answer; the comparison above is what can be said.',
+      );
+    else {
+      lines.push('Ways of working that give exactly this answer (best first):');
+      d.rules.forEach((r, i) => lines.push(`  ${i + 1}. ${r.id}: ${r.explanation}`));
+    }
+    for (const f of d.facts)
+      lines.push(
+        `Fact to look at: ${f.a} ${f.op === 'x' ? '×' : f.op === '-' ? '−' : f.op} ${f.b} = ${f.expected} (written ${f.written}, ${f.where})`,
+      );
+  }
+  for (const n of d.notes) lines.push(`Note: ${n}`);
+  lines.push('', 'Usual working:', ...formatTrace(d.trace.expected).map((l) => `  ${l}`));
+  if (d.trace.child !== null)
+    lines.push(
+      '',
+      `The child's working as ${d.trace.child.ruleId} does it:`,
+      ...formatTrace(d.trace.child.working).map((l) => `  ${l}`),
+    );
+  lines.push(
+    '',
+    ...describeCheck('Casting out nines', d.checks.nines),
+    ...describeCheck('Elevens check', d.checks.elevens),
+  );
+  if (d.suggestedCause !== null)
+    lines.push(
+      '',
+      `Suggested cause, for you to confirm: ${d.suggestedCause.cause}. ${d.suggestedCause.because}`,
+    );
+  lines.push('', 'These checks are an aid to your judgement, not a grade.', '');
+  return lines.join('\n');
+}

@@ -1,0 +1,91 @@
+import { diagnoseAddition } from '../addition/diagnoseAddition.js';
+import { castOutElevens } from '../checks/castOutElevens.js';
+import { castOutNines } from '../checks/castOutNines.js';
+import { parseAnswer } from '../parse/parseAnswer.js';
+import { parseProblem } from '../parse/parseProblem.js';
+import type { Answer, Problem } from '../parse/types.js';
+import { diagnoseSubtraction } from '../subtraction/diagnoseSubtraction.js';
+import { ENGINE_VERSION } from './engineVersion.js';
+import { rankMatches } from './rankMatches.js';
+import { suggestCause } from './suggestCause.js';
+import type { DiagnoseResult, Diagnosis, Findings, WrittenSteps } from './types.js';
+
+/**
+ * Works the problem, compares the child's answer (and written steps, when given) with the
+ * correct working, and lists every error rule that reproduces the answer, best first.
+ * Pure and synchronous.
+ *
+ * `diagnose('304 - 75', '139')` → `{ ok: true, expected: '229', correct: false,
+ * rules: [{ id: 'sub.borrow-across-zero', score: 1, explanation: 'In the ones column …' }], … }`;
+ * `diagnose('304 $ 75', '1')` → `{ ok: false, part: 'problem', error: { message: 'I could not read “$”.', at: 4 } }`.
+ */
+export function diagnose(
+  problemText: string,
+  answerText: string,
+  options: { readonly steps?: WrittenSteps } = {},
+): DiagnoseResult {
+  const parsed = parseProblem(problemText);
+  if (!parsed.ok) return { ok: false, part: 'problem', error: parsed.error };
+  const read = parseAnswer(answerText);
+  if (!read.ok) return { ok: false, part: 'answer', error: read.error };
+  const steps = options.steps;
+  if (steps !== undefined) {
+    const bad = checkSteps(steps);
+    if (bad !== null) return { ok: false, part: 'steps', error: { message: bad } };
+  }
+  const problem = parsed.problem;
+  const answer = read.answer;
+  const findings = findingsFor(problem, answer, steps);
+  const ranked = rankMatches(findings.matches);
+  const rules = ranked.map(({ facts: _facts, ...match }) => match);
+  const facts = ranked[0]?.facts ?? [];
+  const childRule = ranked.find((m) => m.trace !== null);
+  const partial: Omit<Diagnosis, 'suggestedCause'> = {
+    ok: true,
+    problem,
+    expected: findings.expected,
+    answer: answer.text,
+    parsedAnswer: answer,
+    correct: findings.correct,
+    firstWrongStep: findings.correct ? null : findings.firstWrongStep,
+    rules,
+    facts,
+    checks: { nines: castOutNines(problem, answer), elevens: castOutElevens(problem, answer) },
+    trace: {
+      expected: findings.expectedTrace,
+      child: childRule?.trace == null ? null : { ruleId: childRule.id, working: childRule.trace },
+    },
+    notes: findings.notes,
+    engineVersion: ENGINE_VERSION,
+  };
+  return { ...partial, suggestedCause: suggestCause(partial) };
+}
+
+function findingsFor(problem: Problem, answer: Answer, _steps: WrittenSteps | undefined): Findings {
+  switch (problem.kind) {
+    case 'addition':
+      return diagnoseAddition(problem, answer);
+    case 'subtraction':
+      return diagnoseSubtraction(problem, answer);
+    default:
+      throw new Error(`diagnose: ${problem.kind} is not handled yet`);
+  }
+}
+
+function checkSteps(steps: WrittenSteps): string | null {
+  if (typeof steps !== 'object' || steps === null || Array.isArray(steps)) {
+    return 'The written steps should be an object such as { "partials": ["68", "340"] }.';
+  }
+  for (const key of Object.keys(steps)) {
+    if (key !== 'partials' && key !== 'lines')
+      return `The written steps have a part “${key}” I do not know; use "partials" or "lines".`;
+    const list = (steps as Record<string, unknown>)[key];
+    if (!Array.isArray(list)) return `The written steps “${key}” should be a list of numbers.`;
+    for (const item of list) {
+      if (typeof item !== 'string' || !/^\d[\d,]*$/.test(item.trim())) {
+        return `In the written steps “${key}”, ${JSON.stringify(item)} is not a whole number.`;
+      }
+    }
+  }
+  return null;
+}

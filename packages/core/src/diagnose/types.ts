@@ -1,0 +1,103 @@
+import type { Answer, Problem, ReadError } from '../parse/types.js';
+import type { WorkingTrace } from '../trace/types.js';
+import type { CheckResult } from '../checks/types.js';
+import type { Cause } from '../domain/causes.js';
+
+/** A basic fact the child's working needs to be wrong: 7 × 8 written 54. */
+export interface FactError {
+  readonly op: '+' | '-' | 'x' | '÷';
+  readonly a: number;
+  readonly b: number;
+  readonly expected: number;
+  readonly written: number;
+  /** Where the fact was used, e.g. `'tens column'`. */
+  readonly where: string;
+}
+
+/** Where the child's working first departs from the correct working. */
+export interface FirstWrongStep {
+  /** The column or step, e.g. `'ones'`, `'remainder'`, `'partial product 2'`. */
+  readonly place: string;
+  readonly expected: string;
+  /** What the child wrote there (`''` when nothing was written). */
+  readonly written: string;
+  readonly note: string;
+}
+
+/** One error rule, or a pair of them, that reproduces the child's answer. */
+export interface RuleMatch {
+  /** The rule id, or two ids joined with `+` for a pair (`'sub.borrow-no-decrement+sub.fact'`). */
+  readonly id: string;
+  readonly ids: readonly string[];
+  /** 1 for a single systematic rule, lower for fact rules and pairs; the list is ranked by it. */
+  readonly score: number;
+  /** Plain words for a parent, naming the column and digits. */
+  readonly explanation: string;
+  /** The working as the rule does it, to draw beside the correct one. */
+  readonly trace: WorkingTrace | null;
+}
+
+/** The child's written intermediate steps, when the parent enters them. */
+export interface WrittenSteps {
+  /** Long multiplication: the partial products as written, top to bottom (ones digit of the multiplier first). */
+  readonly partials?: readonly string[];
+  /** Long division: the quotient digits and numbers written under the dividend, in order (product, difference, …). */
+  readonly lines?: readonly string[];
+}
+
+/** A likely cause to offer the parent, who decides; never a verdict. */
+export interface SuggestedCause {
+  readonly cause: Extract<Cause, 'step' | 'fact' | 'copying'>;
+  readonly because: string;
+  readonly ruleIds: readonly string[];
+}
+
+/** The engine's findings for one problem and answer (the Diagnosis JSON of DESIGN.md). */
+export interface Diagnosis {
+  readonly ok: true;
+  readonly problem: Problem;
+  readonly expected: string;
+  readonly answer: string;
+  readonly parsedAnswer: Answer;
+  readonly correct: boolean;
+  readonly firstWrongStep: FirstWrongStep | null;
+  readonly rules: readonly RuleMatch[];
+  readonly facts: readonly FactError[];
+  readonly checks: { readonly nines: CheckResult; readonly elevens: CheckResult };
+  /** The correct working, and the child's working when the best-ranked rule reproduces it. */
+  readonly trace: {
+    readonly expected: WorkingTrace;
+    readonly child: { readonly ruleId: string; readonly working: WorkingTrace } | null;
+  };
+  readonly suggestedCause: SuggestedCause | null;
+  /** Extra remarks for the parent (e.g. a right value not in simplest form). */
+  readonly notes: readonly string[];
+  readonly engineVersion: string;
+}
+
+/** When the problem, the answer or the steps cannot be read. */
+export interface Unreadable {
+  readonly ok: false;
+  readonly part: 'problem' | 'answer' | 'steps';
+  readonly error: ReadError;
+}
+
+export type DiagnoseResult = Diagnosis | Unreadable;
+
+/** A rule (or pair) that reproduced the answer, before ranking; `facts` are the facts it needs wrong. */
+export interface Candidate {
+  readonly ids: readonly string[];
+  readonly explanation: string;
+  readonly trace: WorkingTrace | null;
+  readonly facts: readonly FactError[];
+}
+
+/** What one operation's diagnoser hands back to `diagnose`. */
+export interface Findings {
+  readonly expected: string;
+  readonly expectedTrace: WorkingTrace;
+  readonly correct: boolean;
+  readonly matches: readonly Candidate[];
+  readonly firstWrongStep: FirstWrongStep | null;
+  readonly notes: readonly string[];
+}

@@ -1,0 +1,77 @@
+// Public contract of @workback/core: explicit named exports only.
+export { Role, ROLES, EDITOR_ROLES, isRole } from './domain/roles.js';
+export { Cause, CAUSES, CAUSE_GUIDE, isCause } from './domain/causes.js';
+export { MissStatus, MISS_STATUSES, MISS_STATUS_LABEL, isMissStatus } from './domain/statuses.js';
+export { GRADE_LEVELS, isGradeLevel } from './domain/grades.js';
+
+// Parsing
+export { parseProblem } from './parse/parseProblem.js';
+export { parseAnswer } from './parse/parseAnswer.js';
+export type {
+  Problem,
+  ProblemKind,
+  Answer,
+  Fraction,
+  RoundingPlace,
+  ReadError,
+  ParsedProblem,
+  ParsedAnswer,
+} from './parse/types.js';
+export { Operation } from './parse/types.js';
+
+// Written methods (the reference workings and their variants)
+export { addColumns } from './addition/addColumns.js';
+export type { AdditionMethod, AdditionRun, CarryHabit } from './addition/addColumns.js';
+export { subtractColumns } from './subtraction/subtractColumns.js';
+export type { SubtractionMethod, SubtractionRun } from './subtraction/subtractColumns.js';
+
+// Working traces
+export type {
+  WorkingTrace,
+  WorkingTraceKind,
+  Row,
+  AdditionColumn,
+  ColumnAdditionTrace,
+  SubtractionColumn,
+  Regrouping,
+  ColumnSubtractionTrace,
+  ProductCell,
+  PartialProduct,
+  LongMultiplicationTrace,
+  DivisionStep,
+  LongDivisionTrace,
+  RoundingTrace,
+  MissingNumberTrace,
+  ScaledFraction,
+  FractionSumTrace,
+  FractionComparisonTrace,
+} from './trace/types.js';
+
+// Error rules
+export { RULES, ruleInfo } from './rules/catalog.js';
+export type { RuleInfo } from './rules/catalog.js';
+export { applyRule } from './rules/applyRule.js';
+
+// Diagnosis
+export { diagnose } from './diagnose/diagnose.js';
+export { suggestCause } from './diagnose/suggestCause.js';
+export { ENGINE_VERSION } from './diagnose/engineVersion.js';
+export type {
+  Diagnosis,
+  DiagnoseResult,
+  Unreadable,
+  RuleMatch,
+  FactError,
+  FirstWrongStep,
+  WrittenSteps,
+  SuggestedCause,
+} from './diagnose/types.js';
+
+// Checks
+export { castOutNines } from './checks/castOutNines.js';
+export { castOutElevens } from './checks/castOutElevens.js';
+export type { CheckResult, ResidueWorking } from './checks/types.js';
+
+// Practice
+export { practiceFor } from './practice/practiceFor.js';
+export type { PracticeProblem, PracticeSet } from './practice/practiceFor.js';

@@ -1,0 +1,88 @@
+import { readWhole } from './readWhole.js';
+import type { ParsedAnswer } from './types.js';
+
+const fail = (message: string, at?: number): ParsedAnswer => ({
+  ok: false,
+  error: at === undefined ? { message } : { message, at },
+});
+
+/**
+ * Reads a child's answer: a whole number (commas allowed), `q R r` (any case, spaces
+ * optional), a decimal, a fraction or mixed number, or a comparison sign.
+ *
+ * `parseAnswer('7 r 3')` → `{ ok: true, answer: { kind: 'remainder', quotient: '7', remainder: '3', text: '7 R 3' } }`;
+ * `parseAnswer('7 R')` → an error saying the remainder after “R” is missing.
+ */
+export function parseAnswer(text: string): ParsedAnswer {
+  const s = text.trim();
+  const offset = text.indexOf(s);
+  if (s === '') return fail('Type the answer the child wrote.');
+  if (s === '<' || s === '>' || s === '=')
+    return { ok: true, answer: { kind: 'comparison', sign: s, text: s } };
+
+  const rem = /^([\d,]+)\s*[rR]\s*([\d,]*)$/.exec(s);
+  if (rem !== null) {
+    if ((rem[2] as string) === '')
+      return fail('The remainder after “R” is missing.', offset + s.length);
+    const q = readWhole(rem[1] as string, offset);
+    if (!q.ok) return { ok: false, error: q.error };
+    const r = readWhole(rem[2] as string, offset + s.lastIndexOf(rem[2] as string));
+    if (!r.ok) return { ok: false, error: r.error };
+    return {
+      ok: true,
+      answer: {
+        kind: 'remainder',
+        quotient: q.value,
+        remainder: r.value,
+        text: `${q.value} R ${r.value}`,
+      },
+    };
+  }
+
+  const dec = /^([\d,]*)\.(\d+)$/.exec(s);
+  if (dec !== null) {
+    const wholeText = (dec[1] as string) === '' ? '0' : (dec[1] as string);
+    const w = readWhole(wholeText, offset);
+    if (!w.ok) return { ok: false, error: w.error };
+    const decimals = dec[2] as string;
+    return {
+      ok: true,
+      answer: { kind: 'decimal', whole: w.value, decimals, text: `${w.value}.${decimals}` },
+    };
+  }
+
+  const frac = /^(?:(\d+)\s+)?(\d+)\s*\/\s*(\d+)$/.exec(s);
+  if (frac !== null) {
+    const whole = frac[1] === undefined ? 0 : Number(frac[1]);
+    const numerator = Number(frac[2]);
+    const denominator = Number(frac[3]);
+    if (denominator === 0)
+      return fail(
+        `The fraction ${frac[2]}/${frac[3]} has 0 as its bottom number (denominator).`,
+        offset + s.lastIndexOf('/') + 1,
+      );
+    if (!Number.isSafeInteger(whole) || numerator > 999_999 || denominator > 999_999) {
+      return fail('The numbers in this fraction are too large for Workback.', offset);
+    }
+    const shown =
+      whole === 0 && frac[1] === undefined
+        ? `${numerator}/${denominator}`
+        : `${whole} ${numerator}/${denominator}`;
+    return { ok: true, answer: { kind: 'fraction', whole, numerator, denominator, text: shown } };
+  }
+
+  if (/^[\d,]+$/.test(s)) {
+    const w = readWhole(s, offset);
+    if (!w.ok) return { ok: false, error: w.error };
+    return { ok: true, answer: { kind: 'whole', value: w.value, text: w.value } };
+  }
+
+  if (/^[-−–]\s*\d/.test(s))
+    return fail('Answers below zero are not part of the problems Workback checks.', offset);
+  const bad = /[^\d\s,./rR<>=]/.exec(s);
+  if (bad !== null) return fail(`I could not read “${bad[0]}” in the answer.`, offset + bad.index);
+  return fail(
+    `I could not read the answer “${s}”; write a number, q R r, a fraction or <, >, =.`,
+    offset,
+  );
+}

@@ -1,0 +1,235 @@
+import type { Answer, Problem } from '../parse/types.js';
+import type { SubtractionColumn } from '../trace/types.js';
+import { placeColumn, placeName } from '../numbers/digits.js';
+import { describeOutcome } from '../diagnose/describeOutcome.js';
+import { digitSlipBesideRule } from '../diagnose/digitSlipBesideRule.js';
+import { findFactSlip, nearSlip, type FactCell } from '../diagnose/findFactSlip.js';
+import { firstWrongColumn } from '../diagnose/firstWrongColumn.js';
+import type { Candidate, FactError, Findings } from '../diagnose/types.js';
+import { subtractColumns, type SubtractionMethod, type SubtractionRun } from './subtractColumns.js';
+
+type SubtractionProblem = Extract<Problem, { kind: 'subtraction' }>;
+
+interface SubtractionRule {
+  readonly id: string;
+  readonly method: SubtractionMethod;
+  readonly explain: (problem: SubtractionProblem, run: SubtractionRun) => string;
+}
+
+const col = (run: SubtractionRun, k: number): SubtractionColumn =>
+  run.trace.columns[k] as SubtractionColumn;
+
+/** The first column where the given part of the method departed from the correct method. */
+function firstFired(run: SubtractionRun, part: keyof SubtractionMethod): SubtractionColumn {
+  return col(run, run.fired.find((f) => f.part === part)?.column ?? 0);
+}
+
+/** The subtraction rules of the catalog, each as a change to the column method. */
+export const SUBTRACTION_RULES: readonly SubtractionRule[] = [
+  {
+    id: 'sub.smaller-from-larger',
+    method: { compare: 'smaller-from-larger' },
+    explain: (_p, run) => {
+      const c = firstFired(run, 'compare');
+      return `In the ${placeColumn(c.index)} ${c.used} − ${c.bottom ?? 0} needs regrouping; instead ${c.bottom ?? 0} − ${c.used} = ${c.written} was written, taking the smaller digit from the larger.`;
+    },
+  },
+  {
+    id: 'sub.borrow-no-decrement',
+    method: { decrement: false },
+    explain: (_p, run) => {
+      const c = firstFired(run, 'decrement');
+      const left = run.trace.columns[c.index + 1];
+      const lender =
+        left === undefined
+          ? ''
+          : ` (it stayed ${left.marks[0] ?? 0} instead of becoming ${(left.marks[0] ?? 0) - 1})`;
+      return `In the ${placeColumn(c.index)} ten was added to make ${c.used} − ${c.bottom ?? 0} = ${c.written}, but nothing was taken from the ${placeName(c.index + 1)} digit${lender}.`;
+    },
+  },
+  {
+    id: 'sub.borrow-across-zero',
+    method: { zeros: 'skip' },
+    explain: (_p, run) => {
+      const c = firstFired(run, 'zeros');
+      const step = run.trace.regroupings.find((r) => r.to === c.index && r.kind === 'skip-zeros');
+      const from = step?.from ?? c.index + 1;
+      const lender = col(run, from);
+      return `In the ${placeColumn(c.index)} regrouping was needed and the ${placeName(c.index + 1)} digit is 0: the ten was taken straight from the ${placeName(from)} (${lender.marks[0]} became ${lender.marks[1]}), skipping the 0, which stayed 0 instead of becoming 9.`;
+    },
+  },
+  {
+    id: 'sub.borrow-from-zero',
+    method: { zeros: 'stop' },
+    explain: (_p, run) => {
+      const c = firstFired(run, 'zeros');
+      const next = run.trace.columns[c.index + 2];
+      const further =
+        next === undefined
+          ? ''
+          : `, but nothing was taken from the ${placeName(c.index + 2)} (it stayed ${next.marks[0]})`;
+      return `In the ${placeColumn(c.index)} regrouping was needed from the 0 in the ${placeName(c.index + 1)} column: the 0 was changed to 9${further}.`;
+    },
+  },
+  {
+    id: 'sub.zero-minus-n-is-n',
+    method: { zeroTop: 'n' },
+    explain: (_p, run) => {
+      const c = firstFired(run, 'zeroTop');
+      return `In the ${placeColumn(c.index)} 0 − ${c.bottom ?? 0} was written as ${c.written}, instead of regrouping to make 10 − ${c.bottom ?? 0} = ${10 - (c.bottom ?? 0)}.`;
+    },
+  },
+  {
+    id: 'sub.zero-minus-n-is-zero',
+    method: { zeroTop: 'zero' },
+    explain: (_p, run) => {
+      const c = firstFired(run, 'zeroTop');
+      return `In the ${placeColumn(c.index)} 0 − ${c.bottom ?? 0} was written as 0, instead of regrouping to make 10 − ${c.bottom ?? 0} = ${10 - (c.bottom ?? 0)}.`;
+    },
+  },
+  {
+    id: 'sub.n-minus-zero-is-zero',
+    method: { minusZero: 'zero' },
+    explain: (_p, run) => {
+      const c = firstFired(run, 'minusZero');
+      return `In the ${placeColumn(c.index)} ${c.used} − 0 was written as 0; taking away nothing leaves ${c.used}.`;
+    },
+  },
+  {
+    id: 'sub.left-aligned',
+    method: { align: 'left' },
+    explain: (p, run) =>
+      `${p.subtrahend} was lined up on the left, under the first digits of ${p.minuend} (as if it were ${p.subtrahend}${'0'.repeat(run.trace.bottom.shift)}), instead of lining up the ones digits on the right.`,
+  },
+];
+
+/** Rules that set the same part of the method cannot combine. */
+const conflict = (a: SubtractionMethod, b: SubtractionMethod): boolean =>
+  Object.keys(a).some((key) => key in b);
+
+const factSentence = (f: FactError): string =>
+  `In the ${f.where} ${f.a} − ${f.b} was taken as ${f.written} instead of ${f.expected}.`;
+
+function factError(c: SubtractionColumn, written: number): FactError | null {
+  if (c.bottom === null) return null;
+  return {
+    op: '-',
+    a: c.used,
+    b: c.bottom,
+    expected: c.written,
+    written,
+    where: placeColumn(c.index),
+  };
+}
+
+/**
+ * Diagnoses a column subtraction: the correct working, every rule (and pair) that
+ * reproduces the answer, and the first column that differs.
+ * `diagnoseSubtraction(parse('304 - 75'), whole('139')).matches[0].ids` → `['sub.borrow-across-zero']`.
+ */
+export function diagnoseSubtraction(problem: SubtractionProblem, answer: Answer): Findings {
+  const correct = subtractColumns(problem.minuend, problem.subtrahend) as SubtractionRun;
+  const expected = correct.result;
+  const base = { expected, expectedTrace: correct.trace };
+  if (answer.kind !== 'whole') {
+    return {
+      ...base,
+      correct: false,
+      matches: [],
+      firstWrongStep: null,
+      notes: [`The answer ${answer.text} is not a whole number; this difference is ${expected}.`],
+    };
+  }
+  const written = answer.value;
+  if (written === expected)
+    return { ...base, correct: true, matches: [], firstWrongStep: null, notes: [] };
+
+  const matches: Candidate[] = [];
+  const outcome = describeOutcome(problem.text, written, expected);
+  const singles: { rule: SubtractionRule; run: SubtractionRun | null }[] = [];
+  for (const rule of SUBTRACTION_RULES) {
+    const run = subtractColumns(problem.minuend, problem.subtrahend, rule.method);
+    singles.push({ rule, run });
+    if (run !== null && run.result === written) {
+      matches.push({
+        ids: [rule.id],
+        explanation: `${rule.explain(problem, run)} ${outcome}`,
+        trace: run.trace,
+        facts: [],
+      });
+    }
+  }
+
+  const cells: FactCell<SubtractionColumn>[] = [];
+  for (const c of correct.trace.columns)
+    if (c.bottom !== null) cells.push({ position: c.index, value: c.written, data: c });
+  const slip = findFactSlip(
+    BigInt(written) - BigInt(expected),
+    cells,
+    (cell, w) => w <= 9 && nearSlip(cell.value, w),
+  );
+  if (slip !== null) {
+    const fact = factError(slip.cell.data, slip.written);
+    if (fact !== null) {
+      matches.push({
+        ids: ['sub.fact'],
+        explanation: `${factSentence(fact)} The rest of the working is right, which gives ${written}.`,
+        trace: null,
+        facts: [fact],
+      });
+    }
+  }
+
+  for (let i = 0; i < singles.length; i += 1) {
+    const a = singles[i] as (typeof singles)[number];
+    if (a.run === null || a.run.result === written) continue;
+    for (let j = i + 1; j < singles.length; j += 1) {
+      const b = singles[j] as (typeof singles)[number];
+      if (b.run === null || b.run.result === written || conflict(a.rule.method, b.rule.method))
+        continue;
+      const run = subtractColumns(problem.minuend, problem.subtrahend, {
+        ...a.rule.method,
+        ...b.rule.method,
+      });
+      if (
+        run === null ||
+        run.result !== written ||
+        run.result === a.run.result ||
+        run.result === b.run.result
+      )
+        continue;
+      matches.push({
+        ids: [a.rule.id, b.rule.id],
+        explanation: `Two things happened together. ${a.rule.explain(problem, run)} ${b.rule.explain(problem, run)} ${outcome}`,
+        trace: run.trace,
+        facts: [],
+      });
+    }
+  }
+  for (const { rule, run } of singles) {
+    if (run === null || run.result === expected || run.result === written) continue;
+    const fired = run.fired.map((f) => f.column);
+    const beside = digitSlipBesideRule(
+      run.result,
+      written,
+      fired,
+      run.trace.columns.map(() => 1),
+    );
+    if (beside === null) continue;
+    const fact = factError(col(run, beside.column), beside.childDigit);
+    if (fact === null || !nearSlip(fact.expected, fact.written)) continue;
+    matches.push({
+      ids: [rule.id, 'sub.fact'],
+      explanation: `Two things happened together. ${rule.explain(problem, run)} ${factSentence(fact)} ${outcome}`,
+      trace: run.trace,
+      facts: [fact],
+    });
+  }
+  return {
+    ...base,
+    correct: false,
+    matches,
+    firstWrongStep: firstWrongColumn(expected, written),
+    notes: [],
+  };
+}
