@@ -10,6 +10,8 @@ export default defineConfig({
     name: 'web',
     include: ['src/**/*.test.{ts,tsx}'],
     environment: 'happy-dom',
+    // A laptop-sized window; phone tests narrow it themselves.
+    environmentOptions: { happyDOM: { width: 1280, height: 900 } },
     setupFiles: ['./src/testing/setup.ts'],
     css: false,
     restoreMocks: true,

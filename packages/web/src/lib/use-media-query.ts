@@ -1,6 +1,6 @@
 import { useSyncExternalStore } from 'react';
 
-/** `useMediaQuery('(max-width: 640px)')` → `true` on a phone. */
+/** `useMediaQuery('(max-width: 640px)')` → `true` on a phone; follows the window as it resizes. */
 export function useMediaQuery(query: string): boolean {
   return useSyncExternalStore(
     (onChange) => {
@@ -12,7 +12,3 @@ export function useMediaQuery(query: string): boolean {
     () => false,
   );
 }
-
-export const PHONE_QUERY = '(max-width: 640px)';
-
-export const useIsPhone = () => useMediaQuery(PHONE_QUERY);

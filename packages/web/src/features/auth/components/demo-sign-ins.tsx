@@ -32,7 +32,6 @@ export function DemoSignIns({ onPick }: { onPick: (email: string, password: stri
               alignText="start"
               fill
               onClick={() => onPick(account.email, DEMO_PASSWORD)}
-              aria-label={`Use ${account.email}`}
             >
               <span className="wb-demo-email">{account.email}</span>
               <span className="wb-demo-who">{account.who}</span>

@@ -2,7 +2,6 @@ import { screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { describe, expect, it, vi } from 'vitest';
 
-import { PHONE_QUERY } from '../../../lib/use-media-query';
 import {
   adminMe,
   CSRF,
@@ -14,11 +13,12 @@ import {
 } from '../../../testing/mock-api';
 import { renderApp } from '../../../testing/render';
 
+/** A 390 px screen: every max-width query matches, no min-width one does. */
 function asPhone() {
   vi.spyOn(window, 'matchMedia').mockImplementation(
     (query: string) =>
       ({
-        matches: query === PHONE_QUERY,
+        matches: query.includes('max-width'),
         media: query,
         addEventListener: () => undefined,
         removeEventListener: () => undefined,

@@ -3,20 +3,20 @@ import { PeopleIcon, PlusIcon } from '@blueprintjs/icons';
 import { useMemo, useState } from 'react';
 
 import { EmptyState, ErrorState, LoadingState } from '../../../components/states';
-import { useIsPhone } from '../../../lib/use-media-query';
+import { useMediaQuery } from '../../../lib/use-media-query';
 import { useStudents } from '../api/get-students';
 import type { Student } from '../types';
 import { DeleteStudentAlert } from './delete-student-alert';
 import { StudentCards } from './student-cards';
 import { StudentDialog } from './student-dialog';
-import { StudentsTable } from './students-table';
+import { StudentsTable, TABLE_FITS_QUERY } from './students-table';
 
 type Editing = { open: boolean; student: Student | null };
 
 /** The Students page body: the list, and for owners and parents the add/edit/delete actions. */
 export function StudentsList({ canEdit }: { canEdit: boolean }) {
   const students = useStudents();
-  const isPhone = useIsPhone();
+  const tableFits = useMediaQuery(TABLE_FITS_QUERY);
   const [editing, setEditing] = useState<Editing>({ open: false, student: null });
   const [deleting, setDeleting] = useState<Student | null>(null);
 
@@ -65,7 +65,7 @@ export function StudentsList({ canEdit }: { canEdit: boolean }) {
         title="No students are shared with you yet. Ask the family to give you access."
       />
     );
-  } else if (isPhone) {
+  } else if (!tableFits) {
     body = <StudentCards students={students.data.items} actions={actions} />;
   } else {
     body = <StudentsTable students={students.data.items} actions={actions} />;

@@ -4,6 +4,11 @@ import { formatAdded, gradeLabel, type Student } from '../types';
 import { StudentActions, type StudentActionHandlers } from './student-actions';
 
 const ROW_HEIGHT = 44;
+const HEADER_HEIGHT = 30;
+const WIDTHS = { name: 240, grade: 150, added: 140, actions: 190 };
+
+/** Below this width the table would scroll sideways, so the list shows cards instead. */
+export const TABLE_FITS_QUERY = '(min-width: 1041px)';
 
 /** The students of the household as a table (wide screens). */
 export function StudentsTable({
@@ -47,17 +52,21 @@ export function StudentsTable({
       />,
     );
   }
+  const columnWidths = actions
+    ? [WIDTHS.name, WIDTHS.grade, WIDTHS.added, WIDTHS.actions]
+    : [WIDTHS.name, WIDTHS.grade, WIDTHS.added];
+  const width = columnWidths.reduce((sum, w) => sum + w, 0);
   return (
     <div
       className="wb-table"
-      style={{ height: (students.length + 1) * ROW_HEIGHT + 2 }}
+      style={{ height: HEADER_HEIGHT + students.length * ROW_HEIGHT + 2, width: width + 2 }}
       aria-label="Students"
       role="region"
     >
       <Table2
         numRows={students.length}
         defaultRowHeight={ROW_HEIGHT}
-        columnWidths={actions ? [260, 160, 150, 200] : [300, 180, 170]}
+        columnWidths={columnWidths}
         enableRowHeader={false}
         enableFocusedCell={false}
         enableColumnResizing={false}
