@@ -74,7 +74,6 @@ export function configureApp(app: NestExpressApplication, config: AppConfig): vo
   app.use(passport.session());
 
   app.useGlobalPipes(createValidationPipe());
-  app.enableShutdownHooks();
 
   const document = SwaggerModule.createDocument(
     app,

@@ -1,14 +1,36 @@
 import { createApp } from './app.factory.js';
 
+const SHUTDOWN_TIMEOUT_MS = 10_000;
+
 async function bootstrap(): Promise<void> {
   const { app, config } = await createApp();
   await app.listen(config.port, config.host);
-  const url = await app.getUrl();
-  const local = url
-    .replace('[::1]', 'localhost')
-    .replace('0.0.0.0', 'localhost')
-    .replace('127.0.0.1', 'localhost');
-  console.log(`\nWorkback is running at ${local}`);
+
+  // SIGTERM/SIGINT: stop accepting, let in-flight requests finish, close the
+  // databases and the fake mail server (Nest's shutdown hooks), then exit 0.
+  let stopping = false;
+  const stop = (signal: string) => {
+    if (stopping) return;
+    stopping = true;
+    console.log(`${signal} received: finishing requests and closing`);
+    const force = setTimeout(() => {
+      console.error('Shutdown took too long; exiting anyway');
+      process.exit(1);
+    }, SHUTDOWN_TIMEOUT_MS);
+    force.unref();
+    app.close().then(
+      () => process.exit(0),
+      (err: unknown) => {
+        console.error(err);
+        process.exit(1);
+      },
+    );
+  };
+  process.on('SIGTERM', () => stop('SIGTERM'));
+  process.on('SIGINT', () => stop('SIGINT'));
+
+  const url = (await app.getUrl()).replace(/\[::1?\]|0\.0\.0\.0|127\.0\.0\.1/, 'localhost');
+  console.log(`\nWorkback is running at ${url}`);
   if (config.seedDemo) {
     console.log('Demo sign-ins (password workback-demo):');
     console.log('  parent@workback.test    owner of the demo household');

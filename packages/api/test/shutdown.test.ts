@@ -1,0 +1,29 @@
+import { existsSync, mkdtempSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import path from 'node:path';
+import { afterAll, describe, expect, it } from 'vitest';
+import { startServerProcess } from './support/server-process.js';
+
+const dataDir = mkdtempSync(path.join(tmpdir(), 'workback-shutdown-'));
+afterAll(() => rmSync(dataDir, { recursive: true, force: true }));
+
+describe('graceful shutdown', () => {
+  it('finishes in-flight requests on SIGTERM, closes the databases and exits 0', async () => {
+    const server = await startServerProcess({ DATA_DIR: dataDir, SEED_DEMO: 'true' });
+    expect(existsSync(path.join(dataDir, 'workback.sqlite-wal'))).toBe(true);
+    const inFlight = Array.from({ length: 20 }, () =>
+      fetch(`${server.url}/api/health`).then((r) => r.status),
+    );
+    await new Promise((r) => setTimeout(r, 5));
+    server.child.kill('SIGTERM');
+    const statuses = await Promise.allSettled(inFlight);
+    const exit = await server.exited;
+    expect(exit, server.output()).toEqual({ code: 0, signal: null });
+    // Every request either completed with 200 or was never accepted; none was cut off mid-way.
+    for (const s of statuses) if (s.status === 'fulfilled') expect(s.value).toBe(200);
+    expect(statuses.some((s) => s.status === 'fulfilled')).toBe(true);
+    // The last connection to close checkpoints and removes the WAL: the databases were closed.
+    expect(existsSync(path.join(dataDir, 'workback.sqlite-wal'))).toBe(false);
+    expect(existsSync(path.join(dataDir, 'sessions.sqlite-wal'))).toBe(false);
+  });
+});

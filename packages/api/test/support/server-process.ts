@@ -1,0 +1,43 @@
+import { type ChildProcess, spawn } from 'node:child_process';
+import { fileURLToPath } from 'node:url';
+
+const apiRoot = fileURLToPath(new URL('../..', import.meta.url));
+
+export interface ServerProcess {
+  child: ChildProcess;
+  url: string;
+  output: () => string;
+  exited: Promise<{ code: number | null; signal: NodeJS.Signals | null }>;
+}
+
+/** The real server (src/main.ts through swc-node) as its own process, on a free port. */
+export async function startServerProcess(env: Record<string, string>): Promise<ServerProcess> {
+  const child = spawn(
+    process.execPath,
+    ['--conditions=workback-source', '--import', '@swc-node/register/esm-register', 'src/main.ts'],
+    {
+      cwd: apiRoot,
+      env: { ...process.env, NODE_ENV: 'test', PORT: '0', HOST: '127.0.0.1', ...env },
+      stdio: ['ignore', 'pipe', 'pipe'],
+    },
+  );
+  let out = '';
+  child.stdout!.on('data', (d: Buffer) => (out += d.toString()));
+  child.stderr!.on('data', (d: Buffer) => (out += d.toString()));
+  const exited = new Promise<{ code: number | null; signal: NodeJS.Signals | null }>((resolve) =>
+    child.on('exit', (code, signal) => resolve({ code, signal })),
+  );
+  const url = await new Promise<string>((resolve, reject) => {
+    const timer = setTimeout(() => reject(new Error(`server did not start:\n${out}`)), 30_000);
+    const check = () => {
+      const match = /running at (http:\/\/\S+)/.exec(out);
+      if (match) {
+        clearTimeout(timer);
+        resolve(match[1]!.replace('localhost', '127.0.0.1'));
+      }
+    };
+    child.stdout!.on('data', check);
+    void exited.then(() => reject(new Error(`server exited early:\n${out}`)));
+  });
+  return { child, url, output: () => out, exited };
+}
