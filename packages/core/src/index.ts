@@ -24,6 +24,22 @@ export { addColumns } from './addition/addColumns.js';
 export type { AdditionMethod, AdditionRun, CarryHabit } from './addition/addColumns.js';
 export { subtractColumns } from './subtraction/subtractColumns.js';
 export type { SubtractionMethod, SubtractionRun } from './subtraction/subtractColumns.js';
+export { multiplyLong } from './multiplication/multiplyLong.js';
+export type {
+  MultiplicationMethod,
+  MultiplicationRun,
+  ProductCarry,
+} from './multiplication/multiplyLong.js';
+export { multiplyWithZerosSetAside } from './multiplication/multiplyWithZerosSetAside.js';
+export { divideLong } from './division/divideLong.js';
+export type { DivisionMethod, DivisionRun } from './division/divideLong.js';
+export { divideDigitByDigit } from './division/divideDigitByDigit.js';
+export { roundToPlace } from './rounding/roundToPlace.js';
+export type { RoundingHabit } from './rounding/roundToPlace.js';
+export { solveMissing } from './missing/solveMissing.js';
+export { addFractions } from './fractions/addFractions.js';
+export type { FractionHabit } from './fractions/addFractions.js';
+export { compareFractions } from './fractions/compareFractions.js';
 
 // Working traces
 export type {

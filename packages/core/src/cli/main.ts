@@ -154,7 +154,7 @@ export function main(argv: readonly string[], out: Output, err: Output): number 
             `Practice for ${set.ruleId}:`,
             ...set.problems.map(
               (p, i) =>
-                `${i + 1}. ${p.problem}    (answer ${p.answer}; the rule would give ${p.ruleAnswer})`,
+                `${i + 1}. ${p.problem}    (answer ${p.answer}${p.ruleAnswer === null ? '' : `; the rule would give ${p.ruleAnswer}`})`,
             ),
             '',
           ].join('\n'),

@@ -5,6 +5,11 @@ import { parseAnswer } from '../parse/parseAnswer.js';
 import { parseProblem } from '../parse/parseProblem.js';
 import type { Answer, Problem } from '../parse/types.js';
 import { diagnoseSubtraction } from '../subtraction/diagnoseSubtraction.js';
+import { diagnoseMultiplication } from '../multiplication/diagnoseMultiplication.js';
+import { diagnoseDivision } from '../division/diagnoseDivision.js';
+import { diagnoseRounding } from '../rounding/diagnoseRounding.js';
+import { diagnoseMissing } from '../missing/diagnoseMissing.js';
+import { diagnoseFractions } from '../fractions/diagnoseFractions.js';
 import { ENGINE_VERSION } from './engineVersion.js';
 import { rankMatches } from './rankMatches.js';
 import { suggestCause } from './suggestCause.js';
@@ -61,14 +66,23 @@ export function diagnose(
   return { ...partial, suggestedCause: suggestCause(partial) };
 }
 
-function findingsFor(problem: Problem, answer: Answer, _steps: WrittenSteps | undefined): Findings {
+function findingsFor(problem: Problem, answer: Answer, steps: WrittenSteps | undefined): Findings {
   switch (problem.kind) {
     case 'addition':
       return diagnoseAddition(problem, answer);
     case 'subtraction':
       return diagnoseSubtraction(problem, answer);
-    default:
-      throw new Error(`diagnose: ${problem.kind} is not handled yet`);
+    case 'multiplication':
+      return diagnoseMultiplication(problem, answer, steps);
+    case 'division':
+      return diagnoseDivision(problem, answer, steps);
+    case 'rounding':
+      return diagnoseRounding(problem, answer);
+    case 'missing':
+      return diagnoseMissing(problem, answer);
+    case 'fraction-sum':
+    case 'fraction-comparison':
+      return diagnoseFractions(problem, answer);
   }
 }
 

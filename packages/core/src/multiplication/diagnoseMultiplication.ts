@@ -1,0 +1,348 @@
+import { describeOutcome } from '../diagnose/describeOutcome.js';
+import { digitSlipBesideRule } from '../diagnose/digitSlipBesideRule.js';
+import { findFactSlip, type FactCell } from '../diagnose/findFactSlip.js';
+import { firstWrongColumn } from '../diagnose/firstWrongColumn.js';
+import type {
+  Candidate,
+  FactError,
+  Findings,
+  FirstWrongStep,
+  WrittenSteps,
+} from '../diagnose/types.js';
+import { placeName, stripLeadingZeros, trailingZeros } from '../numbers/digits.js';
+import type { Answer, Problem } from '../parse/types.js';
+import type { LongMultiplicationTrace, PartialProduct, ProductCell } from '../trace/types.js';
+import { multiplyLong, type MultiplicationMethod, type MultiplicationRun } from './multiplyLong.js';
+import { multiplyWithZerosSetAside } from './multiplyWithZerosSetAside.js';
+
+type MultiplicationProblem = Extract<Problem, { kind: 'multiplication' }>;
+
+/**
+ * The written layout: the first factor on top, unless it is shorter than the second, when
+ * the longer number goes on top (common practice, no source).
+ * `layoutOf(['4', '27'])` → `{ top: '27', bottom: '4' }`.
+ */
+export function layoutOf(factors: readonly [string, string]): { top: string; bottom: string } {
+  const [a, b] = factors;
+  return a.length < b.length ? { top: b, bottom: a } : { top: a, bottom: b };
+}
+
+interface MethodRule {
+  readonly id: string;
+  readonly method: MultiplicationMethod;
+  readonly explain: (run: MultiplicationRun) => string;
+}
+
+const firstCell = (
+  run: MultiplicationRun,
+  part: keyof MultiplicationMethod,
+): { p: PartialProduct; c: ProductCell } => {
+  const f = run.fired.find((x) => x.part === part) ?? { partial: 0, column: 0 };
+  const p = run.trace.partials[f.partial] as PartialProduct;
+  return { p, c: p.cells[f.column] as ProductCell };
+};
+
+const where = (c: ProductCell): string => `the ${placeName(c.index)} digit`;
+
+/** The multiplication rules that change the long-multiplication method itself. */
+export const MULTIPLICATION_METHOD_RULES: readonly MethodRule[] = [
+  {
+    id: 'mul.carry-before-multiplying',
+    method: { carry: 'before' },
+    explain: (run) => {
+      const { c } = firstCell(run, 'carry');
+      const t = c.topDigit - c.carryIn;
+      return `At ${where(c)} the carried ${c.carryIn} was added to the ${t} before multiplying, making (${t} + ${c.carryIn}) × ${c.multiplierDigit} = ${c.product}, instead of ${t} × ${c.multiplierDigit} = ${t * c.multiplierDigit} and then adding the ${c.carryIn}.`;
+    },
+  },
+  {
+    id: 'mul.no-carry',
+    method: { carry: 'drop' },
+    explain: (run) => {
+      const { c } = firstCell(run, 'carry');
+      return `At ${where(c)} ${c.topDigit} × ${c.multiplierDigit} = ${c.product}: the ${c.product % 10} was written, but the ${Math.floor(c.product / 10)} was not carried to the next digit.`;
+    },
+  },
+  {
+    id: 'mul.carry-written',
+    method: { carry: 'write' },
+    explain: (run) => {
+      const { c } = firstCell(run, 'carry');
+      return `At ${where(c)} the whole product ${c.topDigit} × ${c.multiplierDigit} = ${c.product} was written, side by side with the other products, instead of writing ${c.product % 10} and carrying ${Math.floor(c.product / 10)}.`;
+    },
+  },
+  {
+    id: 'mul.carry-reversed',
+    method: { carry: 'reverse' },
+    explain: (run) => {
+      const { c } = firstCell(run, 'carry');
+      const total = c.product + c.carryIn;
+      return `At ${where(c)} ${c.topDigit} × ${c.multiplierDigit}${c.carryIn > 0 ? ` + ${c.carryIn}` : ''} = ${total}: the ${Math.floor(total / 10)} was written and the ${total % 10} carried, the other way round from writing ${total % 10} and carrying ${Math.floor(total / 10)}.`;
+    },
+  },
+  {
+    id: 'mul.zero-times-n-is-n',
+    method: { zeroDigit: 'n' },
+    explain: (run) => {
+      const { c } = firstCell(run, 'zeroDigit');
+      const n = c.topDigit === 0 ? c.multiplierDigit : c.topDigit;
+      return `At ${where(c)} ${c.topDigit} × ${c.multiplierDigit} was taken as ${n}; any number times 0 is 0.`;
+    },
+  },
+  {
+    id: 'mul.no-placeholder',
+    method: { placeholder: 'none' },
+    explain: (run) => {
+      const f = run.fired.find((x) => x.part === 'placeholder');
+      const p = run.trace.partials[f?.partial ?? 1] as PartialProduct;
+      return `The partial product ${p.digits} (for the ${placeName(p.multiplierIndex)} digit ${p.multiplierDigit}) was not moved ${p.multiplierIndex === 1 ? 'one place' : `${p.multiplierIndex} places`} to the left, so it was added as ${p.digits} instead of ${p.digits}${'0'.repeat(p.multiplierIndex)}.`;
+    },
+  },
+];
+
+const conflict = (a: MultiplicationMethod, b: MultiplicationMethod): boolean =>
+  Object.keys(a).some((key) => key in b);
+
+/**
+ * A plausible wrong multiplication fact: off by one or two (7 × 8 → 54), or the product of
+ * a neighbouring fact (7 × 8 → 48 or 63) (common practice, no source).
+ */
+function plausibleProduct(t: number, d: number, written: number): boolean {
+  const right = t * d;
+  if (written === right || written < 0 || written > 81) return false;
+  if (Math.abs(written - right) <= 2) return true;
+  return (
+    written === t * (d + 1) ||
+    written === t * (d - 1) ||
+    written === (t + 1) * d ||
+    written === (t - 1) * d
+  );
+}
+
+const factSentence = (f: FactError): string =>
+  `${f.a} × ${f.b} was taken as ${f.written} instead of ${f.expected} (${f.where}).`;
+
+const sameNumber = (a: string, b: string): boolean => stripLeadingZeros(a.replace(/,/g, '')) === b;
+
+/** Whether the child's written partial products are those of a run. */
+function partialsAgree(trace: LongMultiplicationTrace, written: readonly string[]): boolean {
+  if (written.length !== trace.partials.length) return false;
+  return trace.partials.every((p, i) => {
+    const w = written[i] as string;
+    return sameNumber(w, p.value) || sameNumber(w, p.digits);
+  });
+}
+
+/**
+ * Diagnoses a long multiplication: the correct working, every rule (and pair) that
+ * reproduces the answer (and the written partial products, when given), and the first
+ * partial product or column that differs.
+ * `diagnoseMultiplication(parse('27 x 4'), whole('168')).matches[0].ids` → `['mul.carry-before-multiplying']`.
+ */
+export function diagnoseMultiplication(
+  problem: MultiplicationProblem,
+  answer: Answer,
+  steps: WrittenSteps | undefined,
+): Findings {
+  const { top, bottom } = layoutOf(problem.factors);
+  const correct = multiplyLong(top, bottom);
+  const expected = correct.result;
+  const base = { expected, expectedTrace: correct.trace };
+  if (answer.kind !== 'whole') {
+    return {
+      ...base,
+      correct: false,
+      matches: [],
+      firstWrongStep: null,
+      notes: [`The answer ${answer.text} is not a whole number; this product is ${expected}.`],
+    };
+  }
+  const written = answer.value;
+  const partials = steps?.partials;
+  const notes: string[] = [];
+  if (partials !== undefined && partials.length !== correct.trace.partials.length) {
+    notes.push(
+      `The written steps have ${partials.length} partial products; this multiplier has ${correct.trace.partials.length} digits, so one partial product each is expected.`,
+    );
+  }
+  const stepsFit = (trace: LongMultiplicationTrace): boolean =>
+    partials === undefined || partialsAgree(trace, partials);
+  const firstWrong = firstWrongStepOf(correct.trace, partials, expected, written);
+  if (written === expected)
+    return { ...base, correct: true, matches: [], firstWrongStep: null, notes };
+
+  const outcome = describeOutcome(problem.text, written, expected);
+  const matches: Candidate[] = [];
+  const singles = MULTIPLICATION_METHOD_RULES.map((rule) => ({
+    rule,
+    run: multiplyLong(top, bottom, rule.method),
+  }));
+  for (const { rule, run } of singles) {
+    if (run.result === written && stepsFit(run.trace)) {
+      matches.push({
+        ids: [rule.id],
+        explanation: `${rule.explain(run)} ${outcome}`,
+        trace: run.trace,
+        facts: [],
+      });
+    }
+  }
+  const zt = trailingZeros(top);
+  const zb = trailingZeros(bottom);
+  if (zt + zb > 0) {
+    for (const appended of new Set([zt, zb])) {
+      if (appended === zt + zb) continue;
+      const run = multiplyWithZerosSetAside(top, bottom, appended);
+      if (
+        run !== null &&
+        run.result === written &&
+        run.result !== expected &&
+        stepsFit(run.trace)
+      ) {
+        matches.push({
+          ids: ['mul.zeros-dropped'],
+          explanation: `The zeros were set aside and ${top.slice(0, top.length - zt)} × ${bottom.slice(0, bottom.length - zb)} worked out; then ${appended === 0 ? 'no zeros were' : appended === 1 ? 'only 1 zero was' : `only ${appended} zeros were`} put back, though ${top} and ${bottom} end in ${zt + zb} zeros between them. ${outcome}`,
+          trace: run.trace,
+          facts: [],
+        });
+      }
+    }
+    const extra = multiplyWithZerosSetAside(top, bottom, zt + zb + 1);
+    if (extra !== null && extra.result === written && stepsFit(extra.trace)) {
+      matches.push({
+        ids: ['mul.zeros-extra'],
+        explanation: `The zeros were set aside and the rest multiplied; then ${zt + zb + 1} zeros were put back, one more than the ${zt + zb} that ${top} and ${bottom} end in. ${outcome}`,
+        trace: extra.trace,
+        facts: [],
+      });
+    }
+  }
+  if (
+    partials !== undefined &&
+    correct.trace.partials.length > 1 &&
+    partialsAgree(correct.trace, partials)
+  ) {
+    const sumSlip = firstWrongColumn(expected, written);
+    matches.push({
+      ids: ['mul.partials-added-wrong'],
+      explanation: `Every partial product is right (${correct.trace.partials.map((p) => p.value).join(' and ')}), but adding them gave ${written} instead of ${expected}${sumSlip === null ? '' : `; the ${sumSlip.place} column of the sum is where it first differs`}.`,
+      trace: null,
+      facts: [],
+    });
+  }
+
+  const cells: FactCell<{ p: PartialProduct; c: ProductCell }>[] = [];
+  for (const p of correct.trace.partials) {
+    for (const c of p.cells)
+      cells.push({ position: c.index + p.multiplierIndex, value: c.product, data: { p, c } });
+  }
+  const slip = findFactSlip(BigInt(written) - BigInt(expected), cells, (cell, w) =>
+    plausibleProduct(cell.data.c.topDigit, cell.data.c.multiplierDigit, w),
+  );
+  if (slip !== null) {
+    const { p, c } = slip.cell.data;
+    const fact: FactError = {
+      op: 'x',
+      a: c.topDigit,
+      b: c.multiplierDigit,
+      expected: c.product,
+      written: slip.written,
+      where:
+        top.length === 1 && bottom.length === 1
+          ? 'the basic fact'
+          : bottom.length === 1
+            ? `${placeName(c.index)} digit of ${top}`
+            : `${placeName(c.index)} digit of ${top} times the ${placeName(p.multiplierIndex)} digit of ${bottom}`,
+    };
+    const slipped =
+      partials === undefined
+        ? true
+        : partials.some(
+            (w, i) => !sameNumber(w, (correct.trace.partials[i] as PartialProduct).value),
+          );
+    if (slipped)
+      matches.push({
+        ids: ['mul.fact'],
+        explanation: `${factSentence(fact)} The rest of the working is right, which gives ${written}.`,
+        trace: null,
+        facts: [fact],
+      });
+  }
+
+  for (let i = 0; i < singles.length; i += 1) {
+    const a = singles[i] as (typeof singles)[number];
+    if (a.run.result === written || a.run.result === expected) continue;
+    for (let j = i + 1; j < singles.length; j += 1) {
+      const b = singles[j] as (typeof singles)[number];
+      if (b.run.result === written || conflict(a.rule.method, b.rule.method)) continue;
+      const run = multiplyLong(top, bottom, { ...a.rule.method, ...b.rule.method });
+      if (
+        run.result !== written ||
+        run.result === a.run.result ||
+        run.result === b.run.result ||
+        !stepsFit(run.trace)
+      )
+        continue;
+      matches.push({
+        ids: [a.rule.id, b.rule.id],
+        explanation: `Two things happened together. ${a.rule.explain(run)} ${b.rule.explain(run)} ${outcome}`,
+        trace: run.trace,
+        facts: [],
+      });
+    }
+  }
+  if (correct.trace.partials.length === 1 && partials === undefined) {
+    for (const { rule, run } of singles) {
+      if (run.result === expected || run.result === written) continue;
+      const cellsRun = (run.trace.partials[0] as PartialProduct).cells;
+      const beside = digitSlipBesideRule(
+        run.result,
+        written,
+        run.fired.map((f) => f.column),
+        cellsRun.map((c) => c.written.length),
+      );
+      if (beside === null) continue;
+      const c = cellsRun[beside.column] as ProductCell;
+      const w = c.product + beside.childDigit - beside.ruleDigit;
+      if (!plausibleProduct(c.topDigit, c.multiplierDigit, w)) continue;
+      const fact: FactError = {
+        op: 'x',
+        a: c.topDigit,
+        b: c.multiplierDigit,
+        expected: c.product,
+        written: w,
+        where: `${placeName(c.index)} digit`,
+      };
+      matches.push({
+        ids: [rule.id, 'mul.fact'],
+        explanation: `Two things happened together. ${rule.explain(run)} ${factSentence(fact)} ${outcome}`,
+        trace: run.trace,
+        facts: [fact],
+      });
+    }
+  }
+  return { ...base, correct: false, matches, firstWrongStep: firstWrong, notes };
+}
+
+function firstWrongStepOf(
+  trace: LongMultiplicationTrace,
+  partials: readonly string[] | undefined,
+  expected: string,
+  written: string,
+): FirstWrongStep | null {
+  if (partials !== undefined) {
+    for (let i = 0; i < trace.partials.length; i += 1) {
+      const p = trace.partials[i] as PartialProduct;
+      const w = partials[i];
+      if (w !== undefined && (sameNumber(w, p.value) || sameNumber(w, p.digits))) continue;
+      const label = `partial product ${i + 1}`;
+      return {
+        place: label,
+        expected: p.value,
+        written: w === undefined ? '' : stripLeadingZeros(w.replace(/,/g, '')),
+        note: `${trace.top} × ${p.multiplierDigit} (the ${placeName(i)} digit of ${trace.bottom}) gives ${p.digits}${p.shift > 0 ? `, written ${p.shift === 1 ? 'one place' : `${p.shift} places`} to the left as ${p.value}` : ''}; the written step has ${w ?? 'nothing'}.`,
+      };
+    }
+  }
+  return firstWrongColumn(expected, written);
+}
