@@ -35,17 +35,16 @@ export function configureApp(app: NestExpressApplication, config: AppConfig): vo
 
   const hsts = config.env === 'production' ? undefined : false;
   // Swagger UI ships inline styles; only its own pages get them.
-  app.use(
-    '/api/docs',
-    helmet({
-      strictTransportSecurity: hsts,
-      contentSecurityPolicy: {
-        directives: { ...strictCsp, styleSrc: ["'self'", "'unsafe-inline'"] },
-      },
-    }),
-  );
-  app.use(
-    helmet({ strictTransportSecurity: hsts, contentSecurityPolicy: { directives: strictCsp } }),
+  const base = { strictTransportSecurity: hsts, xFrameOptions: { action: 'deny' as const } };
+  const docsHeaders = helmet({
+    ...base,
+    contentSecurityPolicy: {
+      directives: { ...strictCsp, styleSrc: ["'self'", "'unsafe-inline'"] },
+    },
+  });
+  const appHeaders = helmet({ ...base, contentSecurityPolicy: { directives: strictCsp } });
+  app.use((req: Request, res: Response, next: NextFunction) =>
+    (req.path.startsWith('/api/docs') ? docsHeaders : appHeaders)(req, res, next),
   );
   app.use('/api', (_req: Request, res: Response, next: NextFunction) => {
     res.setHeader('Cache-Control', 'no-store');
