@@ -55,12 +55,7 @@ function isRecord(value: unknown): value is Record<string, unknown> {
 }
 
 async function toApiError(response: Response): Promise<ApiError> {
-  let body: unknown = null;
-  try {
-    body = await response.json();
-  } catch {
-    body = null;
-  }
+  const body: unknown = await response.json().catch(() => null);
   const fields: FieldErrors = {};
   let message = response.statusText || `Request failed (${response.status})`;
   if (isRecord(body)) {

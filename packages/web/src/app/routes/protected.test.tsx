@@ -93,4 +93,26 @@ describe('signed-in pages', () => {
     expect(requests.find((r) => r.path === '/auth/logout')?.headers['x-csrf-token']).toBe('csrf-1');
     expect(queryClient.getQueryData(['students', 'list'])).toBeUndefined();
   });
+
+  it('explain a mistyped address instead of showing a blank page', async () => {
+    mockApi({ 'GET /auth/me': json(200, ownerMe) });
+    renderApp('/no-such-page');
+    expect(
+      await screen.findByRole('heading', { name: 'This page is not here' }),
+    ).toBeInTheDocument();
+    expect(screen.getByRole('link', { name: 'Go to your students' })).toHaveAttribute(
+      'href',
+      '/students',
+    );
+  });
+
+  it('offer a reload when the server cannot be reached at all', async () => {
+    const { fetchMock } = mockApi({});
+    fetchMock.mockRejectedValue(new TypeError('Failed to fetch'));
+    renderApp('/students');
+    expect(
+      await screen.findByRole('heading', { name: 'This page did not load' }),
+    ).toBeInTheDocument();
+    expect(screen.getByRole('button', { name: 'Reload' })).toBeInTheDocument();
+  });
 });

@@ -22,8 +22,11 @@ export function SelectField<T extends FieldValues>({
   idPrefix,
   ...controller
 }: SelectFieldProps<T>) {
-  const { field, fieldState } = useController(controller);
-  const { id, describedBy } = fieldIds(field.name, idPrefix);
+  const {
+    field: { ref, name, value, onChange, onBlur, disabled },
+    fieldState,
+  } = useController(controller);
+  const { id, describedBy } = fieldIds(name, idPrefix);
   const error = fieldState.error?.message;
   const below = error ?? help;
   return (
@@ -35,12 +38,12 @@ export function SelectField<T extends FieldValues>({
     >
       <HTMLSelect
         id={id}
-        ref={field.ref}
-        name={field.name}
-        value={field.value as string}
-        onChange={(event) => field.onChange(event.currentTarget.value)}
-        onBlur={field.onBlur}
-        disabled={field.disabled}
+        ref={ref}
+        name={name}
+        value={value as string}
+        onChange={(event) => onChange(event.currentTarget.value)}
+        onBlur={onBlur}
+        disabled={disabled}
         fill
         large
         aria-invalid={error ? true : undefined}

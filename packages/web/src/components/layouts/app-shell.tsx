@@ -43,7 +43,7 @@ export function SignOutButton({ className }: { className?: string }) {
 /** The signed-in frame: side navigation on wide screens, a bottom bar on phones. */
 export function AppShell({ children }: { children: ReactNode }) {
   const me = useSignedIn();
-  const householdName = me.household?.name ?? 'Workback site';
+  const householdName = me.household?.name ?? roleLabel(me);
   return (
     <div className="wb-shell">
       <a className="wb-skip" href="#main">
