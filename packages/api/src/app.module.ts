@@ -11,8 +11,12 @@ import { AccessGuard } from './common/guards/access.guard.js';
 import { CsrfGuard } from './common/guards/csrf.guard.js';
 import { appConfig, type AppConfig } from './config/app.config.js';
 import { DatabaseModule } from './database/database.module.js';
+import { DiagnoseModule } from './diagnose/diagnose.module.js';
 import { HealthModule } from './health/health.module.js';
 import { HouseholdsModule } from './households/households.module.js';
+import { MissesModule } from './misses/misses.module.js';
+import { NotesModule } from './notes/notes.module.js';
+import { PhotosModule } from './photos/photos.module.js';
 import { SeedModule } from './seed/seed.module.js';
 import { SessionsModule } from './sessions/sessions.module.js';
 import { StudentsModule } from './students/students.module.js';
@@ -67,6 +71,10 @@ const emailOf = (req: Request) =>
     HouseholdsModule,
     AuthModule,
     StudentsModule,
+    DiagnoseModule,
+    PhotosModule,
+    MissesModule,
+    NotesModule,
     HealthModule,
     SeedModule,
   ],

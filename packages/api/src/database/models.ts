@@ -1,8 +1,24 @@
 import { Household } from '../households/models/household.model.js';
 import { Membership } from '../households/models/membership.model.js';
 import { StudentGrant } from '../households/models/student-grant.model.js';
+import { MissRule } from '../misses/models/miss-rule.model.js';
+import { Miss } from '../misses/models/miss.model.js';
+import { Note } from '../notes/models/note.model.js';
+import { PhotoMark } from '../photos/models/photo-mark.model.js';
+import { Photo } from '../photos/models/photo.model.js';
 import { Student } from '../students/models/student.model.js';
 import { User } from '../users/models/user.model.js';
 
 /** Every Sequelize model, registered once on the connection. */
-export const MODELS = [User, Household, Membership, StudentGrant, Student];
+export const MODELS = [
+  User,
+  Household,
+  Membership,
+  StudentGrant,
+  Student,
+  Miss,
+  MissRule,
+  Photo,
+  PhotoMark,
+  Note,
+];

@@ -9,6 +9,7 @@ import { HouseholdsService } from '../households/households.service.js';
 import { StudentsService } from '../students/students.service.js';
 import { User } from '../users/models/user.model.js';
 import { UsersService } from '../users/users.service.js';
+import { DemoMissesSeeder } from './demo-misses.js';
 
 export const DEMO_FILE = new URL('../../../../seeds/demo-household.json', import.meta.url);
 
@@ -33,6 +34,7 @@ export class DemoSeeder {
     private readonly households: HouseholdsService,
     private readonly students: StudentsService,
     @InjectConnection() private readonly sequelize: Sequelize,
+    private readonly demoMisses: DemoMissesSeeder,
   ) {}
 
   async seedIfEmpty(): Promise<boolean> {
@@ -59,6 +61,7 @@ export class DemoSeeder {
       }
       await this.users.create({ ...demo.admin, passwordHash }, transaction);
     });
+    await this.demoMisses.seed(ownerMember.householdId);
     this.logger.log(`Demo household "${demo.household.name}" loaded`);
     return true;
   }

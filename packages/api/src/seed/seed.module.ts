@@ -3,13 +3,25 @@ import { ConfigService } from '@nestjs/config';
 import { AuthModule } from '../auth/auth.module.js';
 import type { AppConfig } from '../config/app.config.js';
 import { HouseholdsModule } from '../households/households.module.js';
+import { MissesModule } from '../misses/misses.module.js';
+import { NotesModule } from '../notes/notes.module.js';
+import { PhotosModule } from '../photos/photos.module.js';
 import { StudentsModule } from '../students/students.module.js';
 import { UsersModule } from '../users/users.module.js';
+import { DemoMissesSeeder } from './demo-misses.js';
 import { DemoSeeder } from './demo-seeder.js';
 
 @Module({
-  imports: [AuthModule, UsersModule, HouseholdsModule, StudentsModule],
-  providers: [DemoSeeder],
+  imports: [
+    AuthModule,
+    UsersModule,
+    HouseholdsModule,
+    StudentsModule,
+    MissesModule,
+    NotesModule,
+    PhotosModule,
+  ],
+  providers: [DemoSeeder, DemoMissesSeeder],
   exports: [DemoSeeder],
 })
 export class SeedModule implements OnApplicationBootstrap {

@@ -1,4 +1,5 @@
 import * as m0001 from './0001-foundation.js';
+import * as m0002 from './0002-misses.js';
 
 /** Every migration in order; listed explicitly so src and dist behave alike. */
-export const MIGRATIONS = [m0001];
+export const MIGRATIONS = [m0001, m0002];

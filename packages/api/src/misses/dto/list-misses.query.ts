@@ -1,0 +1,92 @@
+import { ApiPropertyOptional } from '@nestjs/swagger';
+import { CAUSES, MISS_STATUSES, type Cause, type MissStatus } from '@workback/core';
+import { Type } from 'class-transformer';
+import {
+  IsIn,
+  IsInt,
+  IsOptional,
+  IsPositive,
+  IsString,
+  Max,
+  MaxLength,
+  Min,
+  Validate,
+} from 'class-validator';
+import { CalendarDate } from './calendar-date.validator.js';
+
+export const MISS_SORTS = [
+  'occurredOn',
+  'createdAt',
+  'updatedAt',
+  'status',
+  'cause',
+  'problem',
+] as const;
+const SORT_VALUES = MISS_SORTS.flatMap((s) => [s, `-${s}`]);
+
+export class ListMissesQuery {
+  @ApiPropertyOptional()
+  @IsOptional()
+  @Type(() => Number)
+  @IsInt({ message: 'studentId must be a whole number' })
+  @IsPositive({ message: 'studentId must be a whole number' })
+  studentId?: number;
+
+  @ApiPropertyOptional({ enum: CAUSES })
+  @IsOptional()
+  @IsIn(CAUSES, { message: `cause must be one of ${CAUSES.join(', ')}` })
+  cause?: Cause;
+
+  @ApiPropertyOptional({ enum: MISS_STATUSES })
+  @IsOptional()
+  @IsIn(MISS_STATUSES, { message: `status must be one of ${MISS_STATUSES.join(', ')}` })
+  status?: MissStatus;
+
+  @ApiPropertyOptional({ example: 'sub.borrow-across-zero' })
+  @IsOptional()
+  @IsString()
+  @MaxLength(80)
+  rule?: string;
+
+  @ApiPropertyOptional({ example: 'subtraction.regrouping' })
+  @IsOptional()
+  @IsString()
+  @MaxLength(40)
+  skill?: string;
+
+  @ApiPropertyOptional({ example: '2026-03-01', description: 'From this day (inclusive)' })
+  @IsOptional()
+  @Validate(CalendarDate, [{ allowFuture: true }])
+  from?: string;
+
+  @ApiPropertyOptional({ example: '2026-03-31', description: 'To this day (inclusive)' })
+  @IsOptional()
+  @Validate(CalendarDate, [{ allowFuture: true }])
+  to?: string;
+
+  @ApiPropertyOptional({ description: 'Words in the problem or the explanation' })
+  @IsOptional()
+  @IsString()
+  @MaxLength(100, { message: 'q must be at most 100 characters' })
+  q?: string;
+
+  @ApiPropertyOptional({ default: 1 })
+  @IsOptional()
+  @Type(() => Number)
+  @IsInt({ message: 'page must be a whole number from 1' })
+  @Min(1, { message: 'page must be a whole number from 1' })
+  page?: number;
+
+  @ApiPropertyOptional({ default: 25, maximum: 100 })
+  @IsOptional()
+  @Type(() => Number)
+  @IsInt({ message: 'pageSize must be a whole number from 1 to 100' })
+  @Min(1, { message: 'pageSize must be a whole number from 1 to 100' })
+  @Max(100, { message: 'pageSize must be a whole number from 1 to 100' })
+  pageSize?: number;
+
+  @ApiPropertyOptional({ enum: SORT_VALUES, default: '-occurredOn' })
+  @IsOptional()
+  @IsIn(SORT_VALUES, { message: `sort must be one of ${SORT_VALUES.join(', ')}` })
+  sort?: string;
+}

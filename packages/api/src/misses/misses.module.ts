@@ -1,0 +1,22 @@
+import { Module } from '@nestjs/common';
+import { SequelizeModule } from '@nestjs/sequelize';
+import { DiagnoseModule } from '../diagnose/diagnose.module.js';
+import { PhotosModule } from '../photos/photos.module.js';
+import { StudentsModule } from '../students/students.module.js';
+import { MissesController } from './misses.controller.js';
+import { MissesService } from './misses.service.js';
+import { MissRule } from './models/miss-rule.model.js';
+import { Miss } from './models/miss.model.js';
+
+@Module({
+  imports: [
+    SequelizeModule.forFeature([Miss, MissRule]),
+    StudentsModule,
+    PhotosModule,
+    DiagnoseModule,
+  ],
+  controllers: [MissesController],
+  providers: [MissesService],
+  exports: [MissesService],
+})
+export class MissesModule {}

@@ -1,0 +1,482 @@
+import { Injectable, NotFoundException } from '@nestjs/common';
+import { InjectConnection, InjectModel } from '@nestjs/sequelize';
+import { Cause, MissStatus, type Diagnosis, type WrittenSteps } from '@workback/core';
+import { literal, Op, type Order, type Transaction, type WhereOptions } from 'sequelize';
+import type { Sequelize } from 'sequelize-typescript';
+import type { MemberContext } from '../common/member-context.js';
+import { fieldsError } from '../common/pipes/validation.pipe.js';
+import { DiagnoseService, type Checked } from '../diagnose/diagnose.service.js';
+import { MAX_PHOTOS_PER_MISS } from '../photos/photo-limits.js';
+import {
+  PhotosService,
+  type PhotoJson,
+  type StagedPhoto,
+  type UploadedPhoto,
+} from '../photos/photos.service.js';
+import { StudentsService } from '../students/students.service.js';
+import type { CreateMissDto } from './dto/create-miss.dto.js';
+import type { ListMissesQuery } from './dto/list-misses.query.js';
+import type { UpdateMissDto } from './dto/update-miss.dto.js';
+import { missScope } from './miss-scope.js';
+import { MissRule } from './models/miss-rule.model.js';
+import { Miss } from './models/miss.model.js';
+
+/** Links a miss to a sitting's key item; set by the keys and sittings services, not by clients. */
+export interface MissLinks {
+  sittingId?: number | null;
+  keyItemId?: number | null;
+}
+
+const LIST_ATTRIBUTES = { exclude: ['diagnosis'] };
+
+@Injectable()
+export class MissesService {
+  constructor(
+    @InjectModel(Miss) private readonly missModel: typeof Miss,
+    @InjectModel(MissRule) private readonly ruleModel: typeof MissRule,
+    @InjectConnection() private readonly sequelize: Sequelize,
+    private readonly students: StudentsService,
+    private readonly photos: PhotosService,
+    private readonly diagnoser: DiagnoseService,
+  ) {}
+
+  /**
+   * Saves a miss with its photos. Order: check everything in memory (fields, student,
+   * photos, diagnosis), write the files, then every row in one transaction; when any
+   * step fails the files written are removed, so nothing is left behind.
+   */
+  async create(
+    member: MemberContext,
+    dto: CreateMissDto,
+    files: readonly UploadedPhoto[] = [],
+    links: MissLinks = {},
+  ) {
+    await this.students.findModel(member, dto.studentId);
+    if (files.length > MAX_PHOTOS_PER_MISS) {
+      throw fieldsError({ photos: `attach at most ${MAX_PHOTOS_PER_MISS} photos` });
+    }
+    const checked = this.check(dto.problem, dto.answer, dto.steps ?? null);
+    const processed = await this.photos.process(files);
+    const staged = await this.photos.stage(processed);
+    try {
+      const id = await this.sequelize.transaction(async (transaction) => {
+        const miss = await this.missModel.create(
+          {
+            householdId: member.householdId,
+            studentId: dto.studentId,
+            occurredOn: dto.occurredOn,
+            sittingId: links.sittingId ?? null,
+            keyItemId: links.keyItemId ?? null,
+            problem: dto.problem,
+            answer: dto.answer,
+            steps: dto.steps ?? null,
+            explanation: dto.explanation ?? '',
+            cause: dto.cause ?? Cause.unsure,
+            note: dto.note ?? '',
+            status: dto.status ?? MissStatus.logged,
+            skills: dedupe(dto.skills ?? []),
+            revisit: dedupe(dto.revisit ?? []),
+            ...diagnosisColumns(checked),
+            createdBy: member.userId,
+            updatedBy: member.userId,
+          },
+          { transaction },
+        );
+        await this.writeRules(miss, checked, transaction);
+        await this.photos.createRows(miss.id, staged, member.userId, transaction);
+        return miss.id;
+      });
+      return this.findOne(member, id);
+    } catch (err) {
+      await this.photos.discard(staged);
+      throw err;
+    }
+  }
+
+  async addPhotos(member: MemberContext, id: number, files: readonly UploadedPhoto[]) {
+    const miss = await this.findModel(member, id);
+    if (files.length === 0) throw fieldsError({ photos: 'attach 1 to 4 photos' });
+    const processed = await this.photos.process(files);
+    let staged: StagedPhoto[] = [];
+    try {
+      staged = await this.photos.stage(processed);
+      await this.sequelize.transaction(async (transaction) => {
+        const have = await this.photos.countFor(miss.id, transaction);
+        if (have + staged.length > MAX_PHOTOS_PER_MISS) {
+          throw fieldsError({
+            photos: `a miss holds at most ${MAX_PHOTOS_PER_MISS} photos; this one has ${have}`,
+          });
+        }
+        await this.photos.createRows(miss.id, staged, member.userId, transaction);
+        await miss.update({ updatedBy: member.userId }, { transaction });
+      });
+    } catch (err) {
+      await this.photos.discard(staged);
+      throw err;
+    }
+    return this.findOne(member, id);
+  }
+
+  async findAll(member: MemberContext, query: ListMissesQuery) {
+    if (query.studentId !== undefined) await this.students.findModel(member, query.studentId);
+    if (query.from && query.to && query.from > query.to) {
+      throw fieldsError({ to: 'to must be on or after from' });
+    }
+    const page = query.page ?? 1;
+    const pageSize = query.pageSize ?? 25;
+    const where = this.listWhere(member, query);
+    const [total, rows] = await Promise.all([
+      this.missModel.count({ where }),
+      this.missModel.findAll({
+        attributes: LIST_ATTRIBUTES,
+        where,
+        order: sortOrder(query.sort ?? '-occurredOn'),
+        limit: pageSize,
+        offset: (page - 1) * pageSize,
+      }),
+    ]);
+    const thumbs = await this.photos.thumbnails(rows.map((r) => r.id));
+    const items = rows.map((m) => ({
+      ...toMissSummary(m),
+      thumbnailPhotoId: thumbs.get(m.id)?.id ?? null,
+      photoCount: thumbs.get(m.id)?.count ?? 0,
+    }));
+    return { items, total, page, pageSize };
+  }
+
+  async findOne(member: MemberContext, id: number) {
+    const miss = await this.findModel(member, id);
+    const photos = (await this.photos.forMisses([miss.id])).get(miss.id) ?? [];
+    return toMissJson(miss, photos);
+  }
+
+  /** 404 both for what does not exist and for what is not this member's to see. */
+  async findModel(member: MemberContext, id: number, transaction?: Transaction): Promise<Miss> {
+    const miss = await this.missModel.findOne({
+      where: { [Op.and]: [missScope(member), { id }] },
+      transaction,
+    });
+    if (!miss) throw new NotFoundException(`No miss ${id} in this household`);
+    return miss;
+  }
+
+  async update(member: MemberContext, id: number, dto: UpdateMissDto) {
+    const miss = await this.findModel(member, id);
+    if (dto.studentId !== undefined && dto.studentId !== miss.studentId) {
+      await this.students.findModel(member, dto.studentId);
+    }
+    const changes: Partial<Miss> = {};
+    for (const key of [
+      'studentId',
+      'occurredOn',
+      'problem',
+      'answer',
+      'explanation',
+      'cause',
+      'note',
+      'status',
+    ] as const) {
+      if (dto[key] !== undefined) (changes as Record<string, unknown>)[key] = dto[key];
+    }
+    if (dto.skills !== undefined) changes.skills = dedupe(dto.skills);
+    if (dto.revisit !== undefined) changes.revisit = dedupe(dto.revisit);
+    if (dto.steps !== undefined) changes.steps = dto.steps;
+    const rediagnose =
+      (dto.problem !== undefined && dto.problem !== miss.problem) ||
+      (dto.answer !== undefined && dto.answer !== miss.answer) ||
+      dto.steps !== undefined;
+    const checked = rediagnose
+      ? this.check(
+          changes.problem ?? miss.problem,
+          changes.answer ?? miss.answer,
+          dto.steps === undefined ? miss.steps : dto.steps,
+        )
+      : null;
+    await this.sequelize.transaction(async (transaction) => {
+      await miss.update(
+        { ...changes, ...(checked ? diagnosisColumns(checked) : {}), updatedBy: member.userId },
+        { transaction },
+      );
+      if (checked) await this.writeRules(miss, checked, transaction);
+    });
+    return this.findOne(member, id);
+  }
+
+  /** Status changes made by other services (a review plan marks its misses planned). */
+  async setStatus(
+    member: MemberContext,
+    ids: readonly number[],
+    status: MissStatus,
+    transaction?: Transaction,
+  ): Promise<number> {
+    const [count] = await this.missModel.update(
+      { status, updatedBy: member.userId },
+      { where: { [Op.and]: [missScope(member), { id: { [Op.in]: ids } }] }, transaction },
+    );
+    return count;
+  }
+
+  async remove(member: MemberContext, id: number): Promise<void> {
+    const keys = await this.sequelize.transaction(async (transaction) => {
+      const miss = await this.findModel(member, id, transaction);
+      const found = await this.photos.keysOfMiss(miss.id, transaction);
+      await miss.destroy({ transaction });
+      return found;
+    });
+    await this.photos.removeKeys(keys);
+  }
+
+  // ── Misses made from a sitting's marks (called by the sittings module, inside its transaction) ──
+
+  /** The misses made from one sitting's marks, by key item. */
+  async findForSitting(
+    sittingId: number,
+    transaction?: Transaction,
+  ): Promise<Map<number, { id: number; status: MissStatus }>> {
+    const rows = await this.missModel.findAll({
+      where: { sittingId, keyItemId: { [Op.ne]: null } },
+      attributes: ['id', 'keyItemId', 'status'],
+      transaction,
+    });
+    return new Map(rows.map((m) => [m.keyItemId!, { id: m.id, status: m.status }]));
+  }
+
+  /** One miss for a wrong item: the item's prompt, the child's answer, the key's skills and lessons. */
+  async createFromMark(
+    member: MemberContext,
+    input: {
+      studentId: number;
+      occurredOn: string;
+      problem: string;
+      answer: string;
+      skills: readonly string[];
+      revisit: readonly string[];
+      sittingId: number;
+      keyItemId: number;
+    },
+    transaction: Transaction,
+  ): Promise<number> {
+    const checked = this.diagnoser.check(input.problem, input.answer, null);
+    const miss = await this.missModel.create(
+      {
+        householdId: member.householdId,
+        studentId: input.studentId,
+        occurredOn: input.occurredOn,
+        sittingId: input.sittingId,
+        keyItemId: input.keyItemId,
+        problem: input.problem,
+        answer: input.answer,
+        steps: null,
+        explanation: '',
+        cause: Cause.unsure,
+        note: '',
+        status: MissStatus.logged,
+        skills: dedupe(input.skills),
+        revisit: dedupe(input.revisit),
+        ...diagnosisColumns(checked),
+        createdBy: member.userId,
+        updatedBy: member.userId,
+      },
+      { transaction },
+    );
+    await this.writeRules(miss, checked, transaction);
+    return miss.id;
+  }
+
+  /** The item is wrong again: the miss is open again (logged), with the answer now written. */
+  async reopenFromMark(
+    member: MemberContext,
+    id: number,
+    answer: string,
+    transaction: Transaction,
+  ) {
+    const miss = await this.findModel(member, id, transaction);
+    await this.answerFromMark(member, id, answer, transaction);
+    await miss.reload({ transaction });
+    await miss.update({ status: MissStatus.logged, updatedBy: member.userId }, { transaction });
+  }
+
+  /** The child's answer for the item was changed on the marks: the miss takes it, re-diagnosed. */
+  async answerFromMark(
+    member: MemberContext,
+    id: number,
+    answer: string,
+    transaction: Transaction,
+  ) {
+    const miss = await this.findModel(member, id, transaction);
+    if (miss.answer === answer) return;
+    const checked = this.diagnoser.check(miss.problem, answer, miss.steps);
+    await miss.update(
+      { answer, ...diagnosisColumns(checked), updatedBy: member.userId },
+      { transaction },
+    );
+    await this.writeRules(miss, checked, transaction);
+  }
+
+  /** The item's mark turned right: resolved, the reason added to the note. */
+  async resolveFromMark(
+    member: MemberContext,
+    id: number,
+    reason: string,
+    transaction: Transaction,
+  ) {
+    const miss = await this.findModel(member, id, transaction);
+    const line = `Resolved: ${reason}`.slice(0, 500);
+    await miss.update(
+      {
+        status: MissStatus.resolved,
+        note: miss.note ? `${miss.note}\n${line}` : line,
+        updatedBy: member.userId,
+      },
+      { transaction },
+    );
+  }
+
+  // ── end of the sittings section ──
+
+  private check(problem: string, answer: string, steps: WrittenSteps | null): Checked {
+    const checked = this.diagnoser.check(problem, answer, steps);
+    // Steps are structured input: if the engine cannot read them the request is wrong, not the problem.
+    if (!checked.checked && checked.part === 'steps') throw fieldsError({ steps: checked.reason });
+    return checked;
+  }
+
+  private async writeRules(miss: Miss, checked: Checked, transaction: Transaction) {
+    await this.ruleModel.destroy({ where: { missId: miss.id }, transaction });
+    const ids = checked.checked ? ruleIdsOf(checked.diagnosis) : [];
+    if (ids.length === 0) return;
+    await this.ruleModel.bulkCreate(
+      ids.map((ruleId) => ({ missId: miss.id, ruleId, householdId: miss.householdId })),
+      { transaction },
+    );
+  }
+
+  private listWhere(member: MemberContext, q: ListMissesQuery): WhereOptions<Miss> {
+    const and: WhereOptions<Miss>[] = [missScope(member)];
+    if (q.studentId !== undefined) and.push({ studentId: q.studentId });
+    if (q.cause) and.push({ cause: q.cause });
+    if (q.status) and.push({ status: q.status });
+    if (q.from) and.push({ occurredOn: { [Op.gte]: q.from } });
+    if (q.to) and.push({ occurredOn: { [Op.lte]: q.to } });
+    const esc = (v: string | number) => this.sequelize.escape(v);
+    if (q.rule) {
+      and.push({
+        id: {
+          [Op.in]: literal(
+            `(SELECT miss_id FROM miss_rules WHERE household_id = ${esc(member.householdId)} AND rule_id = ${esc(q.rule)})`,
+          ),
+        },
+      });
+    }
+    if (q.skill) {
+      and.push(
+        literal(
+          `EXISTS (SELECT 1 FROM json_each("Miss"."skills") WHERE json_each.value = ${esc(q.skill)})`,
+        ) as unknown as WhereOptions<Miss>,
+      );
+    }
+    const text = q.q?.trim();
+    if (text) {
+      const pattern = `%${text.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+      and.push(
+        literal(
+          `("Miss"."problem" LIKE ${esc(pattern)} ESCAPE '\\' OR "Miss"."explanation" LIKE ${esc(pattern)} ESCAPE '\\')`,
+        ) as unknown as WhereOptions<Miss>,
+      );
+    }
+    return { [Op.and]: and };
+  }
+}
+
+function diagnosisColumns(checked: Checked) {
+  if (!checked.checked) {
+    return {
+      diagnosis: null,
+      engineVersion: null,
+      notCheckedReason: checked.reason,
+      expected: null,
+      correct: null,
+      ruleIds: [],
+      suggestedCause: null,
+    };
+  }
+  const d = checked.diagnosis;
+  return {
+    diagnosis: d,
+    engineVersion: d.engineVersion,
+    notCheckedReason: null,
+    expected: d.expected,
+    correct: d.correct,
+    ruleIds: d.rules.map((r) => r.id),
+    suggestedCause: d.suggestedCause?.cause ?? null,
+  };
+}
+
+/** Every rule id a diagnosis names, each id of a pair included. */
+function ruleIdsOf(d: Diagnosis): string[] {
+  return dedupe(d.rules.flatMap((r) => [...r.ids]));
+}
+
+function dedupe(list: readonly string[]): string[] {
+  return [...new Set(list)];
+}
+
+const SORT_COLUMNS: Record<string, string> = {
+  occurredOn: 'occurredOn',
+  createdAt: 'createdAt',
+  updatedAt: 'updatedAt',
+  status: 'status',
+  cause: 'cause',
+  problem: 'problem',
+};
+
+function sortOrder(sort: string): Order {
+  const desc = sort.startsWith('-');
+  const column = SORT_COLUMNS[desc ? sort.slice(1) : sort] ?? 'occurredOn';
+  const dir = desc ? 'DESC' : 'ASC';
+  return [
+    [column, dir],
+    ['id', dir],
+  ];
+}
+
+/** A row of the notebook: everything but the full diagnosis. */
+export function toMissSummary(m: Miss) {
+  return {
+    id: m.id,
+    studentId: m.studentId,
+    occurredOn: m.occurredOn,
+    sittingId: m.sittingId,
+    keyItemId: m.keyItemId,
+    problem: m.problem,
+    answer: m.answer,
+    steps: m.steps,
+    explanation: m.explanation,
+    cause: m.cause,
+    note: m.note,
+    status: m.status,
+    skills: m.skills,
+    revisit: m.revisit,
+    checked: m.notCheckedReason === null,
+    notCheckedReason: m.notCheckedReason,
+    expected: m.expected,
+    correct: m.correct,
+    ruleIds: m.ruleIds,
+    suggestedCause: m.suggestedCause,
+    engineVersion: m.engineVersion,
+    createdBy: m.createdBy,
+    updatedBy: m.updatedBy,
+    createdAt: m.createdAt,
+    updatedAt: m.updatedAt,
+  };
+}
+
+export function toMissJson(m: Miss, photos: PhotoJson[]) {
+  return {
+    ...toMissSummary(m),
+    diagnosis: m.diagnosis,
+    photos,
+    thumbnailPhotoId: photos[0]?.id ?? null,
+    photoCount: photos.length,
+  };
+}

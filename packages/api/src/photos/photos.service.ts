@@ -1,0 +1,301 @@
+import { randomUUID } from 'node:crypto';
+import {
+  HttpException,
+  HttpStatus,
+  Inject,
+  Injectable,
+  Logger,
+  NotFoundException,
+} from '@nestjs/common';
+import { InjectConnection, InjectModel } from '@nestjs/sequelize';
+import { Op, type Transaction } from 'sequelize';
+import type { Sequelize } from 'sequelize-typescript';
+import type { MemberContext } from '../common/member-context.js';
+import { missScope } from '../misses/miss-scope.js';
+import { Miss } from '../misses/models/miss.model.js';
+import { PHOTO_STORAGE, type PhotoStorage } from '../storage/photo-storage.js';
+import type { MarkDto } from './dto/set-marks.dto.js';
+import { PhotoMark } from './models/photo-mark.model.js';
+import { Photo } from './models/photo.model.js';
+import { PhotoPipeline, type ProcessedPhoto } from './photo-pipeline.service.js';
+
+/** What the pipeline needs of an upload (a multer file has it; the demo seeder makes its own). */
+export interface UploadedPhoto {
+  buffer: Buffer;
+}
+
+/** A processed photo whose files are written but whose row is not yet. */
+export interface StagedPhoto {
+  processed: ProcessedPhoto;
+  storageKey: string;
+  thumbKey: string;
+}
+
+export interface PhotoJson {
+  id: number;
+  position: number;
+  contentType: string;
+  width: number;
+  height: number;
+  bytes: number;
+  thumbWidth: number;
+  thumbHeight: number;
+  imageUrl: string;
+  thumbUrl: string;
+  marks: MarkJson[];
+  createdAt: Date;
+}
+
+export interface MarkJson {
+  id: number;
+  x: number;
+  y: number;
+  label: string | null;
+}
+
+@Injectable()
+export class PhotosService {
+  private readonly logger = new Logger(PhotosService.name);
+
+  constructor(
+    @InjectModel(Photo) private readonly photoModel: typeof Photo,
+    @InjectModel(PhotoMark) private readonly markModel: typeof PhotoMark,
+    @Inject(PHOTO_STORAGE) private readonly storage: PhotoStorage,
+    @InjectConnection() private readonly sequelize: Sequelize,
+    private readonly pipeline: PhotoPipeline,
+  ) {}
+
+  /** Checks and re-encodes every upload in memory; nothing is written yet (415/422 refuse the lot). */
+  async process(files: readonly UploadedPhoto[]): Promise<ProcessedPhoto[]> {
+    const out: ProcessedPhoto[] = [];
+    for (const [i, file] of files.entries()) {
+      out.push(
+        await this.pipeline.process(file.buffer, files.length > 1 ? `photo ${i + 1}` : 'photo'),
+      );
+    }
+    return out;
+  }
+
+  /** Writes the files under fresh server-made names; on any failure removes what it wrote. */
+  async stage(processed: readonly ProcessedPhoto[]): Promise<StagedPhoto[]> {
+    const staged: StagedPhoto[] = [];
+    const written: string[] = [];
+    try {
+      for (const p of processed) {
+        const id = randomUUID();
+        const item = { processed: p, storageKey: `${id}.jpg`, thumbKey: `${id}-thumb.jpg` };
+        await this.storage.put(item.storageKey, p.display.data);
+        written.push(item.storageKey);
+        await this.storage.put(item.thumbKey, p.thumb.data);
+        written.push(item.thumbKey);
+        staged.push(item);
+      }
+      return staged;
+    } catch (err) {
+      await this.removeKeys(written);
+      if ((err as NodeJS.ErrnoException).code === 'ENOSPC') {
+        throw new HttpException(
+          'The server has no room for photos right now; nothing was saved',
+          HttpStatus.INSUFFICIENT_STORAGE,
+        );
+      }
+      throw err;
+    }
+  }
+
+  /** Removes the files of photos whose rows were never committed. */
+  async discard(staged: readonly StagedPhoto[]): Promise<void> {
+    await this.removeKeys(staged.flatMap((s) => [s.storageKey, s.thumbKey]));
+  }
+
+  async createRows(
+    missId: number,
+    staged: readonly StagedPhoto[],
+    userId: number | null,
+    transaction: Transaction,
+  ): Promise<void> {
+    const last = (await this.photoModel.max<number | null, Photo>('position', {
+      where: { missId },
+      transaction,
+    })) as number | null;
+    let position = (last ?? 0) + 1;
+    for (const s of staged) {
+      await this.photoModel.create(
+        {
+          missId,
+          position: position++,
+          contentType: s.processed.contentType,
+          storageKey: s.storageKey,
+          thumbKey: s.thumbKey,
+          width: s.processed.display.width,
+          height: s.processed.display.height,
+          bytes: s.processed.display.data.length,
+          thumbWidth: s.processed.thumb.width,
+          thumbHeight: s.processed.thumb.height,
+          thumbBytes: s.processed.thumb.data.length,
+          createdBy: userId,
+        },
+        { transaction },
+      );
+    }
+  }
+
+  async countFor(missId: number, transaction?: Transaction): Promise<number> {
+    return this.photoModel.count({ where: { missId }, transaction });
+  }
+
+  /** The photos of each miss, in order, with their pins. */
+  async forMisses(missIds: readonly number[]): Promise<Map<number, PhotoJson[]>> {
+    const map = new Map<number, PhotoJson[]>();
+    if (missIds.length === 0) return map;
+    const photos = await this.photoModel.findAll({
+      where: { missId: { [Op.in]: missIds } },
+      order: [
+        ['missId', 'ASC'],
+        ['position', 'ASC'],
+      ],
+    });
+    const marks = await this.marksByPhoto(photos.map((p) => p.id));
+    for (const p of photos) {
+      const list = map.get(p.missId) ?? [];
+      list.push(toPhotoJson(p, marks.get(p.id) ?? []));
+      map.set(p.missId, list);
+    }
+    return map;
+  }
+
+  /** For list rows: the first photo's id and the number of photos of each miss. */
+  async thumbnails(
+    missIds: readonly number[],
+  ): Promise<Map<number, { id: number; count: number }>> {
+    const map = new Map<number, { id: number; count: number }>();
+    if (missIds.length === 0) return map;
+    const rows = await this.photoModel.findAll({
+      attributes: ['id', 'missId'],
+      where: { missId: { [Op.in]: missIds } },
+      order: [
+        ['missId', 'ASC'],
+        ['position', 'ASC'],
+      ],
+    });
+    for (const r of rows) {
+      const seen = map.get(r.missId);
+      if (seen) seen.count++;
+      else map.set(r.missId, { id: r.id, count: 1 });
+    }
+    return map;
+  }
+
+  async keysOfMiss(missId: number, transaction?: Transaction): Promise<string[]> {
+    const rows = await this.photoModel.findAll({
+      attributes: ['storageKey', 'thumbKey'],
+      where: { missId },
+      transaction,
+    });
+    return rows.flatMap((r) => [r.storageKey, r.thumbKey]);
+  }
+
+  /** Best effort: a file that cannot be removed is logged by key (no personal data) and swept later. */
+  async removeKeys(keys: readonly string[]): Promise<void> {
+    for (const key of keys) {
+      try {
+        await this.storage.remove(key);
+      } catch (err) {
+        this.logger.warn(`could not remove photo file ${key}: ${(err as Error).message}`);
+      }
+    }
+  }
+
+  /** Removes files no photo row refers to (left by a crash, or by a student or household deleted in the database). */
+  async sweepOrphans(): Promise<number> {
+    const stored = await this.storage.keys();
+    if (stored.length === 0) return 0;
+    const rows = await this.photoModel.findAll({ attributes: ['storageKey', 'thumbKey'] });
+    const known = new Set(rows.flatMap((r) => [r.storageKey, r.thumbKey]));
+    const orphans = stored.filter((k) => !known.has(k));
+    await this.removeKeys(orphans);
+    return orphans.length;
+  }
+
+  /** A photo of a miss the member may see; 404 for anything else. */
+  async findModel(member: MemberContext, id: number, transaction?: Transaction): Promise<Photo> {
+    const photo = await this.photoModel.findOne({
+      where: { id },
+      include: [{ model: Miss, attributes: ['id'], where: missScope(member), required: true }],
+      transaction,
+    });
+    if (!photo) throw new NotFoundException(`No photo ${id} in this household`);
+    return photo;
+  }
+
+  async file(
+    member: MemberContext,
+    id: number,
+    which: 'image' | 'thumb',
+  ): Promise<{ data: Buffer; contentType: string }> {
+    const photo = await this.findModel(member, id);
+    const data = await this.storage.read(which === 'image' ? photo.storageKey : photo.thumbKey);
+    return { data, contentType: photo.contentType };
+  }
+
+  async setMarks(member: MemberContext, id: number, marks: readonly MarkDto[]): Promise<PhotoJson> {
+    const photo = await this.sequelize.transaction(async (transaction) => {
+      const found = await this.findModel(member, id, transaction);
+      await this.markModel.destroy({ where: { photoId: id }, transaction });
+      await this.markModel.bulkCreate(
+        marks.map((m) => ({
+          photoId: id,
+          x: m.x,
+          y: m.y,
+          label: m.label?.length ? m.label : null,
+          createdBy: member.userId,
+        })),
+        { transaction },
+      );
+      return found;
+    });
+    const saved = await this.marksByPhoto([id]);
+    return toPhotoJson(photo, saved.get(id) ?? []);
+  }
+
+  async remove(member: MemberContext, id: number): Promise<void> {
+    const keys = await this.sequelize.transaction(async (transaction) => {
+      const photo = await this.findModel(member, id, transaction);
+      await photo.destroy({ transaction });
+      return [photo.storageKey, photo.thumbKey];
+    });
+    await this.removeKeys(keys);
+  }
+
+  private async marksByPhoto(photoIds: readonly number[]): Promise<Map<number, MarkJson[]>> {
+    const map = new Map<number, MarkJson[]>();
+    if (photoIds.length === 0) return map;
+    const marks = await this.markModel.findAll({
+      where: { photoId: { [Op.in]: photoIds } },
+      order: [['id', 'ASC']],
+    });
+    for (const m of marks) {
+      const list = map.get(m.photoId) ?? [];
+      list.push({ id: m.id, x: m.x, y: m.y, label: m.label });
+      map.set(m.photoId, list);
+    }
+    return map;
+  }
+}
+
+export function toPhotoJson(p: Photo, marks: MarkJson[]): PhotoJson {
+  return {
+    id: p.id,
+    position: p.position,
+    contentType: p.contentType,
+    width: p.width,
+    height: p.height,
+    bytes: p.bytes,
+    thumbWidth: p.thumbWidth,
+    thumbHeight: p.thumbHeight,
+    imageUrl: `/api/photos/${p.id}/image`,
+    thumbUrl: `/api/photos/${p.id}/thumb`,
+    marks,
+    createdAt: p.createdAt,
+  };
+}

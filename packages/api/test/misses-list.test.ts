@@ -1,0 +1,221 @@
+import { CAUSES, MISS_STATUSES } from '@workback/core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { studentIds } from './support/photos.js';
+import {
+  type Client,
+  DEMO,
+  registered,
+  signedIn,
+  startTestApp,
+  type TestApp,
+} from './support/test-app.js';
+
+interface Seeded {
+  id: number;
+  studentId: number;
+  occurredOn: string;
+  cause: string;
+  status: string;
+  problem: string;
+  explanation: string;
+  skills: string[];
+  ruleIds: string[];
+}
+
+let t: TestApp;
+let parent: Client;
+let seeded: Seeded[];
+let ada: number;
+let bo: number;
+
+const PROBLEMS: [string, string][] = [
+  ['304 - 75', '139'],
+  ['81 - 38', '57'],
+  ['58 + 67', '115'],
+  ['A jar holds 50% more beans than a cup. How many?', '12'],
+  ['46 + 38', '74'],
+];
+
+beforeAll(async () => {
+  t = await startTestApp({ SIGN_IN_LIMIT_PER_MINUTE: '1000' });
+  parent = await registered(t, 'lists@example.test', 'List household');
+  ada = (await parent.post('/api/students', { name: 'Ada', gradeLevel: '3' }).expect(201)).body.id;
+  bo = (await parent.post('/api/students', { name: 'Bo', gradeLevel: '5' }).expect(201)).body.id;
+  seeded = [];
+  for (let i = 0; i < 30; i++) {
+    const [problem, answer] = PROBLEMS[i % PROBLEMS.length]!;
+    const res = await parent.post('/api/misses', {
+      studentId: i % 3 === 0 ? bo : ada,
+      occurredOn: `2025-01-${String(1 + (i % 20)).padStart(2, '0')}`,
+      problem,
+      answer,
+      explanation: i % 6 === 0 ? `I carried the one, take ${i}` : `take ${i}: I_forgot`,
+      cause: CAUSES[i % CAUSES.length],
+      status: MISS_STATUSES[i % MISS_STATUSES.length],
+      skills: i % 4 === 0 ? ['skill.alpha'] : ['skill.beta', 'skill.gamma'],
+    });
+    expect(res.status, res.text).toBe(201);
+    seeded.push(res.body as Seeded);
+  }
+});
+afterAll(() => t.close());
+
+async function ids(query: string): Promise<number[]> {
+  const res = await parent.get(`/api/misses?pageSize=100&${query}`);
+  expect(res.status, res.text).toBe(200);
+  expect(res.body.total).toBe(res.body.items.length);
+  return (res.body.items as { id: number }[]).map((m) => m.id).sort((a, b) => a - b);
+}
+
+const idsWhere = (keep: (m: Seeded) => boolean) =>
+  seeded
+    .filter(keep)
+    .map((m) => m.id)
+    .sort((a, b) => a - b);
+
+describe('GET /api/misses filters', () => {
+  it('lists only this household’s misses', async () => {
+    expect(await ids('')).toEqual(idsWhere(() => true));
+  });
+
+  it.each([
+    ['studentId', () => `studentId=${bo}`, (m: Seeded) => m.studentId === bo],
+    ['cause', () => 'cause=fact', (m: Seeded) => m.cause === 'fact'],
+    ['status', () => 'status=planned', (m: Seeded) => m.status === 'planned'],
+    [
+      'rule',
+      () => 'rule=sub.borrow-across-zero',
+      (m: Seeded) => m.ruleIds.some((r) => r.split('+').includes('sub.borrow-across-zero')),
+    ],
+    ['skill', () => 'skill=skill.gamma', (m: Seeded) => m.skills.includes('skill.gamma')],
+    [
+      'from and to (inclusive)',
+      () => 'from=2025-01-05&to=2025-01-09',
+      (m: Seeded) => m.occurredOn >= '2025-01-05' && m.occurredOn <= '2025-01-09',
+    ],
+    ['q over the explanation', () => 'q=CARRIED', (m: Seeded) => m.explanation.includes('carried')],
+    ['q over the problem', () => 'q=jar', (m: Seeded) => m.problem.includes('jar')],
+    [
+      'q with a literal %',
+      () => `q=${encodeURIComponent('50%')}`,
+      (m: Seeded) => m.problem.includes('50%'),
+    ],
+    ['q with a literal _', () => 'q=I_f', (m: Seeded) => m.explanation.includes('I_f')],
+    [
+      'several at once',
+      () => `studentId=${ada}&cause=slip&from=2025-01-01`,
+      (m: Seeded) => m.studentId === ada && m.cause === 'slip',
+    ],
+  ])('filters by %s', async (_name, query, keep) => {
+    const expected = idsWhere(keep);
+    expect(expected.length).toBeGreaterThan(0);
+    expect(expected.length).toBeLessThan(seeded.length);
+    expect(await ids(query())).toEqual(expected);
+  });
+
+  it('finds the rule in the diagnosis of the seeded borrow-across-zero misses', () => {
+    // 304 − 75 written 139: BORROW-ACROSS-ZERO (Brown & Burton 1978; from memory).
+    const borrow = seeded.filter((m) => m.problem === '304 - 75');
+    expect(borrow.every((m) => m.ruleIds[0] === 'sub.borrow-across-zero')).toBe(true);
+  });
+
+  it('gives list rows without the full diagnosis, with the thumbnail photo id', async () => {
+    const res = await parent.get('/api/misses?pageSize=1').expect(200);
+    expect(res.body.items[0]).not.toHaveProperty('diagnosis');
+    expect(res.body.items[0]).toMatchObject({ thumbnailPhotoId: null, photoCount: 0 });
+    const demo = await signedIn(t, DEMO.owner);
+    const withPhotos = await demo.get('/api/misses?pageSize=5').expect(200);
+    for (const item of withPhotos.body.items) {
+      expect(item.thumbnailPhotoId).toEqual(expect.any(Number));
+      await demo.get(`/api/photos/${item.thumbnailPhotoId}/thumb`).expect(200);
+    }
+  });
+});
+
+describe('GET /api/misses paging and sorting', () => {
+  it('pages through every miss once, with the total on each page', async () => {
+    const seen: number[] = [];
+    for (let page = 1; page <= 5; page++) {
+      const res = await parent.get(`/api/misses?pageSize=7&page=${page}`).expect(200);
+      expect(res.body).toMatchObject({ total: 30, page, pageSize: 7 });
+      expect(res.body.items).toHaveLength(page < 5 ? 7 : 2);
+      seen.push(...res.body.items.map((m: { id: number }) => m.id));
+    }
+    expect([...seen].sort((a, b) => a - b)).toEqual(idsWhere(() => true));
+    const past = await parent.get('/api/misses?pageSize=7&page=6').expect(200);
+    expect(past.body).toMatchObject({ items: [], total: 30 });
+  });
+
+  it('defaults to 25 a page, newest day first (then newest id)', async () => {
+    const res = await parent.get('/api/misses').expect(200);
+    expect(res.body.pageSize).toBe(25);
+    expect(res.body.items).toHaveLength(25);
+    const expected = [...seeded]
+      .sort((a, b) => b.occurredOn.localeCompare(a.occurredOn) || b.id - a.id)
+      .slice(0, 25)
+      .map((m) => m.id);
+    expect(res.body.items.map((m: { id: number }) => m.id)).toEqual(expected);
+  });
+
+  it.each([
+    [
+      'occurredOn',
+      (a: Seeded, b: Seeded) => a.occurredOn.localeCompare(b.occurredOn) || a.id - b.id,
+    ],
+    ['-problem', (a: Seeded, b: Seeded) => cmp(b.problem, a.problem) || b.id - a.id],
+    ['cause', (a: Seeded, b: Seeded) => cmp(a.cause, b.cause) || a.id - b.id],
+    ['createdAt', (a: Seeded, b: Seeded) => a.id - b.id],
+    ['-createdAt', (a: Seeded, b: Seeded) => b.id - a.id],
+  ])('sorts by %s', async (sort, compare) => {
+    const res = await parent.get(`/api/misses?pageSize=100&sort=${sort}`).expect(200);
+    expect(res.body.items.map((m: { id: number }) => m.id)).toEqual(
+      [...seeded].sort(compare).map((m) => m.id),
+    );
+  });
+});
+
+// SQLite compares text by bytes (BINARY collation); so does this.
+const cmp = (a: string, b: string) => (a < b ? -1 : a > b ? 1 : 0);
+
+describe('GET /api/misses bad queries', () => {
+  it.each([
+    ['pageSize=101', 'pageSize'],
+    ['pageSize=0', 'pageSize'],
+    ['page=0', 'page'],
+    ['page=two', 'page'],
+    ['sort=name', 'sort'],
+    ['cause=lazy', 'cause'],
+    ['status=done', 'status'],
+    ['from=2025-13-01', 'from'],
+    ['from=2025-02-01&to=2025-01-01', 'to'],
+    ['studentId=abc', 'studentId'],
+    ['color=red', 'color'],
+  ])('refuses %s naming %s', async (query, field) => {
+    const res = await parent.get(`/api/misses?${query}`).expect(400);
+    expect(res.body.fields).toHaveProperty(field);
+  });
+
+  it('answers 404 for a student of another household', async () => {
+    const demo = await signedIn(t, DEMO.owner);
+    const wren = (await studentIds(demo)).get('Wren')!;
+    await parent.get(`/api/misses?studentId=${wren}`).expect(404);
+  });
+});
+
+describe('GET /api/misses for a tutor', () => {
+  it('lists only the granted student’s misses and 404s the other student', async () => {
+    const owner = await signedIn(t, DEMO.owner);
+    const names = await studentIds(owner);
+    const tutor = await signedIn(t, DEMO.tutor);
+    const all = await owner.get('/api/misses?pageSize=100').expect(200);
+    const wrens = all.body.items.filter(
+      (m: { studentId: number }) => m.studentId === names.get('Wren'),
+    );
+    const mine = await tutor.get('/api/misses?pageSize=100').expect(200);
+    expect(mine.body.total).toBe(wrens.length);
+    expect(new Set(mine.body.items.map((m: { studentId: number }) => m.studentId))).toEqual(
+      new Set([names.get('Wren')]),
+    );
+    await tutor.get(`/api/misses?studentId=${names.get('Milo')}`).expect(404);
+  });
+});
