@@ -5,11 +5,13 @@ import { APP_FILTER, APP_GUARD } from '@nestjs/core';
 import { ThrottlerModule } from '@nestjs/throttler';
 import type { Request } from 'express';
 import { LoggerModule } from 'nestjs-pino';
+import { AnswerKeysModule } from './answer-keys/answer-keys.module.js';
 import { AuthModule } from './auth/auth.module.js';
 import { HttpExceptionFilter } from './common/filters/http-exception.filter.js';
 import { AccessGuard } from './common/guards/access.guard.js';
 import { CsrfGuard } from './common/guards/csrf.guard.js';
 import { appConfig, type AppConfig } from './config/app.config.js';
+import { CurriculumModule } from './curriculum/curriculum.module.js';
 import { DatabaseModule } from './database/database.module.js';
 import { DiagnoseModule } from './diagnose/diagnose.module.js';
 import { HealthModule } from './health/health.module.js';
@@ -19,6 +21,7 @@ import { NotesModule } from './notes/notes.module.js';
 import { PhotosModule } from './photos/photos.module.js';
 import { SeedModule } from './seed/seed.module.js';
 import { SessionsModule } from './sessions/sessions.module.js';
+import { SittingsModule } from './sittings/sittings.module.js';
 import { StudentsModule } from './students/students.module.js';
 import { UsersModule } from './users/users.module.js';
 
@@ -74,6 +77,9 @@ const emailOf = (req: Request) =>
     DiagnoseModule,
     PhotosModule,
     MissesModule,
+    CurriculumModule,
+    AnswerKeysModule,
+    SittingsModule,
     NotesModule,
     HealthModule,
     SeedModule,

@@ -1,3 +1,8 @@
+import { AnswerKey } from '../answer-keys/models/answer-key.model.js';
+import { KeyCorrection } from '../answer-keys/models/key-correction.model.js';
+import { KeyItem } from '../answer-keys/models/key-item.model.js';
+import { Course } from '../curriculum/models/course.model.js';
+import { Lesson } from '../curriculum/models/lesson.model.js';
 import { Household } from '../households/models/household.model.js';
 import { Membership } from '../households/models/membership.model.js';
 import { StudentGrant } from '../households/models/student-grant.model.js';
@@ -6,6 +11,8 @@ import { Miss } from '../misses/models/miss.model.js';
 import { Note } from '../notes/models/note.model.js';
 import { PhotoMark } from '../photos/models/photo-mark.model.js';
 import { Photo } from '../photos/models/photo.model.js';
+import { SittingMark } from '../sittings/models/sitting-mark.model.js';
+import { Sitting } from '../sittings/models/sitting.model.js';
 import { Student } from '../students/models/student.model.js';
 import { User } from '../users/models/user.model.js';
 
@@ -21,4 +28,11 @@ export const MODELS = [
   Photo,
   PhotoMark,
   Note,
+  Course,
+  Lesson,
+  AnswerKey,
+  KeyItem,
+  KeyCorrection,
+  Sitting,
+  SittingMark,
 ];

@@ -1,0 +1,18 @@
+import { ApiPropertyOptional } from '@nestjs/swagger';
+import { Type } from 'class-transformer';
+import { IsIn, IsInt, IsOptional, Min } from 'class-validator';
+import { KEY_KINDS, type KeyKind } from '../models/answer-key.model.js';
+
+export class ListAnswerKeysQuery {
+  @ApiPropertyOptional()
+  @IsOptional()
+  @Type(() => Number)
+  @IsInt({ message: 'courseId must be a whole number' })
+  @Min(1, { message: 'courseId must be a whole number' })
+  courseId?: number;
+
+  @ApiPropertyOptional({ enum: KEY_KINDS })
+  @IsOptional()
+  @IsIn(KEY_KINDS, { message: `kind must be one of ${KEY_KINDS.join(', ')}` })
+  kind?: KeyKind;
+}

@@ -1,0 +1,45 @@
+import { ApiProperty, ApiPropertyOptional } from '@nestjs/swagger';
+import { Type } from 'class-transformer';
+import {
+  ArrayMaxSize,
+  IsArray,
+  IsBoolean,
+  IsInt,
+  IsPositive,
+  IsString,
+  MaxLength,
+  ValidateIf,
+  ValidateNested,
+} from 'class-validator';
+import { Trim } from '../../common/decorators/trim.decorator.js';
+
+export class MarkDto {
+  @ApiProperty({ example: 41 })
+  @IsInt({ message: 'keyItemId must be a whole number' })
+  @IsPositive({ message: 'keyItemId must be a whole number' })
+  keyItemId: number;
+
+  @ApiProperty({ example: false })
+  @IsBoolean({ message: 'correct must be true or false' })
+  correct: boolean;
+
+  @ApiPropertyOptional({
+    example: '1,138',
+    nullable: true,
+    description: 'The child’s answer as written (wanted for wrong items)',
+  })
+  @ValidateIf((_, v) => v !== null && v !== undefined)
+  @Trim()
+  @IsString({ message: 'answer must be text' })
+  @MaxLength(80, { message: 'answer must be at most 80 characters' })
+  answer?: string | null;
+}
+
+export class PutMarksDto {
+  @ApiProperty({ type: [MarkDto], description: 'Every marked item; items left out are unmarked' })
+  @IsArray({ message: 'marks must be a list' })
+  @ArrayMaxSize(300, { message: 'marks can hold at most 300 items' })
+  @ValidateNested({ each: true })
+  @Type(() => MarkDto)
+  marks: MarkDto[];
+}
