@@ -1,4 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { fixture } from './support/photos.js';
 import { listApiRoutes } from './support/routes.js';
 import {
   Client,
@@ -16,14 +17,25 @@ type Method = 'get' | 'post' | 'put' | 'patch' | 'delete';
 interface Ids {
   /** A student the actor's request targets: the granted one, or the other for tutorUngranted. */
   student: number;
+  /** A miss of that student, and a photo of that miss. */
+  miss: number;
+  photo: number;
+  /** The household's course, lesson and answer key, and a sitting of the student on that key. */
+  course: number;
+  lesson: number;
+  key: number;
+  keyItem: number;
+  sitting: number;
 }
 
 interface Case {
   route: string;
   path: (ids: Ids) => string;
-  body?: object;
+  body?: object | ((ids: Ids) => object);
   /** Use a fresh session and fresh target for each actor (the call changes them). */
   destructive?: boolean;
+  /** How a destructive case makes its fresh target (default: a new student). */
+  fresh?: (student: number) => Promise<Partial<Ids>>;
   expect: Record<Actor, number>;
 }
 
@@ -64,6 +76,8 @@ const CASES: Case[] = [
     path: () => '/api/households/current',
     expect: members(200),
   },
+  // Members, invitations, mail, password reset, export (membership ids and household 1 are the demo's, seeded first).
+  ...memberMailCases(),
   { route: 'GET /api/students', path: () => '/api/students', expect: members(200) },
   {
     route: 'POST /api/students',
@@ -88,12 +102,91 @@ const CASES: Case[] = [
     destructive: true,
     expect: { ...members(204), tutor: 403, tutorUngranted: 403, stranger: 404 },
   },
+  ...MISS_CASES(),
+  ...KEY_CASES(),
 ];
+
+function memberMailCases(): Case[] {
+  const editors = (ok: number, stranger = ok): Record<Actor, number> => ({
+    ...members(ok),
+    tutor: 403,
+    tutorUngranted: 403,
+    stranger,
+  });
+  const ownerOnly = (ok: number): Record<Actor, number> => ({ ...editors(ok), parent: 403 });
+  const token = 'a'.repeat(43);
+  return [
+    { route: 'GET /api/dev/outbox', path: () => '/api/dev/outbox', expect: same(200) },
+    {
+      route: 'POST /api/auth/password-reset',
+      path: () => '/api/auth/password-reset',
+      body: {},
+      expect: same(400),
+    },
+    {
+      route: 'POST /api/auth/password-reset/confirm',
+      path: () => '/api/auth/password-reset/confirm',
+      body: {},
+      expect: same(400),
+    },
+    {
+      route: 'POST /api/households/current',
+      path: () => '/api/households/current',
+      body: { householdId: 1 },
+      expect: { ...members(200, 404), stranger: 404 },
+    },
+    {
+      route: 'DELETE /api/households/current',
+      path: () => '/api/households/current',
+      body: { confirm: 'not the name' },
+      expect: ownerOnly(400),
+    },
+    { route: 'GET /api/export', path: () => '/api/export', expect: ownerOnly(200) },
+    { route: 'GET /api/invitations', path: () => '/api/invitations', expect: editors(200) },
+    {
+      route: 'POST /api/invitations',
+      path: () => '/api/invitations',
+      body: { email: 'matrix@example.test', role: 'parent' },
+      expect: editors(201),
+    },
+    {
+      route: 'DELETE /api/invitations/:id',
+      path: () => '/api/invitations/999999',
+      expect: editors(404),
+    },
+    {
+      route: 'GET /api/invitations/:token',
+      path: () => `/api/invitations/${token}`,
+      expect: same(404),
+    },
+    {
+      route: 'POST /api/invitations/:token/accept',
+      path: () => `/api/invitations/${token}/accept`,
+      body: {},
+      expect: same(404),
+    },
+    { route: 'GET /api/members', path: () => '/api/members', expect: editors(200) },
+    { route: 'GET /api/members/:id', path: () => '/api/members/1', expect: editors(200, 404) },
+    {
+      route: 'PATCH /api/members/:id',
+      path: () => '/api/members/1',
+      body: { role: 'owner' },
+      expect: { ...ownerOnly(200), stranger: 404 },
+    },
+    {
+      route: 'DELETE /api/members/:id',
+      path: () => '/api/members/1',
+      expect: { ...ownerOnly(409), stranger: 404 },
+    },
+  ];
+}
 
 let t: TestApp;
 let clients: Record<Actor, Client>;
 let granted: number;
 let ungranted: number;
+let targets: Record<number, { miss: number; photo: number }>;
+let keyTargets: Awaited<ReturnType<typeof freshKeyTargets>>;
 
 async function clientFor(actor: Actor): Promise<Client> {
   switch (actor) {
@@ -127,6 +220,9 @@ beforeAll(async () => {
   );
   granted = byName.get('Wren')!;
   ungranted = byName.get('Milo')!;
+  targets = {};
+  for (const student of [granted, ungranted]) targets[student] = await freshMiss(student);
+  keyTargets = await freshKeyTargets();
 });
 afterAll(() => t.close());
 
@@ -159,13 +255,297 @@ describe('access matrix', () => {
     async (_route, _actorName, status, c, actor) => {
       const client = c.destructive ? await clientFor(actor) : clients[actor];
       let student = actor === 'tutorUngranted' ? ungranted : granted;
-      if (c.destructive && c.route.includes(':id')) {
+      const ids: Ids = {
+        student,
+        ...targets[student]!,
+        ...keyTargets,
+        sitting: keyTargets.sittings[student]!,
+      };
+      if (c.destructive && c.fresh) {
+        Object.assign(ids, await c.fresh(student));
+      } else if (c.destructive && c.route.includes(':id')) {
         const fresh = await clients.owner.post('/api/students', { name: 'Temp', gradeLevel: '2' });
         student = fresh.body.id as number;
+        ids.student = student;
       }
       const method = c.route.split(' ')[0]!;
-      const res = await client.send(method.toLowerCase() as Method, c.path({ student }), c.body);
-      expect(res.status, `${c.route} as ${actor}: ${res.text.slice(0, 200)}`).toBe(status);
+      const body = typeof c.body === 'function' ? c.body(ids) : c.body;
+      const res = await client.send(method.toLowerCase() as Method, c.path(ids), body);
+      expect(res.status, `${c.route} as ${actor}: ${(res.text ?? '').slice(0, 200)}`).toBe(status);
     },
   );
 });
+
+/** A miss with one photo for a student, made by the owner. */
+async function freshMiss(student: number): Promise<{ miss: number; photo: number }> {
+  const owner = clients.owner;
+  const res = await owner.agent
+    .post('/api/misses')
+    .set('x-csrf-token', owner.token)
+    .field('studentId', String(student))
+    .field('occurredOn', '2026-01-05')
+    .field('problem', '304 - 75')
+    .field('answer', '139')
+    .attach('photos', fixture('sheet.png'), { filename: 'a.png', contentType: 'image/png' });
+  if (res.status !== 201) throw new Error(`fresh miss: ${res.status} ${res.text}`);
+  return { miss: res.body.id as number, photo: res.body.photos[0].id as number };
+}
+
+function MISS_CASES(): Case[] {
+  const scoped = (ok: number) => ({ ...members(ok), tutorUngranted: 404, stranger: 404 });
+  const editors = (ok: number) => ({ ...scoped(ok), tutor: 403, tutorUngranted: 403 });
+  return [
+    { route: 'GET /api/misses', path: () => '/api/misses', expect: members(200) },
+    {
+      route: 'POST /api/misses',
+      path: () => '/api/misses',
+      body: ({ student }) => ({
+        studentId: student,
+        occurredOn: '2026-01-05',
+        problem: '81 - 38',
+        answer: '57',
+      }),
+      expect: editors(201),
+    },
+    {
+      route: 'GET /api/misses/:id',
+      path: ({ miss }) => `/api/misses/${miss}`,
+      expect: scoped(200),
+    },
+    {
+      route: 'PATCH /api/misses/:id',
+      path: ({ miss }) => `/api/misses/${miss}`,
+      body: { status: 'discussed' },
+      expect: editors(200),
+    },
+    {
+      route: 'DELETE /api/misses/:id',
+      path: ({ miss }) => `/api/misses/${miss}`,
+      destructive: true,
+      fresh: freshMiss,
+      expect: editors(204),
+    },
+    {
+      // A JSON request carries no files: the owner gets the "attach photos" refusal.
+      route: 'POST /api/misses/:id/photos',
+      path: ({ miss }) => `/api/misses/${miss}/photos`,
+      expect: editors(400),
+    },
+    {
+      route: 'GET /api/photos/:id/image',
+      path: ({ photo }) => `/api/photos/${photo}/image`,
+      expect: scoped(200),
+    },
+    {
+      route: 'GET /api/photos/:id/thumb',
+      path: ({ photo }) => `/api/photos/${photo}/thumb`,
+      expect: scoped(200),
+    },
+    {
+      route: 'PUT /api/photos/:id/marks',
+      path: ({ photo }) => `/api/photos/${photo}/marks`,
+      body: { marks: [{ x: 0.5, y: 0.5, label: 'here' }] },
+      expect: scoped(200),
+    },
+    {
+      route: 'DELETE /api/photos/:id',
+      path: ({ photo }) => `/api/photos/${photo}`,
+      destructive: true,
+      fresh: freshMiss,
+      expect: editors(204),
+    },
+    { route: 'GET /api/notes', path: () => '/api/notes', expect: members(200) },
+    {
+      route: 'POST /api/notes',
+      path: () => '/api/notes',
+      body: ({ miss }) => ({ missId: miss, body: 'Looked at this together.' }),
+      expect: scoped(201),
+    },
+    {
+      route: 'POST /api/diagnose',
+      path: () => '/api/diagnose',
+      body: { problem: '81 - 38', answer: '57' },
+      expect: members(200),
+    },
+  ];
+}
+
+/** A course with a lesson, a key on it, and a sitting of each demo child, made by the owner. */
+async function freshKeyTargets() {
+  const owner = clients.owner;
+  const course = (await owner.post('/api/courses', { name: 'Matrix course' }).expect(201)).body;
+  const lesson = (
+    await owner.post(`/api/courses/${course.id}/lessons`, { number: 1, title: 'One' }).expect(201)
+  ).body;
+  const key = (
+    await owner
+      .post('/api/answer-keys', {
+        title: 'Matrix key',
+        kind: 'review',
+        courseId: course.id,
+        items: [{ number: 1, prompt: '81 - 38', answer: '43', revisit: ['1'] }],
+      })
+      .expect(201)
+  ).body;
+  const sittings: Record<number, number> = {};
+  for (const student of [granted, ungranted]) {
+    const s = await owner
+      .post('/api/sittings', {
+        studentId: student,
+        answerKeyId: key.id,
+        startedAt: '2026-01-05T09:00',
+      })
+      .expect(201);
+    sittings[student] = s.body.id as number;
+  }
+  return {
+    course: course.id as number,
+    lesson: lesson.id as number,
+    key: key.id as number,
+    keyItem: key.items[0].id as number,
+    sittings,
+  };
+}
+
+let lessonNumber = 100;
+
+function KEY_CASES(): Case[] {
+  // Courses and keys belong to the household (a tutor reads them all); sittings follow grants.
+  const household = (ok: number) => ({ ...members(ok), stranger: 404 });
+  const householdEdit = (ok: number) => ({ ...household(ok), tutor: 403, tutorUngranted: 403 });
+  const create = (ok: number) => ({ ...members(ok), tutor: 403, tutorUngranted: 403 });
+  const scoped = (ok: number) => ({ ...members(ok), tutorUngranted: 404, stranger: 404 });
+  const editors = (ok: number) => ({ ...scoped(ok), tutor: 403, tutorUngranted: 403 });
+  const emptyCourse = async () => ({
+    course: (await clients.owner.post('/api/courses', { name: 'Temp course' })).body.id as number,
+  });
+  return [
+    { route: 'GET /api/courses', path: () => '/api/courses', expect: members(200) },
+    {
+      route: 'POST /api/courses',
+      path: () => '/api/courses',
+      body: { name: 'Matrix' },
+      expect: create(201),
+    },
+    {
+      route: 'GET /api/courses/:id',
+      path: ({ course }) => `/api/courses/${course}`,
+      expect: household(200),
+    },
+    {
+      route: 'PATCH /api/courses/:id',
+      path: ({ course }) => `/api/courses/${course}`,
+      body: { level: 'Level 2' },
+      expect: householdEdit(200),
+    },
+    {
+      route: 'DELETE /api/courses/:id',
+      path: ({ course }) => `/api/courses/${course}`,
+      destructive: true,
+      fresh: emptyCourse,
+      expect: householdEdit(204),
+    },
+    {
+      route: 'GET /api/courses/:id/lessons',
+      path: ({ course }) => `/api/courses/${course}/lessons`,
+      expect: household(200),
+    },
+    {
+      route: 'POST /api/courses/:id/lessons',
+      path: ({ course }) => `/api/courses/${course}/lessons`,
+      body: () => ({ number: lessonNumber++, title: 'Matrix lesson' }),
+      expect: householdEdit(201),
+    },
+    {
+      route: 'PATCH /api/lessons/:id',
+      path: ({ lesson }) => `/api/lessons/${lesson}`,
+      body: { title: 'Renamed' },
+      expect: householdEdit(200),
+    },
+    {
+      route: 'DELETE /api/lessons/:id',
+      path: ({ lesson }) => `/api/lessons/${lesson}`,
+      destructive: true,
+      fresh: async () => {
+        const { course } = await emptyCourse();
+        const res = await clients.owner.post(`/api/courses/${course}/lessons`, {
+          number: 1,
+          title: 'Temp',
+        });
+        return { lesson: res.body.id as number };
+      },
+      expect: householdEdit(204),
+    },
+    { route: 'GET /api/answer-keys', path: () => '/api/answer-keys', expect: members(200) },
+    {
+      route: 'POST /api/answer-keys',
+      path: () => '/api/answer-keys',
+      body: { title: 'Matrix', kind: 'worksheet', items: [] },
+      expect: create(201),
+    },
+    {
+      // A JSON request is not an upload: those who may import get 415.
+      route: 'POST /api/answer-keys/import',
+      path: () => '/api/answer-keys/import',
+      body: { title: 'Matrix', kind: 'worksheet' },
+      expect: create(415),
+    },
+    {
+      route: 'GET /api/answer-keys/:id',
+      path: ({ key }) => `/api/answer-keys/${key}`,
+      expect: household(200),
+    },
+    {
+      route: 'GET /api/answer-keys/:id/export.csv',
+      path: ({ key }) => `/api/answer-keys/${key}/export.csv`,
+      expect: household(200),
+    },
+    {
+      route: 'PATCH /api/answer-keys/:id',
+      path: ({ key }) => `/api/answer-keys/${key}`,
+      body: { title: 'Matrix key' },
+      expect: householdEdit(200),
+    },
+    {
+      route: 'DELETE /api/answer-keys/:id',
+      path: ({ key }) => `/api/answer-keys/${key}`,
+      destructive: true,
+      fresh: async () => {
+        const res = await clients.owner.post('/api/answer-keys', {
+          title: 'Temp key',
+          kind: 'review',
+          items: [],
+        });
+        return { key: res.body.id as number };
+      },
+      expect: householdEdit(204),
+    },
+    { route: 'GET /api/sittings', path: () => '/api/sittings', expect: members(200) },
+    {
+      route: 'POST /api/sittings',
+      path: () => '/api/sittings',
+      body: ({ student, key }) => ({
+        studentId: student,
+        answerKeyId: key,
+        startedAt: '2026-01-06T15:00',
+      }),
+      expect: editors(201),
+    },
+    {
+      route: 'GET /api/sittings/:id',
+      path: ({ sitting }) => `/api/sittings/${sitting}`,
+      expect: scoped(200),
+    },
+    {
+      route: 'PUT /api/sittings/:id/marks',
+      path: ({ sitting }) => `/api/sittings/${sitting}/marks`,
+      body: ({ keyItem }) => ({ marks: [{ keyItemId: keyItem, correct: true }] }),
+      expect: editors(200),
+    },
+    {
+      route: 'GET /api/students/:id/sittings/summary',
+      path: ({ student }) => `/api/students/${student}/sittings/summary`,
+      expect: scoped(200),
+    },
+  ];
+}

@@ -1,0 +1,48 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { type Client, DEMO, signedIn, startTestApp, type TestApp } from './support/test-app.js';
+
+let t: TestApp;
+let tutor: Client;
+
+beforeAll(async () => {
+  t = await startTestApp();
+  tutor = await signedIn(t, DEMO.tutor);
+});
+afterAll(() => t.close());
+
+describe('POST /api/diagnose', () => {
+  it('answers the engine’s diagnosis for the form’s preview', async () => {
+    const res = await tutor.post('/api/diagnose', { problem: '81 - 38', answer: '57' }).expect(200);
+    // 81 − 38 = 43; writing 57 is SMALLER-FROM-LARGER (Brown & Burton 1978; from memory).
+    expect(res.body).toMatchObject({ expected: String(81 - 38), correct: false });
+    expect(res.body.rules[0].id).toBe('sub.smaller-from-larger');
+    expect(res.body.engineVersion).toEqual(expect.any(String));
+    expect(res.body.trace.expected).toBeTypeOf('object');
+  });
+
+  it('checks written steps and says a right answer is right', async () => {
+    // 34 × 12 = 408 with partial products 68 and 340 (common practice, no source).
+    const res = await tutor
+      .post('/api/diagnose', {
+        problem: '34 x 12',
+        answer: '408',
+        steps: { partials: ['68', '340'] },
+      })
+      .expect(200);
+    expect(res.body).toMatchObject({ expected: String(34 * 12), correct: true, rules: [] });
+  });
+
+  it.each([
+    [{ problem: '304 $ 75', answer: '1' }, 422, 'problem'],
+    [{ problem: '304 - 75', answer: 'lots' }, 422, 'answer'],
+    [{ problem: '34 x 12', answer: '408', steps: { partials: ['six'] } }, 422, 'steps'],
+    [{ problem: '', answer: '1' }, 400, 'problem'],
+    [{ problem: '1 + 1' }, 400, 'answer'],
+    [{ problem: '1 + 1', answer: '2', steps: [1] }, 400, 'steps'],
+    [{ problem: 'x'.repeat(201), answer: '2' }, 400, 'problem'],
+  ])('refuses %j with %i naming %s', async (body, status, field) => {
+    const res = await tutor.post('/api/diagnose', body).expect(status);
+    expect(res.body.fields).toHaveProperty(field);
+    expect(res.body.message.length).toBeGreaterThan(5);
+  });
+});
