@@ -31,9 +31,9 @@ const wholeFromText = ({ value }: { value: unknown }) =>
 export class AnswerKeyFieldsDto {
   @ApiProperty({ example: 'Worksheet 14', maxLength: 120 })
   @Trim()
-  @IsString()
   @Length(1, 120, { message: 'title must be 1 to 120 characters' })
   @Matches(/\S/, { message: 'title must not be blank' })
+  @IsString()
   title: string;
 
   @ApiProperty({ enum: KEY_KINDS })
@@ -49,17 +49,17 @@ export class AnswerKeyFieldsDto {
   @ApiPropertyOptional({ example: 14, nullable: true })
   @IsOptional()
   @Transform(wholeFromText)
-  @IsInt({ message: 'lessonNumber must be a whole number' })
   @Min(1, { message: 'lessonNumber must be 1 or more' })
   @Max(9999, { message: 'lessonNumber must be at most 9999' })
+  @IsInt({ message: 'lessonNumber must be a whole number' })
   lessonNumber?: number | null;
 }
 
 export class CreateAnswerKeyDto extends AnswerKeyFieldsDto {
   @ApiProperty({ type: [KeyItemDto] })
-  @IsArray({ message: 'items must be a list' })
+  @Type(() => KeyItemDto)
   @ArrayMaxSize(MAX_KEY_ITEMS, { message: `a key holds at most ${MAX_KEY_ITEMS} items` })
   @ValidateNested({ each: true })
-  @Type(() => KeyItemDto)
+  @IsArray({ message: 'items must be a list' })
   items: KeyItemDto[];
 }

@@ -22,32 +22,32 @@ const numbersAsText = ({ value }: { value: unknown }) =>
 /** One numbered item of an answer key, as typed or imported. */
 export class KeyItemDto {
   @ApiProperty({ example: 12, minimum: 1, maximum: 999 })
-  @IsInt({ message: 'number must be a whole number' })
   @Min(1, { message: 'number must be 1 or more' })
   @Max(999, { message: 'number must be at most 999' })
+  @IsInt({ message: 'number must be a whole number' })
   number: number;
 
   @ApiProperty({ example: '47 x 24', maxLength: 200 })
   @Trim()
-  @IsString({ message: 'prompt must be text' })
   @Length(1, 200, { message: 'prompt must be 1 to 200 characters' })
   @Matches(/^[^\r\n]*$/, { message: 'prompt must be on one line' })
+  @IsString({ message: 'prompt must be text' })
   prompt: string;
 
   @ApiProperty({ example: '1,128', maxLength: 80 })
   @Trim()
-  @IsString({ message: 'answer must be text' })
   @Length(1, 80, { message: 'answer is missing (1 to 80 characters)' })
   @Matches(/^[^\r\n]*$/, { message: 'answer must be on one line' })
+  @IsString({ message: 'answer must be text' })
   answer: string;
 
   @ApiPropertyOptional({ type: [String], example: ['partial products'] })
   @IsOptional()
   @Transform(trimList)
-  @IsArray({ message: 'skills must be a list' })
   @ArrayMaxSize(12, { message: 'skills can hold at most 12 entries' })
-  @IsString({ each: true, message: 'each skill must be text' })
   @Length(1, 60, { each: true, message: 'each skill must be 1 to 60 characters' })
+  @IsString({ each: true, message: 'each skill must be text' })
+  @IsArray({ message: 'skills must be a list' })
   skills?: string[];
 
   @ApiPropertyOptional({
@@ -57,18 +57,18 @@ export class KeyItemDto {
   })
   @IsOptional()
   @Transform(numbersAsText)
-  @IsArray({ message: 'revisit must be a list of lesson numbers or ranges' })
   @ArrayMaxSize(20, { message: 'revisit can hold at most 20 entries' })
   @IsString({ each: true, message: 'each lesson to revisit must be a number or a range' })
+  @IsArray({ message: 'revisit must be a list of lesson numbers or ranges' })
   revisit?: string[];
 
   @ApiPropertyOptional({ type: [String], example: ['sixes'], description: 'Fact families' })
   @IsOptional()
   @Transform(trimList)
-  @IsArray({ message: 'facts must be a list' })
   @ArrayMaxSize(6, { message: 'facts can hold at most 6 entries' })
-  @IsString({ each: true, message: 'each fact family must be text' })
   @Length(1, 40, { each: true, message: 'each fact family must be 1 to 40 characters' })
+  @IsString({ each: true, message: 'each fact family must be text' })
+  @IsArray({ message: 'facts must be a list' })
   facts?: string[];
 }
 

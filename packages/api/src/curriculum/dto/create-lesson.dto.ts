@@ -18,24 +18,24 @@ export const trimList = ({ value }: { value: unknown }) =>
 
 export class CreateLessonDto {
   @ApiProperty({ example: 12, minimum: 1, maximum: 9999 })
-  @IsInt({ message: 'number must be a whole number' })
   @Min(1, { message: 'number must be 1 or more' })
   @Max(9999, { message: 'number must be at most 9999' })
+  @IsInt({ message: 'number must be a whole number' })
   number: number;
 
   @ApiProperty({ example: 'Subtracting across zeros', maxLength: 120 })
   @Trim()
-  @IsString()
   @Length(1, 120, { message: 'title must be 1 to 120 characters' })
   @Matches(/\S/, { message: 'title must not be blank' })
+  @IsString()
   title: string;
 
   @ApiPropertyOptional({ type: [String], example: ['regrouping', 'subtraction'] })
   @IsOptional()
   @Transform(trimList)
-  @IsArray({ message: 'skills must be a list of words' })
   @ArrayMaxSize(12, { message: 'skills can hold at most 12 entries' })
-  @IsString({ each: true, message: 'each skill must be text' })
   @Length(1, 60, { each: true, message: 'each skill must be 1 to 60 characters' })
+  @IsString({ each: true, message: 'each skill must be text' })
+  @IsArray({ message: 'skills must be a list of words' })
   skills?: string[];
 }

@@ -30,20 +30,20 @@ export class SittingConditionsDto {
   @ApiPropertyOptional({ example: 'a bit distracted by the rain', maxLength: 300 })
   @ValidateIf(notNull)
   @Trim()
-  @IsString({ message: 'conditions.note must be text' })
   @MaxLength(300, { message: 'conditions.note must be at most 300 characters' })
+  @IsString({ message: 'conditions.note must be text' })
   note?: string | null;
 }
 
 export class CreateSittingDto {
   @ApiProperty({ example: 1 })
-  @IsInt({ message: 'studentId must be a whole number' })
   @IsPositive({ message: 'studentId must be a whole number' })
+  @IsInt({ message: 'studentId must be a whole number' })
   studentId: number;
 
   @ApiProperty({ example: 3 })
-  @IsInt({ message: 'answerKeyId must be a whole number' })
   @IsPositive({ message: 'answerKeyId must be a whole number' })
+  @IsInt({ message: 'answerKeyId must be a whole number' })
   answerKeyId: number;
 
   @ApiProperty({
@@ -55,14 +55,14 @@ export class CreateSittingDto {
 
   @ApiPropertyOptional({ example: 25, nullable: true, minimum: 1, maximum: 600 })
   @ValidateIf(notNull)
-  @IsInt({ message: 'minutes must be a whole number' })
   @Min(1, { message: 'minutes must be 1 or more' })
   @Max(600, { message: 'minutes must be at most 600' })
+  @IsInt({ message: 'minutes must be a whole number' })
   minutes?: number | null;
 
   @ApiPropertyOptional({ type: SittingConditionsDto })
   @IsOptional()
-  @ValidateNested()
   @Type(() => SittingConditionsDto)
+  @ValidateNested()
   conditions?: SittingConditionsDto;
 }

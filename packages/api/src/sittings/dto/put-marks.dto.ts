@@ -15,8 +15,8 @@ import { Trim } from '../../common/decorators/trim.decorator.js';
 
 export class MarkDto {
   @ApiProperty({ example: 41 })
-  @IsInt({ message: 'keyItemId must be a whole number' })
   @IsPositive({ message: 'keyItemId must be a whole number' })
+  @IsInt({ message: 'keyItemId must be a whole number' })
   keyItemId: number;
 
   @ApiProperty({ example: false })
@@ -30,16 +30,16 @@ export class MarkDto {
   })
   @ValidateIf((_, v) => v !== null && v !== undefined)
   @Trim()
-  @IsString({ message: 'answer must be text' })
   @MaxLength(80, { message: 'answer must be at most 80 characters' })
+  @IsString({ message: 'answer must be text' })
   answer?: string | null;
 }
 
 export class PutMarksDto {
   @ApiProperty({ type: [MarkDto], description: 'Every marked item; items left out are unmarked' })
-  @IsArray({ message: 'marks must be a list' })
+  @Type(() => MarkDto)
   @ArrayMaxSize(300, { message: 'marks can hold at most 300 items' })
   @ValidateNested({ each: true })
-  @Type(() => MarkDto)
+  @IsArray({ message: 'marks must be a list' })
   marks: MarkDto[];
 }
