@@ -39,7 +39,7 @@ export interface RuleMatch {
 
 /** The child's written intermediate steps, when the parent enters them. */
 export interface WrittenSteps {
-  /** Long multiplication: the partial products as written, top to bottom (ones digit of the multiplier first). */
+  /** Long multiplication: the partial products as written, top to bottom (ones digit of the multiplier first), with their placeholder zeros (68, 340). */
   readonly partials?: readonly string[];
   /** Long division: the quotient digits and numbers written under the dividend, in order (product, difference, …). */
   readonly lines?: readonly string[];

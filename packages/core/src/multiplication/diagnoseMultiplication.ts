@@ -129,7 +129,7 @@ function partialsAgree(trace: LongMultiplicationTrace, written: readonly string[
   if (written.length !== trace.partials.length) return false;
   return trace.partials.every((p, i) => {
     const w = written[i] as string;
-    return sameNumber(w, p.value) || sameNumber(w, p.digits);
+    return sameNumber(w, p.value);
   });
 }
 
@@ -334,7 +334,7 @@ function firstWrongStepOf(
     for (let i = 0; i < trace.partials.length; i += 1) {
       const p = trace.partials[i] as PartialProduct;
       const w = partials[i];
-      if (w !== undefined && (sameNumber(w, p.value) || sameNumber(w, p.digits))) continue;
+      if (w !== undefined && sameNumber(w, p.value)) continue;
       const label = `partial product ${i + 1}`;
       return {
         place: label,

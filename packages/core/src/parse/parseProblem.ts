@@ -1,14 +1,7 @@
 import { compareWhole } from '../numbers/digits.js';
 import { formatExpression, formatFraction } from './formatProblem.js';
 import { MAX_DIGITS, readWhole } from './readWhole.js';
-import type {
-  Fraction,
-  Operation,
-  ParsedProblem,
-  Problem,
-  ReadError,
-  RoundingPlace,
-} from './types.js';
+import type { Fraction, Operation, ParsedProblem, ReadError, RoundingPlace } from './types.js';
 
 type Token =
   | { t: 'num'; text: string; at: number }

@@ -6,6 +6,7 @@ import { digitSlipBesideRule } from '../diagnose/digitSlipBesideRule.js';
 import { findFactSlip, nearSlip, type FactCell } from '../diagnose/findFactSlip.js';
 import { firstWrongColumn } from '../diagnose/firstWrongColumn.js';
 import type { Candidate, FactError, Findings } from '../diagnose/types.js';
+import { runSubtraction } from './runSubtraction.js';
 import { subtractColumns, type SubtractionMethod, type SubtractionRun } from './subtractColumns.js';
 
 type SubtractionProblem = Extract<Problem, { kind: 'subtraction' }>;
@@ -146,11 +147,19 @@ export function diagnoseSubtraction(problem: SubtractionProblem, answer: Answer)
 
   const matches: Candidate[] = [];
   const outcome = describeOutcome(problem.text, written, expected);
-  const singles: { rule: SubtractionRule; run: SubtractionRun | null }[] = [];
+  const { minuend, subtrahend } = problem;
+  // Trial runs skip the trace; the working is drawn again only for the methods that match.
+  const traced = (method: SubtractionMethod): SubtractionRun =>
+    subtractColumns(minuend, subtrahend, method) as SubtractionRun;
+  const singles: {
+    rule: SubtractionRule;
+    run: { result: string; fired: SubtractionRun['fired'] } | null;
+  }[] = [];
   for (const rule of SUBTRACTION_RULES) {
-    const run = subtractColumns(problem.minuend, problem.subtrahend, rule.method);
-    singles.push({ rule, run });
-    if (run !== null && run.result === written) {
+    const trial = runSubtraction(minuend, subtrahend, rule.method, false);
+    singles.push({ rule, run: trial });
+    if (trial !== null && trial.result === written) {
+      const run = traced(rule.method);
       matches.push({
         ids: [rule.id],
         explanation: `${rule.explain(problem, run)} ${outcome}`,
@@ -187,17 +196,16 @@ export function diagnoseSubtraction(problem: SubtractionProblem, answer: Answer)
       const b = singles[j] as (typeof singles)[number];
       if (b.run === null || b.run.result === written || conflict(a.rule.method, b.rule.method))
         continue;
-      const run = subtractColumns(problem.minuend, problem.subtrahend, {
-        ...a.rule.method,
-        ...b.rule.method,
-      });
+      const merged = { ...a.rule.method, ...b.rule.method };
+      const trial = runSubtraction(minuend, subtrahend, merged, false);
       if (
-        run === null ||
-        run.result !== written ||
-        run.result === a.run.result ||
-        run.result === b.run.result
+        trial === null ||
+        trial.result !== written ||
+        trial.result === a.run.result ||
+        trial.result === b.run.result
       )
         continue;
+      const run = traced(merged);
       matches.push({
         ids: [a.rule.id, b.rule.id],
         explanation: `Two things happened together. ${a.rule.explain(problem, run)} ${b.rule.explain(problem, run)} ${outcome}`,
@@ -206,16 +214,13 @@ export function diagnoseSubtraction(problem: SubtractionProblem, answer: Answer)
       });
     }
   }
-  for (const { rule, run } of singles) {
-    if (run === null || run.result === expected || run.result === written) continue;
-    const fired = run.fired.map((f) => f.column);
-    const beside = digitSlipBesideRule(
-      run.result,
-      written,
-      fired,
-      run.trace.columns.map(() => 1),
-    );
+  const oneDigitEach = correct.trace.columns.map(() => 1);
+  for (const { rule, run: trial } of singles) {
+    if (trial === null || trial.result === expected || trial.result === written) continue;
+    const fired = trial.fired.map((f) => f.column);
+    const beside = digitSlipBesideRule(trial.result, written, fired, oneDigitEach);
     if (beside === null) continue;
+    const run = traced(rule.method);
     const fact = factError(col(run, beside.column), beside.childDigit);
     if (fact === null || !nearSlip(fact.expected, fact.written)) continue;
     matches.push({

@@ -1,0 +1,80 @@
+// Diagnoses per second and median microseconds per diagnosis, for 2-, 3- and 4-digit
+// problems of each operation, with the full catalog and pairs. Run: npm run bench -w packages/core
+import { diagnose } from '../src/index.js';
+import { applyRule } from '../src/rules/applyRule.js';
+import { parseProblem } from '../src/parse/parseProblem.js';
+import { seededRandom } from '../src/practice/seededRandom.js';
+
+const random = seededRandom(2026);
+const digitsOf = (n: number): string => {
+  let s = String(1 + Math.floor(random() * 9));
+  for (let i = 1; i < n; i += 1) s += String(Math.floor(random() * 10));
+  return s;
+};
+
+type Maker = (d: number) => string;
+const makers: Record<string, Maker> = {
+  addition: (d) => `${digitsOf(d)} + ${digitsOf(d)}`,
+  subtraction: (d) => {
+    const a = digitsOf(d);
+    const b = digitsOf(d);
+    return BigInt(a) >= BigInt(b) ? `${a} - ${b}` : `${b} - ${a}`;
+  },
+  multiplication: (d) => `${digitsOf(d)} x ${digitsOf(Math.max(1, d - 1))}`,
+  division: (d) => `${digitsOf(d)} ÷ ${digitsOf(1)}`,
+  rounding: (d) => `round ${digitsOf(d)} to the nearest ${d > 3 ? 'hundred' : 'ten'}`,
+  missing: (d) => `? + ${digitsOf(d)} = ${digitsOf(d + 1)}`,
+};
+const ruleFor: Record<string, string> = {
+  addition: 'add.no-carry',
+  subtraction: 'sub.smaller-from-larger',
+  multiplication: 'mul.no-carry',
+  division: 'div.remainders-dropped',
+  rounding: 'round.truncated',
+  missing: 'missing.used-wrong-operation',
+};
+
+/** Problems with a wrong answer (a rule's answer when it differs, else the right answer plus one). */
+function cases(kind: string, d: number, n: number): [string, string][] {
+  const out: [string, string][] = [];
+  while (out.length < n) {
+    const text = (makers[kind] as Maker)(d);
+    const parsed = parseProblem(text);
+    if (!parsed.ok) continue;
+    const right = diagnose(text, '0');
+    if (!right.ok) continue;
+    const wrong = applyRule(ruleFor[kind] as string, parsed.problem).find(
+      (a) => a !== right.expected,
+    );
+    const plusOne = /^\d+$/.test(right.expected)
+      ? (BigInt(right.expected) + 1n).toString()
+      : right.expected;
+    out.push([text, wrong ?? plusOne]);
+  }
+  return out;
+}
+
+const rows: string[] = [];
+for (const kind of Object.keys(makers)) {
+  for (const d of [2, 3, 4]) {
+    const set = cases(kind, d, 400);
+    for (let w = 0; w < 3; w += 1) for (const [p, a] of set) diagnose(p, a);
+    const times: number[] = [];
+    const start = process.hrtime.bigint();
+    for (let rep = 0; rep < 5; rep += 1) {
+      for (const [p, a] of set) {
+        const t0 = process.hrtime.bigint();
+        diagnose(p, a);
+        times.push(Number(process.hrtime.bigint() - t0) / 1000);
+      }
+    }
+    const total = Number(process.hrtime.bigint() - start) / 1e9;
+    times.sort((x, y) => x - y);
+    const median = times[Math.floor(times.length / 2)] as number;
+    rows.push(
+      `${kind.padEnd(15)} ${String(d).padStart(6)}   ${String(Math.round(times.length / total)).padStart(10)}   ${median.toFixed(1).padStart(8)}`,
+    );
+  }
+}
+console.log('operation       digits   diagnoses/s   median µs');
+for (const r of rows) console.log(r);

@@ -1,0 +1,102 @@
+import { describe, expect, it } from 'vitest';
+import { main } from './main.js';
+
+function run(...argv: string[]): { code: number; out: string; err: string } {
+  let out = '';
+  let err = '';
+  const code = main(
+    argv,
+    { write: (s: string) => (out += s) },
+    { write: (s: string) => (err += s) },
+  );
+  return { code, out, err };
+}
+
+describe('the workback CLI', () => {
+  it('diagnose --json names sub.borrow-across-zero with the working trace (issue 3)', () => {
+    const { code, out, err } = run('diagnose', '304 - 75', '139', '--json');
+    expect(code).toBe(0);
+    expect(err).toBe('');
+    const d = JSON.parse(out);
+    expect(d.rules[0].id).toBe('sub.borrow-across-zero');
+    expect(d.trace.expected.kind).toBe('column-subtraction');
+    expect(d.trace.child.working.result).toBe('139');
+  });
+
+  it('prints a readable diagnosis by default', () => {
+    const { code, out } = run('diagnose', '81 - 38', '57');
+    expect(code).toBe(0);
+    expect(out).toContain('Expected: 43');
+    expect(out).toContain('sub.smaller-from-larger');
+    expect(out).toContain('Casting out nines');
+  });
+
+  it('exits 0 for a right answer too', () => {
+    const { code, out } = run('diagnose', '81 - 38', '43');
+    expect(code).toBe(0);
+    expect(out).toContain('The answer is right.');
+  });
+
+  it('takes written steps', () => {
+    const { code, out } = run(
+      'diagnose',
+      '34 x 12',
+      '418',
+      '--steps',
+      '{"partials":["68","340"]}',
+      '--json',
+    );
+    expect(code).toBe(0);
+    expect(JSON.parse(out).rules[0].id).toBe('mul.partials-added-wrong');
+  });
+
+  it('nines prints both checks', () => {
+    const { code, out } = run('nines', '347 + 589', '936', '--json');
+    expect(code).toBe(0);
+    const j = JSON.parse(out);
+    expect(j.nines.passes).toBe(true);
+    expect(typeof j.elevens.passes).toBe('boolean');
+    expect(run('nines', '321 - 235', '68').out).toContain('The elevens check fails');
+  });
+
+  it('practice makes problems for a rule', () => {
+    const { code, out } = run(
+      'practice',
+      'sub.borrow-across-zero',
+      '--count',
+      '3',
+      '--digits',
+      '4',
+      '--seed',
+      '9',
+      '--json',
+    );
+    expect(code).toBe(0);
+    expect(JSON.parse(out).problems).toHaveLength(3);
+  });
+
+  it.each([
+    [['diagnose', '304 $ 75', '1'], /could not read the problem: I could not read “\$”/],
+    [['diagnose', '304 - 75', 'x'], /could not read the answer/],
+    [['diagnose', '304 - 75'], /needs a problem and an answer/],
+    [['diagnose', '34 x 12', '408', '--steps', '{oops'], /not valid JSON/],
+    [['nines', '1/2 + ', '1'], /could not read the problem/],
+    [['practice', 'no.such-rule'], /not a rule in the catalog/],
+    [['practice', 'sub.fact', '--count', 'many'], /--count needs a whole number/],
+    [['frobnicate'], /unknown command/],
+    [['diagnose', '1 + 1', '2', '--loud'], /unknown option --loud/],
+    [[], /no command/],
+  ])('exits 2 with one line on stderr for %j', (argv, message) => {
+    const { code, out, err } = run(...argv);
+    expect(code).toBe(2);
+    expect(out).toBe('');
+    expect(err).toMatch(message);
+    expect(err.trim().split('\n')).toHaveLength(1);
+  });
+
+  it('--help prints usage and exits 0', () => {
+    const { code, out } = run('--help');
+    expect(code).toBe(0);
+    expect(out).toContain('workback diagnose');
+  });
+});
