@@ -15,9 +15,13 @@ import { CurriculumModule } from './curriculum/curriculum.module.js';
 import { DatabaseModule } from './database/database.module.js';
 import { DiagnoseModule } from './diagnose/diagnose.module.js';
 import { HealthModule } from './health/health.module.js';
+import { HouseholdDataModule } from './household-data/household-data.module.js';
 import { HouseholdsModule } from './households/households.module.js';
+import { InvitationsModule } from './invitations/invitations.module.js';
+import { MailModule } from './mail/mail.module.js';
 import { MissesModule } from './misses/misses.module.js';
 import { NotesModule } from './notes/notes.module.js';
+import { PasswordResetsModule } from './password-resets/password-resets.module.js';
 import { PhotosModule } from './photos/photos.module.js';
 import { SeedModule } from './seed/seed.module.js';
 import { SessionsModule } from './sessions/sessions.module.js';
@@ -81,6 +85,10 @@ const emailOf = (req: Request) =>
     AnswerKeysModule,
     SittingsModule,
     NotesModule,
+    MailModule,
+    InvitationsModule,
+    PasswordResetsModule,
+    HouseholdDataModule,
     HealthModule,
     SeedModule,
   ],

@@ -10,6 +10,7 @@ import passport from 'passport';
 import { createValidationPipe } from './common/pipes/validation.pipe.js';
 import type { AppConfig } from './config/app.config.js';
 import { API_VERSION } from './health/health.controller.js';
+import { mountDevOutboxPage } from './mail/dev-outbox.page.js';
 import { SessionStoreService } from './sessions/session-store.service.js';
 
 const strictCsp = {
@@ -87,6 +88,7 @@ export function configureApp(app: NestExpressApplication, config: AppConfig): vo
   );
   SwaggerModule.setup('api/docs', app, document, { useGlobalPrefix: false });
 
+  mountDevOutboxPage(app);
   serveWebApp(app, config.webDist);
 }
 

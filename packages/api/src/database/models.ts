@@ -6,9 +6,12 @@ import { Lesson } from '../curriculum/models/lesson.model.js';
 import { Household } from '../households/models/household.model.js';
 import { Membership } from '../households/models/membership.model.js';
 import { StudentGrant } from '../households/models/student-grant.model.js';
+import { MissDiagnosis } from '../misses/models/miss-diagnosis.model.js';
 import { MissRule } from '../misses/models/miss-rule.model.js';
 import { Miss } from '../misses/models/miss.model.js';
 import { Note } from '../notes/models/note.model.js';
+import { Invitation } from '../invitations/models/invitation.model.js';
+import { PasswordResetToken } from '../password-resets/models/password-reset-token.model.js';
 import { PhotoMark } from '../photos/models/photo-mark.model.js';
 import { Photo } from '../photos/models/photo.model.js';
 import { SittingMark } from '../sittings/models/sitting-mark.model.js';
@@ -23,8 +26,11 @@ export const MODELS = [
   Membership,
   StudentGrant,
   Student,
+  Invitation,
+  PasswordResetToken,
   Miss,
   MissRule,
+  MissDiagnosis,
   Photo,
   PhotoMark,
   Note,

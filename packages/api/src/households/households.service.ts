@@ -1,4 +1,4 @@
-import { Injectable } from '@nestjs/common';
+import { Injectable, NotFoundException } from '@nestjs/common';
 import { InjectModel } from '@nestjs/sequelize';
 import { Role } from '@workback/core';
 import type { Transaction } from 'sequelize';
@@ -54,6 +54,13 @@ export class HouseholdsService {
       order: [['id', 'ASC']],
     });
     return memberships.map((m) => ({ id: m.householdId, name: m.household!.name, role: m.role }));
+  }
+
+  /** The user's membership of that household, or 404 (not there and not yours look the same). */
+  async findMembershipOf(userId: number, householdId: number): Promise<Membership> {
+    const membership = await this.membershipModel.findOne({ where: { userId, householdId } });
+    if (!membership) throw new NotFoundException(`No household ${householdId} of yours`);
+    return membership;
   }
 
   async findCurrent(member: MemberContext) {

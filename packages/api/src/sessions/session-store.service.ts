@@ -25,6 +25,19 @@ export class SessionStoreService implements OnApplicationShutdown {
     this.store = new SQLiteStore({ db: this.db });
   }
 
+  /** Ends every session of these users (passport keeps the user id in the session), but `exceptSid`. */
+  destroyForUsers(userIds: readonly number[], exceptSid = ''): Promise<void> {
+    if (userIds.length === 0) return Promise.resolve();
+    const marks = userIds.map(() => '?').join(', ');
+    return new Promise((resolve, reject) =>
+      this.db.run(
+        `DELETE FROM sessions WHERE json_extract(sess, '$.passport.user') IN (${marks}) AND sid != ?`,
+        [...userIds, exceptSid],
+        (err) => (err ? reject(err) : resolve()),
+      ),
+    );
+  }
+
   onApplicationShutdown(): Promise<void> {
     return new Promise((resolve) => this.db.close(() => resolve()));
   }

@@ -21,6 +21,14 @@ export class UsersService {
   ): Promise<User> {
     return this.userModel.create({ ...input, email: normalizeEmail(input.email) }, { transaction });
   }
+
+  async setPasswordHash(
+    id: number,
+    passwordHash: string,
+    transaction?: Transaction,
+  ): Promise<void> {
+    await this.userModel.update({ passwordHash }, { where: { id }, transaction });
+  }
 }
 
 export function normalizeEmail(email: string): string {

@@ -1,6 +1,7 @@
 import * as m0001 from './0001-foundation.js';
 import * as m0002 from './0002-misses.js';
 import * as m0003 from './0003-curriculum-keys-sittings.js';
+import * as m0004 from './0004-members-mail.js';
 
 /** Every migration in order; listed explicitly so src and dist behave alike. */
-export const MIGRATIONS = [m0001, m0002, m0003];
+export const MIGRATIONS = [m0001, m0002, m0003, m0004];

@@ -1,0 +1,11 @@
+import { Module } from '@nestjs/common';
+import { HouseholdsModule } from '../households/households.module.js';
+import { HouseholdDataController } from './household-data.controller.js';
+import { HouseholdDataService } from './household-data.service.js';
+
+@Module({
+  imports: [HouseholdsModule],
+  controllers: [HouseholdDataController],
+  providers: [HouseholdDataService],
+})
+export class HouseholdDataModule {}
