@@ -25,5 +25,6 @@ describe('graceful shutdown', () => {
     // The last connection to close checkpoints and removes the WAL: the databases were closed.
     expect(existsSync(path.join(dataDir, 'workback.sqlite-wal'))).toBe(false);
     expect(existsSync(path.join(dataDir, 'sessions.sqlite-wal'))).toBe(false);
-  });
+    // Starting through swc-node compiles src on the fly: slow on a loaded 2-core machine.
+  }, 180_000);
 });

@@ -28,7 +28,7 @@ export async function startServerProcess(env: Record<string, string>): Promise<S
     child.on('exit', (code, signal) => resolve({ code, signal })),
   );
   const url = await new Promise<string>((resolve, reject) => {
-    const timer = setTimeout(() => reject(new Error(`server did not start:\n${out}`)), 30_000);
+    const timer = setTimeout(() => reject(new Error(`server did not start:\n${out}`)), 150_000);
     const check = () => {
       const match = /running at (http:\/\/\S+)/.exec(out);
       if (match) {
