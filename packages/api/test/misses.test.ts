@@ -377,7 +377,7 @@ describe('POST /api/misses', () => {
       }
     });
 
-    it.each(['misses', 'miss_rules', 'photos'])(
+    it.each(['misses', 'miss_diagnoses', 'miss_rules', 'photos'])(
       'rolls back the rows and removes the files when inserting into %s fails',
       async (table) => {
         const sequelize = db(t);

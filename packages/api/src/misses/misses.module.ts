@@ -5,12 +5,13 @@ import { PhotosModule } from '../photos/photos.module.js';
 import { StudentsModule } from '../students/students.module.js';
 import { MissesController } from './misses.controller.js';
 import { MissesService } from './misses.service.js';
+import { MissDiagnosis } from './models/miss-diagnosis.model.js';
 import { MissRule } from './models/miss-rule.model.js';
 import { Miss } from './models/miss.model.js';
 
 @Module({
   imports: [
-    SequelizeModule.forFeature([Miss, MissRule]),
+    SequelizeModule.forFeature([Miss, MissRule, MissDiagnosis]),
     StudentsModule,
     PhotosModule,
     DiagnoseModule,

@@ -18,6 +18,7 @@ import type { CreateMissDto } from './dto/create-miss.dto.js';
 import type { ListMissesQuery } from './dto/list-misses.query.js';
 import type { UpdateMissDto } from './dto/update-miss.dto.js';
 import { missScope } from './miss-scope.js';
+import { MissDiagnosis } from './models/miss-diagnosis.model.js';
 import { MissRule } from './models/miss-rule.model.js';
 import { Miss } from './models/miss.model.js';
 
@@ -27,13 +28,12 @@ export interface MissLinks {
   keyItemId?: number | null;
 }
 
-const LIST_ATTRIBUTES = { exclude: ['diagnosis'] };
-
 @Injectable()
 export class MissesService {
   constructor(
     @InjectModel(Miss) private readonly missModel: typeof Miss,
     @InjectModel(MissRule) private readonly ruleModel: typeof MissRule,
+    @InjectModel(MissDiagnosis) private readonly diagnosisModel: typeof MissDiagnosis,
     @InjectConnection() private readonly sequelize: Sequelize,
     private readonly students: StudentsService,
     private readonly photos: PhotosService,
@@ -128,7 +128,6 @@ export class MissesService {
     const [total, rows] = await Promise.all([
       this.missModel.count({ where }),
       this.missModel.findAll({
-        attributes: LIST_ATTRIBUTES,
         where,
         order: sortOrder(query.sort ?? '-occurredOn'),
         limit: pageSize,
@@ -147,7 +146,8 @@ export class MissesService {
   async findOne(member: MemberContext, id: number) {
     const miss = await this.findModel(member, id);
     const photos = (await this.photos.forMisses([miss.id])).get(miss.id) ?? [];
-    return toMissJson(miss, photos);
+    const found = await this.diagnosisModel.findByPk(miss.id);
+    return toMissJson(miss, photos, found?.diagnosis ?? null);
   }
 
   /** 404 both for what does not exist and for what is not this member's to see. */
@@ -253,6 +253,7 @@ export class MissesService {
       revisit: readonly string[];
       sittingId: number;
       keyItemId: number;
+      cause?: Cause;
     },
     transaction: Transaction,
   ): Promise<number> {
@@ -268,7 +269,7 @@ export class MissesService {
         answer: input.answer,
         steps: null,
         explanation: '',
-        cause: Cause.unsure,
+        cause: input.cause ?? Cause.unsure,
         note: '',
         status: MissStatus.logged,
         skills: dedupe(input.skills),
@@ -341,7 +342,15 @@ export class MissesService {
     return checked;
   }
 
+  /** The diagnosis row and the rule rows of a miss, replaced by the new findings. */
   private async writeRules(miss: Miss, checked: Checked, transaction: Transaction) {
+    await this.diagnosisModel.destroy({ where: { missId: miss.id }, transaction });
+    if (checked.checked) {
+      await this.diagnosisModel.create(
+        { missId: miss.id, diagnosis: checked.diagnosis },
+        { transaction },
+      );
+    }
     await this.ruleModel.destroy({ where: { missId: miss.id }, transaction });
     const ids = checked.checked ? ruleIdsOf(checked.diagnosis) : [];
     if (ids.length === 0) return;
@@ -391,7 +400,6 @@ export class MissesService {
 function diagnosisColumns(checked: Checked) {
   if (!checked.checked) {
     return {
-      diagnosis: null,
       engineVersion: null,
       notCheckedReason: checked.reason,
       expected: null,
@@ -402,7 +410,6 @@ function diagnosisColumns(checked: Checked) {
   }
   const d = checked.diagnosis;
   return {
-    diagnosis: d,
     engineVersion: d.engineVersion,
     notCheckedReason: null,
     expected: d.expected,
@@ -471,10 +478,10 @@ export function toMissSummary(m: Miss) {
   };
 }
 
-export function toMissJson(m: Miss, photos: PhotoJson[]) {
+export function toMissJson(m: Miss, photos: PhotoJson[], diagnosis: Diagnosis | null) {
   return {
     ...toMissSummary(m),
-    diagnosis: m.diagnosis,
+    diagnosis,
     photos,
     thumbnailPhotoId: photos[0]?.id ?? null,
     photoCount: photos.length,

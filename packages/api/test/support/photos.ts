@@ -51,6 +51,7 @@ export async function footprint(t: TestApp) {
   return {
     misses: await count(t, 'misses'),
     missRules: await count(t, 'miss_rules'),
+    missDiagnoses: await count(t, 'miss_diagnoses'),
     photos: await count(t, 'photos'),
     files: photoFiles(t),
   };

@@ -37,7 +37,6 @@ export async function up({ context: qi }: { context: QueryInterface }): Promise<
     status: { type: DataTypes.STRING(16), allowNull: false },
     skills: { type: DataTypes.TEXT, allowNull: false, defaultValue: '[]' },
     revisit: { type: DataTypes.TEXT, allowNull: false, defaultValue: '[]' },
-    diagnosis: { type: DataTypes.TEXT, allowNull: true },
     engine_version: { type: DataTypes.STRING(40), allowNull: true },
     not_checked_reason: { type: DataTypes.STRING(300), allowNull: true },
     expected: { type: DataTypes.STRING(80), allowNull: true },
@@ -57,6 +56,18 @@ export async function up({ context: qi }: { context: QueryInterface }): Promise<
   await qi.addIndex('misses', ['student_id']);
   await qi.addIndex('misses', ['sitting_id']);
   await qi.addIndex('misses', ['key_item_id']);
+
+  // The engine's diagnosis JSON (a few kB) lives apart, so list scans read small rows.
+  await qi.createTable('miss_diagnoses', {
+    miss_id: {
+      type: DataTypes.INTEGER,
+      allowNull: false,
+      primaryKey: true,
+      references: { model: 'misses', key: 'id' },
+      onDelete: 'CASCADE',
+    },
+    diagnosis: { type: DataTypes.TEXT, allowNull: false },
+  });
 
   // One row per rule id a miss's diagnosis names, so `rule=` filters use an index.
   await qi.createTable('miss_rules', {
@@ -133,5 +144,6 @@ export async function down({ context: qi }: { context: QueryInterface }): Promis
   await qi.dropTable('photo_marks');
   await qi.dropTable('photos');
   await qi.dropTable('miss_rules');
+  await qi.dropTable('miss_diagnoses');
   await qi.dropTable('misses');
 }

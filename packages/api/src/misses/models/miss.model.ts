@@ -1,4 +1,4 @@
-import type { Cause, Diagnosis, MissStatus, WrittenSteps } from '@workback/core';
+import type { Cause, MissStatus, WrittenSteps } from '@workback/core';
 import { Column, DataType, ForeignKey, Model, Table } from 'sequelize-typescript';
 import { jsonColumn } from '../../common/json-column.js';
 import { Household } from '../../households/models/household.model.js';
@@ -53,9 +53,6 @@ export class Miss extends Model {
 
   @Column(jsonColumn<string[]>('revisit', []))
   declare revisit: string[];
-
-  @Column(jsonColumn<Diagnosis | null>('diagnosis', null, true))
-  declare diagnosis: Diagnosis | null;
 
   @Column({ type: DataType.STRING(40), allowNull: true })
   declare engineVersion: string | null;
