@@ -370,7 +370,10 @@ describe('corrections', () => {
       }),
     ]);
     const bySitting = new Map(
-      (res.body.remarkedSittings as { sittingId: number }[]).map((r) => [r.sittingId, r]),
+      (res.body.remarkedSittings as { sittingId: number; newMissIds: number[] }[]).map((r) => [
+        r.sittingId,
+        r,
+      ]),
     );
     expect(bySitting.get(wrenSitting.body.id)).toMatchObject({
       studentId: wren,
@@ -379,7 +382,7 @@ describe('corrections', () => {
       resolvedMissIds: [wrenMiss],
       newMissIds: [],
     });
-    const milo12 = bySitting.get(miloSitting.body.id) as { newMissIds: number[] };
+    const milo12 = bySitting.get(miloSitting.body.id)!;
     expect(milo12).toMatchObject({
       studentId: milo,
       before: { correct: 1, marked: 2 },

@@ -229,3 +229,43 @@ describe('who may', () => {
     expect(list.body.items.some((c: { id: number }) => c.id === course.id)).toBe(false);
   });
 });
+
+describe('the demo scenario', () => {
+  it('has a course, three kinds of key, weeks of sittings and the misprint flagged', async () => {
+    const courses = (await owner.get('/api/courses').expect(200)).body.items as {
+      name: string;
+      lessonCount: number;
+    }[];
+    expect(courses.find((c) => c.name === 'Number Trail, level 3–4')?.lessonCount).toBe(22);
+    const keys = (await owner.get('/api/answer-keys').expect(200)).body.items as {
+      id: number;
+      title: string;
+      kind: string;
+      sittingCount: number;
+    }[];
+    const demo = keys.filter((k) => k.sittingCount > 0);
+    expect(demo.map((k) => k.kind).sort()).toEqual(['assessment', 'review', 'worksheet']);
+    const assessment = demo.find((k) => k.kind === 'assessment')!;
+    const flags = (await owner.get(`/api/answer-keys/${assessment.id}`).expect(200)).body.flags;
+    expect(flags.map((f: { message: string }) => f.message)).toEqual([
+      'item 4: the key says 1,138, but 47 × 24 = 1,128 — please check',
+    ]);
+    const students = (await owner.get('/api/students').expect(200)).body.items as {
+      id: number;
+      name: string;
+    }[];
+    const wren = students.find((s) => s.name === 'Wren')!.id;
+    const summary = (await owner.get(`/api/students/${wren}/sittings/summary`).expect(200)).body;
+    const first = summary.overTime[0].date as string;
+    const last = summary.overTime.at(-1).date as string;
+    expect((Date.parse(last) - Date.parse(first)) / 86_400_000).toBeGreaterThanOrEqual(49);
+    const band = (name: string) =>
+      summary.byTimeOfDay.find((b: { timeOfDay: string }) => b.timeOfDay === name).percent;
+    // The invented pattern a tutor should spot: Wren's afternoons go worse than mornings.
+    expect(band('morning')).toBeGreaterThan(band('afternoon'));
+    const misses = await tutor.get(`/api/misses?studentId=${wren}&pageSize=100`).expect(200);
+    expect(
+      (misses.body.items as { sittingId: number | null }[]).some((m) => m.sittingId !== null),
+    ).toBe(true);
+  });
+});

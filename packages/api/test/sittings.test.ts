@@ -195,6 +195,19 @@ describe('marks and misses', () => {
     expect(blank.body).toMatchObject({ answer: '', checked: false });
   });
 
+  it('takes the cause for a wrong item when the parent already knows it', async () => {
+    const s = await sitting(wren, '2026-02-03T11:00');
+    const res = await putMarks(s.id, [
+      { keyItemId: item(4), correct: false, answer: '28', cause: 'fact' },
+    ]).expect(200);
+    const miss = await owner.get(`/api/misses/${res.body.marks[0].missId}`).expect(200);
+    expect(miss.body.cause).toBe('fact');
+    const bad = await putMarks(s.id, [{ keyItemId: item(4), correct: false, cause: 'lazy' }]);
+    expect(bad.body.fields).toEqual({
+      'marks.0.cause': 'cause must be one of slip, fact, concept, step, reading, copying, unsure',
+    });
+  });
+
   it('creates nothing new when the same marks are saved again', async () => {
     const s = await sitting(wren, '2026-02-04T10:00');
     const marks = [

@@ -9,6 +9,7 @@ import { HouseholdsService } from '../households/households.service.js';
 import { StudentsService } from '../students/students.service.js';
 import { User } from '../users/models/user.model.js';
 import { UsersService } from '../users/users.service.js';
+import { DemoCurriculumSeeder } from './demo-curriculum.js';
 import { DemoMissesSeeder } from './demo-misses.js';
 
 export const DEMO_FILE = new URL('../../../../seeds/demo-household.json', import.meta.url);
@@ -35,6 +36,7 @@ export class DemoSeeder {
     private readonly students: StudentsService,
     @InjectConnection() private readonly sequelize: Sequelize,
     private readonly demoMisses: DemoMissesSeeder,
+    private readonly demoCurriculum: DemoCurriculumSeeder,
   ) {}
 
   async seedIfEmpty(): Promise<boolean> {
@@ -62,6 +64,7 @@ export class DemoSeeder {
       await this.users.create({ ...demo.admin, passwordHash }, transaction);
     });
     await this.demoMisses.seed(ownerMember.householdId);
+    await this.demoCurriculum.seed(ownerMember);
     this.logger.log(`Demo household "${demo.household.name}" loaded`);
     return true;
   }

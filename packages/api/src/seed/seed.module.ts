@@ -1,13 +1,17 @@
 import { Module, type OnApplicationBootstrap } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
+import { AnswerKeysModule } from '../answer-keys/answer-keys.module.js';
 import { AuthModule } from '../auth/auth.module.js';
 import type { AppConfig } from '../config/app.config.js';
+import { CurriculumModule } from '../curriculum/curriculum.module.js';
 import { HouseholdsModule } from '../households/households.module.js';
 import { MissesModule } from '../misses/misses.module.js';
 import { NotesModule } from '../notes/notes.module.js';
 import { PhotosModule } from '../photos/photos.module.js';
+import { SittingsModule } from '../sittings/sittings.module.js';
 import { StudentsModule } from '../students/students.module.js';
 import { UsersModule } from '../users/users.module.js';
+import { DemoCurriculumSeeder } from './demo-curriculum.js';
 import { DemoMissesSeeder } from './demo-misses.js';
 import { DemoSeeder } from './demo-seeder.js';
 
@@ -20,8 +24,11 @@ import { DemoSeeder } from './demo-seeder.js';
     MissesModule,
     NotesModule,
     PhotosModule,
+    CurriculumModule,
+    AnswerKeysModule,
+    SittingsModule,
   ],
-  providers: [DemoSeeder, DemoMissesSeeder],
+  providers: [DemoSeeder, DemoMissesSeeder, DemoCurriculumSeeder],
   exports: [DemoSeeder],
 })
 export class SeedModule implements OnApplicationBootstrap {

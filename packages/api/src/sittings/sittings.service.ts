@@ -2,6 +2,7 @@ import { Injectable, NotFoundException, type OnModuleInit } from '@nestjs/common
 import { InjectConnection, InjectModel } from '@nestjs/sequelize';
 import { Op, type Transaction, type WhereOptions } from 'sequelize';
 import type { Sequelize } from 'sequelize-typescript';
+import type { Cause } from '@workback/core';
 import {
   AnswerKeysService,
   type AnswerChange,
@@ -181,6 +182,8 @@ export class SittingsService implements OnModuleInit {
         ]),
       );
       const changes = emptyChanges();
+      const misses = await this.misses.findForSitting(id, transaction);
+      const added: Pick<SittingMark, 'sittingId' | 'keyItemId' | 'correct' | 'answer'>[] = [];
       for (const m of dto.marks) {
         const answer = m.answer === undefined || m.answer === '' ? null : m.answer;
         const before = existing.get(m.keyItemId);
@@ -188,23 +191,19 @@ export class SittingsService implements OnModuleInit {
         if (before && before.correct === m.correct && before.answer === answer) continue;
         const was = before ? { correct: before.correct, answer: before.answer } : null;
         if (before) await before.update({ correct: m.correct, answer }, { transaction });
-        else {
-          await this.markModel.create(
-            { sittingId: id, keyItemId: m.keyItemId, correct: m.correct, answer },
-            { transaction },
-          );
-        }
+        else added.push({ sittingId: id, keyItemId: m.keyItemId, correct: m.correct, answer });
         await this.followMark(
           member,
           sitting,
           byId.get(m.keyItemId)!,
           was,
-          { correct: m.correct, answer },
+          { correct: m.correct, answer, cause: m.cause ?? undefined },
           'the mark was changed to right',
-          changes,
+          { changes, misses },
           transaction,
         );
       }
+      if (added.length) await this.markModel.bulkCreate(added, { transaction });
       for (const [itemId, left] of existing) {
         await left.destroy({ transaction });
         await this.followMark(
@@ -214,7 +213,7 @@ export class SittingsService implements OnModuleInit {
           { correct: left.correct, answer: left.answer },
           null,
           'the item’s mark was removed from the sitting',
-          changes,
+          { changes, misses },
           transaction,
         );
       }
@@ -306,6 +305,7 @@ export class SittingsService implements OnModuleInit {
     const out: RemarkedSitting[] = [];
     for (const sitting of sittings) {
       const missChanges = emptyChanges();
+      const misses = await this.misses.findForSitting(sitting.id, transaction);
       const itemIds: number[] = [];
       for (const mark of marks.filter((m) => m.sittingId === sitting.id)) {
         const change = byItem.get(mark.keyItemId)!;
@@ -323,7 +323,7 @@ export class SittingsService implements OnModuleInit {
           was,
           { correct, answer: childAnswer },
           `the key was corrected (item ${change.number}: ${change.from} → ${change.to}): ${reason}`,
-          missChanges,
+          { changes: missChanges, misses },
           transaction,
         );
       }
@@ -355,18 +355,22 @@ export class SittingsService implements OnModuleInit {
     sitting: Sitting,
     item: KeyItem,
     was: { correct: boolean; answer: string | null } | null,
-    now: { correct: boolean; answer: string | null } | null,
+    now: { correct: boolean; answer: string | null; cause?: Cause } | null,
     resolveReason: string,
-    changes: MissChanges,
+    {
+      changes,
+      misses,
+    }: { changes: MissChanges; misses: Map<number, { id: number; status: string }> },
     transaction: Transaction,
   ): Promise<void> {
     const wasWrong = was !== null && !was.correct;
     const nowWrong = now !== null && !now.correct;
     if (!wasWrong && !nowWrong) return;
-    const existing = (await this.misses.findForSitting(sitting.id, transaction)).get(item.id);
+    const existing = misses.get(item.id);
     if (nowWrong && !wasWrong) {
       if (existing) {
         await this.misses.reopenFromMark(member, existing.id, now.answer ?? '', transaction);
+        existing.status = 'logged';
         changes.reopenedMissIds.push(existing.id);
       } else {
         const id = await this.misses.createFromMark(
@@ -380,14 +384,17 @@ export class SittingsService implements OnModuleInit {
             revisit: revisitLessons(item.revisit).map(String),
             sittingId: sitting.id,
             keyItemId: item.id,
+            cause: now.cause,
           },
           transaction,
         );
+        misses.set(item.id, { id, status: 'logged' });
         changes.createdMissIds.push(id);
       }
     } else if (wasWrong && !nowWrong) {
       if (existing && existing.status !== 'resolved') {
         await this.misses.resolveFromMark(member, existing.id, resolveReason, transaction);
+        existing.status = 'resolved';
         changes.resolvedMissIds.push(existing.id);
       }
     } else if (existing && (was!.answer ?? '') !== (now!.answer ?? '')) {

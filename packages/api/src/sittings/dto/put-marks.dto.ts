@@ -1,9 +1,11 @@
 import { ApiProperty, ApiPropertyOptional } from '@nestjs/swagger';
+import { CAUSES, type Cause } from '@workback/core';
 import { Type } from 'class-transformer';
 import {
   ArrayMaxSize,
   IsArray,
   IsBoolean,
+  IsIn,
   IsInt,
   IsPositive,
   IsString,
@@ -33,6 +35,14 @@ export class MarkDto {
   @MaxLength(80, { message: 'answer must be at most 80 characters' })
   @IsString({ message: 'answer must be text' })
   answer?: string | null;
+
+  @ApiPropertyOptional({
+    enum: CAUSES,
+    description: 'For a wrong item: the cause, when the parent already knows it (default unsure)',
+  })
+  @ValidateIf((_, v) => v !== null && v !== undefined)
+  @IsIn(CAUSES, { message: `cause must be one of ${CAUSES.join(', ')}` })
+  cause?: Cause | null;
 }
 
 export class PutMarksDto {
