@@ -91,3 +91,62 @@ export type { CheckResult, ResidueWorking } from './checks/types.js';
 // Practice
 export { practiceFor } from './practice/practiceFor.js';
 export type { PracticeProblem, PracticeSet } from './practice/practiceFor.js';
+
+// Patterns across a student's misses
+export { computePatterns } from './patterns/computePatterns.js';
+export { causeMixByWeek } from './patterns/causeMixByWeek.js';
+export { countRules } from './patterns/countRules.js';
+export { countSkills } from './patterns/countSkills.js';
+export { factGaps } from './patterns/factGaps.js';
+export { findRecurring } from './patterns/findRecurring.js';
+export type { RecurringOptions } from './patterns/findRecurring.js';
+export { rankFindings } from './patterns/rankFindings.js';
+export { RULE_GROUPS } from './patterns/ruleGroups.js';
+export { patternKeysOf } from './patterns/patternKeysOf.js';
+export { factFamiliesOf } from './patterns/factFamiliesOf.js';
+export { factFamilyLabel } from './patterns/factFamilyLabel.js';
+export { factText } from './patterns/factText.js';
+export { isoWeekOf } from './patterns/isoWeekOf.js';
+export type { IsoWeek } from './patterns/isoWeekOf.js';
+export type {
+  StoredDiagnosis,
+  PatternMiss,
+  RightItem,
+  ReviewedPlan,
+  BasicFact,
+  Seen,
+  WeekCauseMix,
+  RuleCount,
+  SkillCount,
+  FactCount,
+  FamilyCount,
+  FactGaps,
+  PatternKind,
+  SincePlan,
+  RecurringPattern,
+  MissEvidence,
+  Contradiction,
+  RuleFinding,
+  FindingGroup,
+  Findings,
+  Patterns,
+} from './patterns/types.js';
+
+// Review plans
+export { buildReviewPlan } from './plans/buildReviewPlan.js';
+export type { ReviewPlanOptions } from './plans/buildReviewPlan.js';
+export { lessonRanges } from './plans/lessonRanges.js';
+export { formatLessonRanges } from './plans/formatLessonRanges.js';
+export { PRACTICE_ACTIVITIES } from './plans/practiceActivities.js';
+export { suggestActivity } from './plans/suggestActivity.js';
+export { seedOf } from './plans/seedOf.js';
+export type {
+  PlanMiss,
+  LessonRange,
+  PracticeActivity,
+  FactFamilyDrill,
+  PracticeBlock,
+  PlanItemKind,
+  PlanItemDraft,
+  ReviewPlanDraft,
+} from './plans/types.js';

@@ -1,0 +1,176 @@
+import { factFamiliesOf } from '../patterns/factFamiliesOf.js';
+import { factFamilyLabel } from '../patterns/factFamilyLabel.js';
+import { factText } from '../patterns/factText.js';
+import { patternKeysOf } from '../patterns/patternKeysOf.js';
+import { byDay } from '../patterns/seenTally.js';
+import type { BasicFact } from '../patterns/types.js';
+import { practiceFor } from '../practice/practiceFor.js';
+import { RULES, ruleInfo } from '../rules/catalog.js';
+import { formatLessonRanges } from './formatLessonRanges.js';
+import { lessonRanges } from './lessonRanges.js';
+import { seedOf } from './seedOf.js';
+import { suggestActivity } from './suggestActivity.js';
+import type {
+  FactFamilyDrill,
+  LessonRange,
+  PlanItemDraft,
+  PlanMiss,
+  PracticeBlock,
+  ReviewPlanDraft,
+} from './types.js';
+
+export interface ReviewPlanOptions {
+  /** The plan's id: practice problems are seeded from it, so they stay the same. */
+  readonly planId: number;
+  /** Practice problems per rule (default 4, at most 10). */
+  readonly practicePerRule?: number;
+}
+
+/**
+ * A review plan from chosen misses: the lessons to revisit (deduplicated, merged into
+ * ranges, in order), fact families to drill with a suggested activity (as few families
+ * as cover every wrong fact), fresh practice problems for each systematic rule of the
+ * misses' best-ranked matches (seeded from the plan id, answers kept apart), and each
+ * miss to re-work together. `items` is the checklist, each line with the misses it covers.
+ * `buildReviewPlan([missOf('304 − 75', '139', { lessons: [12, 13] })], { planId: 7 }).lessons.text` → `'12–13'`.
+ */
+export function buildReviewPlan(
+  misses: readonly PlanMiss[],
+  options: ReviewPlanOptions,
+): ReviewPlanDraft {
+  const ordered = byDay(misses);
+  const perRule = Math.min(Math.max(options.practicePerRule ?? 4, 1), 10);
+  const notes: string[] = [];
+
+  const ranges: LessonRange[] = lessonRanges(ordered.flatMap((m) => m.lessons)).map((r) => ({
+    ...r,
+    label: r.from === r.to ? `Lesson ${r.from}` : `Lessons ${r.from}–${r.to}`,
+    missIds: ordered
+      .filter((m) => m.lessons.some((n) => n >= r.from && n <= r.to))
+      .map((m) => m.id),
+  }));
+
+  const factFamilies = drillsFor(ordered);
+
+  const byRule = new Map<string, PlanMiss[]>();
+  for (const m of ordered) {
+    for (const id of m.diagnosis?.rules[0]?.ids ?? []) {
+      if (ruleInfo(id)?.kind !== 'systematic') continue;
+      byRule.set(id, [...(byRule.get(id) ?? []), m]);
+    }
+  }
+  const order = new Map(RULES.map((r, i) => [r.id, i]));
+  const practice: PracticeBlock[] = [];
+  let number = 0;
+  for (const [ruleId, list] of [...byRule].sort(
+    (a, b) => b[1].length - a[1].length || (order.get(a[0]) ?? 0) - (order.get(b[0]) ?? 0),
+  )) {
+    const base = Math.min(Math.max(...list.map((m) => longestNumber(m.problem)), 2), 6);
+    let made: PracticeBlock | null = null;
+    for (let digits = base; digits <= base + 2 && made === null; digits += 1) {
+      const set = practiceFor(ruleId, {
+        count: perRule,
+        digits,
+        seed: seedOf(`plan:${options.planId}:${ruleId}`),
+      });
+      if (!set.ok) continue;
+      made = {
+        ruleId,
+        title: ruleInfo(ruleId)?.title ?? ruleId,
+        digits,
+        problems: set.problems.map((p) => ({
+          number: (number += 1),
+          problem: p.problem,
+          answer: p.answer,
+        })),
+        missIds: list.map((m) => m.id),
+      };
+    }
+    if (made === null) notes.push(`No practice problems could be made for ${ruleId}.`);
+    else practice.push(made);
+  }
+
+  const items: PlanItemDraft[] = [
+    ...ranges.map((r) => ({
+      kind: 'lesson' as const,
+      key: `lesson:${r.from}-${r.to}`,
+      title: `Revisit ${r.label.toLowerCase()}`,
+      payload: r,
+      missIds: r.missIds,
+    })),
+    ...factFamilies.map((f) => ({
+      kind: 'fact-family' as const,
+      key: `fact:${f.family}`,
+      title: `Drill the ${f.label}: ${f.activity.title.toLowerCase()}`,
+      payload: f,
+      missIds: f.missIds,
+    })),
+    ...practice.map((p) => ({
+      kind: 'practice' as const,
+      key: `practice:${p.ruleId}`,
+      title: `Work ${p.problems.length} fresh problems (${p.title.toLowerCase()})`,
+      payload: p,
+      missIds: p.missIds,
+    })),
+    ...ordered.map((m) => ({
+      kind: 'miss' as const,
+      key: `miss:${m.id}`,
+      title: `Re-work ${m.problem} together`,
+      payload: { missId: m.id, problem: m.problem, answer: m.answer, occurredOn: m.occurredOn },
+      missIds: [m.id],
+    })),
+  ];
+
+  return {
+    lessons: { text: formatLessonRanges(ranges), ranges },
+    factFamilies,
+    practice,
+    items,
+    covers: [...new Set(ordered.flatMap((m) => patternKeysOf(m)))].sort(),
+    notes,
+  };
+}
+
+/** As few fact families as cover every wrong fact: greedily the family covering most. */
+function drillsFor(misses: readonly PlanMiss[]): FactFamilyDrill[] {
+  const facts = new Map<string, { fact: BasicFact; missIds: number[]; families: string[] }>();
+  for (const m of misses) {
+    for (const f of m.diagnosis?.facts ?? []) {
+      const key = `${f.op} ${f.a} ${f.b}`;
+      const had = facts.get(key) ?? { fact: f, missIds: [], families: factFamiliesOf(f) };
+      if (!had.missIds.includes(m.id)) had.missIds.push(m.id);
+      facts.set(key, had);
+    }
+  }
+  const left = new Set(facts.keys());
+  const drills: FactFamilyDrill[] = [];
+  while (left.size > 0) {
+    const count = new Map<string, string[]>();
+    for (const key of left)
+      for (const family of facts.get(key)!.families)
+        count.set(family, [...(count.get(family) ?? []), key]);
+    const [family, keys] = [...count].sort(
+      (a, b) =>
+        b[1].length - a[1].length ||
+        Number(b[0].slice(1)) - Number(a[0].slice(1)) ||
+        (a[0] < b[0] ? -1 : 1),
+    )[0]!;
+    for (const k of keys) left.delete(k);
+    const chosen = keys.map((k) => facts.get(k)!);
+    drills.push({
+      family,
+      label: factFamilyLabel(family),
+      facts: chosen.map((c) => factText(c.fact)),
+      activity: suggestActivity(
+        family,
+        chosen.map((c) => c.fact),
+      ),
+      missIds: [...new Set(chosen.flatMap((c) => c.missIds))].sort((a, b) => a - b),
+    });
+  }
+  return drills;
+}
+
+function longestNumber(problem: string): number {
+  return Math.max(0, ...(problem.replace(/,/g, '').match(/\d+/g) ?? []).map((d) => d.length));
+}

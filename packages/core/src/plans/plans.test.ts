@@ -1,0 +1,131 @@
+import { describe, expect, it } from 'vitest';
+import { diagnose } from '../diagnose/diagnose.js';
+import { parseProblem } from '../parse/parseProblem.js';
+import { missOf } from '../patterns/testMisses.js';
+import { applyRule } from '../rules/applyRule.js';
+import { buildReviewPlan } from './buildReviewPlan.js';
+import { formatLessonRanges } from './formatLessonRanges.js';
+import { lessonRanges } from './lessonRanges.js';
+import { seedOf } from './seedOf.js';
+import { suggestActivity } from './suggestActivity.js';
+
+describe('lessonRanges', () => {
+  it('dedupes, orders and merges runs', () => {
+    expect(lessonRanges([20, 13, 12, 14, 13])).toEqual([
+      { from: 12, to: 14 },
+      { from: 20, to: 20 },
+    ]);
+    expect(formatLessonRanges(lessonRanges([12, 13, 14, 20]))).toBe('12–14, 20');
+    expect(formatLessonRanges(lessonRanges([3, 5, 7, 8]))).toBe('3, 5, 7–8');
+    expect(lessonRanges([])).toEqual([]);
+    expect(lessonRanges([0, -1, 2.5])).toEqual([]);
+  });
+});
+
+describe('seedOf', () => {
+  // FNV-1a 32-bit test vectors of the FNV reference (Fowler, Noll, Vo), from memory.
+  it.each([
+    ['', 0x811c9dc5],
+    ['a', 0xe40c292c],
+    ['foobar', 0xbf9cf968],
+  ])('%j → %i', (text, hash) => {
+    expect(seedOf(text)).toBe(hash);
+  });
+});
+
+describe('suggestActivity', () => {
+  it('picks from the short list by what was wrong', () => {
+    expect(suggestActivity('x7', [{ op: 'x', a: 7, b: 8 }]).id).toBe('skip-counting');
+    expect(suggestActivity('+8', [{ op: '+', a: 8, b: 7 }]).id).toBe('through-ten');
+    expect(suggestActivity('+3', [{ op: '+', a: 3, b: 4 }]).id).toBe('flash-cards');
+    const three = [
+      { op: 'x' as const, a: 6, b: 7 },
+      { op: 'x' as const, a: 7, b: 8 },
+      { op: 'x' as const, a: 7, b: 9 },
+    ];
+    expect(suggestActivity('x7', three).id).toBe('timer-game');
+  });
+});
+
+describe('buildReviewPlan', () => {
+  const misses = [
+    missOf('2026-03-02', '304 - 75', '139', { id: 1, lessons: [12, 13] }),
+    missOf('2026-03-03', '605 - 48', '467', { id: 2, lessons: [14, 20] }),
+    missOf('2026-03-04', '7 x 8', '54', { id: 3, lessons: [13] }),
+    missOf('2026-03-05', '6 x 7', '41', { id: 4 }),
+    missOf('2026-03-06', '8 + 7', '16', { id: 5 }),
+  ];
+  const plan = buildReviewPlan(misses, { planId: 7 });
+
+  it('merges the lessons to revisit into ordered ranges, each with its misses', () => {
+    expect(plan.lessons.text).toBe('12–14, 20');
+    expect(plan.lessons.ranges).toEqual([
+      { from: 12, to: 14, label: 'Lessons 12–14', missIds: [1, 2, 3] },
+      { from: 20, to: 20, label: 'Lesson 20', missIds: [2] },
+    ]);
+  });
+
+  it('drills as few fact families as cover the wrong facts, each with an activity', () => {
+    // 7 × 8 and 6 × 7 share the sevens; 8 + 7 is in +7 and +8 (the larger is chosen).
+    expect(plan.factFamilies.map((f) => [f.family, f.facts, f.activity.id, f.missIds])).toEqual([
+      ['x7', ['7 × 8', '6 × 7'], 'skip-counting', [3, 4]],
+      ['+8', ['8 + 7'], 'through-ten', [5]],
+    ]);
+  });
+
+  it('makes fresh practice on which each systematic rule gives a wrong answer', () => {
+    expect(plan.practice.map((p) => [p.ruleId, p.missIds])).toEqual([
+      ['sub.borrow-across-zero', [1, 2]],
+    ]);
+    const block = plan.practice[0]!;
+    expect(block.problems.map((p) => p.number)).toEqual([1, 2, 3, 4]);
+    for (const p of block.problems) {
+      const parsed = parseProblem(p.problem);
+      if (!parsed.ok) throw new Error(p.problem);
+      const right = diagnose(p.problem, p.answer);
+      expect(right.ok && right.correct).toBe(true);
+      expect(applyRule('sub.borrow-across-zero', parsed.problem).some((w) => w !== p.answer)).toBe(
+        true,
+      );
+      expect(misses.map((m) => m.problem)).not.toContain(p.problem);
+    }
+  });
+
+  it('keeps the same practice for the same plan id and changes it with another', () => {
+    expect(buildReviewPlan(misses, { planId: 7 }).practice).toEqual(plan.practice);
+    expect(buildReviewPlan(misses, { planId: 8 }).practice[0]!.problems).not.toEqual(
+      plan.practice[0]!.problems,
+    );
+  });
+
+  it('lists a checklist of lessons, facts, practice and each miss, with what each covers', () => {
+    expect(plan.items.map((i) => i.key)).toEqual([
+      'lesson:12-14',
+      'lesson:20-20',
+      'fact:x7',
+      'fact:+8',
+      'practice:sub.borrow-across-zero',
+      'miss:1',
+      'miss:2',
+      'miss:3',
+      'miss:4',
+      'miss:5',
+    ]);
+    expect(plan.items[0]!.title).toBe('Revisit lessons 12–14');
+    expect(plan.items[5]).toMatchObject({
+      kind: 'miss',
+      title: 'Re-work 304 − 75 together',
+      missIds: [1],
+    });
+    expect(plan.covers).toEqual(
+      expect.arrayContaining(['rule:sub.borrow-across-zero', 'fact:x7', 'fact:x6', 'fact:+8']),
+    );
+    expect(plan.notes).toEqual([]);
+  });
+
+  it('makes an empty plan from no misses', () => {
+    const empty = buildReviewPlan([], { planId: 1 });
+    expect(empty.items).toEqual([]);
+    expect(empty.lessons.text).toBe('');
+  });
+});
