@@ -14,6 +14,7 @@ export default defineConfig({
     environmentOptions: { happyDOM: { width: 1280, height: 900 } },
     setupFiles: ['./src/testing/setup.ts'],
     css: false,
+    testTimeout: 20_000,
     restoreMocks: true,
     unstubGlobals: true,
   },
