@@ -1,5 +1,6 @@
 import sharp from 'sharp';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { PhotosService } from '../src/photos/photos.service.js';
 import { fixture, photoFiles, postMultipart, studentIds, today } from './support/photos.js';
 import {
   type Client,
@@ -116,5 +117,20 @@ describe('PUT /api/photos/:id/marks', () => {
     expect(res.body.fields).toHaveProperty(field);
     const miss = await owner.get(`/api/misses/${wrenMiss}`).expect(200);
     expect(miss.body.photos[0].marks).toMatchObject([{ x: 0.3, y: 0.3 }]);
+  });
+});
+
+describe('files no row refers to', () => {
+  it('are swept (at start-up) after a student is deleted with its misses', async () => {
+    const kid = await owner.post('/api/students', { name: 'Sweep', gradeLevel: '2' }).expect(201);
+    const { photo } = await missWithPhoto(kid.body.id as number);
+    const before = photoFiles(t);
+    await owner.send('delete', `/api/students/${kid.body.id}`).expect(204);
+    await owner.get(`/api/photos/${photo}/image`).expect(404);
+    // The database cascade removes the rows; the files wait for the sweep PhotosModule runs at start-up.
+    const removed = await t.app.get(PhotosService).sweepOrphans();
+    expect(removed).toBe(2);
+    expect(photoFiles(t)).toHaveLength(before.length - 2);
+    await owner.get(`/api/photos/${wrenPhoto}/image`).expect(200);
   });
 });
