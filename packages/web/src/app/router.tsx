@@ -1,6 +1,12 @@
 import type { QueryClient } from '@tanstack/react-query';
 import { useMemo } from 'react';
-import { createBrowserRouter, Navigate, RouterProvider, type RouteObject } from 'react-router-dom';
+import {
+  createBrowserRouter,
+  Navigate,
+  RouterProvider,
+  type LoaderFunctionArgs,
+  type RouteObject,
+} from 'react-router-dom';
 
 import { LoadingState } from '../components/states';
 import { paths } from '../config/paths';
@@ -8,7 +14,7 @@ import { protectedLoader, ProtectedRoute } from './routes/protected';
 import { RouteError } from './routes/route-error';
 
 type RouteModule = {
-  clientLoader?: (queryClient: QueryClient) => () => Promise<unknown>;
+  clientLoader?: (queryClient: QueryClient) => (args: LoaderFunctionArgs) => Promise<unknown>;
   default: React.ComponentType;
 };
 
@@ -43,6 +49,18 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
             {
               path: paths.app.students.path,
               lazy: lazyRoute(queryClient, () => import('./routes/students')),
+            },
+            {
+              path: paths.app.logMiss.path,
+              lazy: lazyRoute(queryClient, () => import('./routes/log-miss')),
+            },
+            {
+              path: paths.app.notebook.path,
+              lazy: lazyRoute(queryClient, () => import('./routes/notebook')),
+            },
+            {
+              path: paths.app.miss.path,
+              lazy: lazyRoute(queryClient, () => import('./routes/miss')),
             },
             {
               path: paths.app.account.path,

@@ -15,6 +15,12 @@ export const paths = {
   app: {
     root: { path: '/', getHref: () => '/' },
     students: { path: '/students', getHref: () => '/students' },
+    logMiss: { path: '/misses/new', getHref: () => '/misses/new' },
+    notebook: {
+      path: '/notebook',
+      getHref: (search?: string) => (search ? `/notebook?${search}` : '/notebook'),
+    },
+    miss: { path: '/misses/:missId', getHref: (id: number) => `/misses/${id}` },
     account: { path: '/account', getHref: () => '/account' },
   },
 } as const;

@@ -109,6 +109,65 @@ async function write<T>(method: Exclude<Method, 'GET'>, path: string, body?: unk
   }
 }
 
+/** Bytes sent so far of a multipart upload. */
+export type UploadProgress = { loaded: number; total: number };
+
+export type UploadOptions = { onProgress?: (progress: UploadProgress) => void };
+
+/** fetch reports no upload progress, so multipart writes go through XMLHttpRequest. */
+function sendForm<T>(
+  path: string,
+  form: FormData,
+  csrf: string,
+  { onProgress }: UploadOptions,
+): Promise<T> {
+  return new Promise<T>((resolve, reject) => {
+    const xhr = new XMLHttpRequest();
+    xhr.open('POST', `/api${path}`);
+    xhr.setRequestHeader('accept', 'application/json');
+    xhr.setRequestHeader('x-csrf-token', csrf);
+    if (onProgress) {
+      xhr.upload.addEventListener('progress', (event) => {
+        if (event.lengthComputable) onProgress({ loaded: event.loaded, total: event.total });
+      });
+    }
+    xhr.addEventListener('error', () => reject(new ApiError(0, OFFLINE)));
+    xhr.addEventListener('abort', () => reject(new ApiError(0, OFFLINE)));
+    xhr.addEventListener('load', () => {
+      const status = xhr.status;
+      if (status === 0) {
+        reject(new ApiError(0, OFFLINE));
+        return;
+      }
+      const response = new Response(status === 204 ? null : xhr.responseText, {
+        status,
+        statusText: xhr.statusText,
+      });
+      if (status < 200 || status >= 300) {
+        void toApiError(response).then((error) => {
+          if (error.status === 401) forgetCsrfToken();
+          reject(error);
+        });
+        return;
+      }
+      resolve((xhr.responseText ? JSON.parse(xhr.responseText) : undefined) as T);
+    });
+    xhr.send(form);
+  });
+}
+
+async function upload<T>(path: string, form: FormData, options: UploadOptions = {}): Promise<T> {
+  try {
+    return await sendForm<T>(path, form, await getCsrfToken(), options);
+  } catch (error) {
+    if (isApiError(error, 403) && /csrf/i.test(error.message)) {
+      forgetCsrfToken();
+      return sendForm<T>(path, form, await getCsrfToken(), options);
+    }
+    throw error;
+  }
+}
+
 /** The one client for Workback's JSON API (same origin, under /api). */
 export const api = {
   get: <T>(path: string) => send<T>('GET', path),
@@ -116,4 +175,6 @@ export const api = {
   put: <T>(path: string, body?: unknown) => write<T>('PUT', path, body),
   patch: <T>(path: string, body?: unknown) => write<T>('PATCH', path, body),
   delete: <T = void>(path: string) => write<T>('DELETE', path),
+  /** A multipart POST (photos), reporting upload progress. */
+  upload,
 };

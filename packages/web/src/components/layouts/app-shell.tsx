@@ -1,17 +1,40 @@
 import { Button } from '@blueprintjs/core';
-import { LogOutIcon, PeopleIcon, UserIcon } from '@blueprintjs/icons';
+import { CameraIcon, LogOutIcon, ManualIcon, PeopleIcon, UserIcon } from '@blueprintjs/icons';
 import type { ReactNode } from 'react';
 import { NavLink, useNavigate } from 'react-router-dom';
 
 import { paths } from '../../config/paths';
-import { roleLabel, useSignOut, useSignedIn } from '../../lib/auth';
+import { canEditHousehold, roleLabel, useSignOut, useSignedIn, type Me } from '../../lib/auth';
 import { Brand } from '../brand';
 import { useToast } from '../toaster';
 
-type NavItem = { to: string; label: string; icon: ReactNode };
+type NavItem = {
+  to: string;
+  label: string;
+  icon: ReactNode;
+  /** The main action: drawn larger, in the accent, first on the phone bar. */
+  primary?: boolean;
+  /** Shown only to whom it is for (e.g. owners and parents log misses). */
+  shownTo?: (me: Me) => boolean;
+};
 
-// Later pages slot in here in reading order; the phone bar will lead with "Log a miss".
+const seesChildren = (me: Me) => !me.user.isAdmin && me.household !== null;
+
+// Later pages slot in here in reading order; the phone bar leads with "Log a miss".
 const NAV_ITEMS: readonly NavItem[] = [
+  {
+    to: paths.app.logMiss.getHref(),
+    label: 'Log a miss',
+    icon: <CameraIcon />,
+    primary: true,
+    shownTo: canEditHousehold,
+  },
+  {
+    to: paths.app.notebook.getHref(),
+    label: 'Notebook',
+    icon: <ManualIcon />,
+    shownTo: seesChildren,
+  },
   { to: paths.app.students.getHref(), label: 'Students', icon: <PeopleIcon /> },
   { to: paths.app.account.getHref(), label: 'Account', icon: <UserIcon /> },
 ];
@@ -44,6 +67,7 @@ export function SignOutButton({ className }: { className?: string }) {
 export function AppShell({ children }: { children: ReactNode }) {
   const me = useSignedIn();
   const householdName = me.household?.name ?? roleLabel(me);
+  const items = NAV_ITEMS.filter((item) => !item.shownTo || item.shownTo(me));
   return (
     <div className="wb-shell">
       <a className="wb-skip" href="#main">
@@ -57,9 +81,12 @@ export function AppShell({ children }: { children: ReactNode }) {
         </div>
         <nav aria-label="Main">
           <ul className="wb-nav">
-            {NAV_ITEMS.map((item) => (
+            {items.map((item) => (
               <li key={item.to}>
-                <NavLink to={item.to} className="wb-nav-link">
+                <NavLink
+                  to={item.to}
+                  className={item.primary ? 'wb-nav-link wb-nav-primary' : 'wb-nav-link'}
+                >
                   {item.icon}
                   <span>{item.label}</span>
                 </NavLink>
@@ -81,8 +108,12 @@ export function AppShell({ children }: { children: ReactNode }) {
         {children}
       </main>
       <nav className="wb-bottombar" aria-label="Main (phone)">
-        {NAV_ITEMS.map((item) => (
-          <NavLink key={item.to} to={item.to} className="wb-bottombar-link">
+        {items.map((item) => (
+          <NavLink
+            key={item.to}
+            to={item.to}
+            className={item.primary ? 'wb-bottombar-link wb-bottombar-primary' : 'wb-bottombar-link'}
+          >
             {item.icon}
             <span>{item.label}</span>
           </NavLink>

@@ -1,0 +1,80 @@
+import { Callout, Classes } from '@blueprintjs/core';
+import { PeopleIcon } from '@blueprintjs/icons';
+import type { QueryClient } from '@tanstack/react-query';
+import { Link } from 'react-router-dom';
+
+import { NoHouseholdCallout, seesChildren } from '../../components/no-household';
+import { EmptyState, ErrorState, LoadingState } from '../../components/states';
+import { paths } from '../../config/paths';
+import { LogMissForm } from '../../features/misses/components/log-miss-form';
+import { studentsQueryOptions, useStudents } from '../../features/students/api/get-students';
+import { canEditHousehold, meQueryOptions, useSignedIn } from '../../lib/auth';
+
+export const clientLoader = (queryClient: QueryClient) => async () => {
+  const me = await queryClient.ensureQueryData(meQueryOptions()).catch(() => null);
+  if (me && seesChildren(me)) void queryClient.prefetchQuery(studentsQueryOptions());
+  return null;
+};
+
+function LogMissBody({ householdId }: { householdId: number }) {
+  const students = useStudents();
+  if (students.isPending) return <LoadingState label="Loading students…" />;
+  if (students.isError) {
+    return (
+      <ErrorState
+        title="The students could not be loaded."
+        error={students.error}
+        onRetry={() => void students.refetch()}
+      />
+    );
+  }
+  if (students.data.items.length === 0) {
+    return (
+      <EmptyState
+        icon={<PeopleIcon size={40} />}
+        title="Add a student first, then log the problems they missed."
+        action={
+          <Link
+            className={`${Classes.BUTTON} ${Classes.INTENT_PRIMARY}`}
+            to={paths.app.students.getHref()}
+          >
+            Go to Students
+          </Link>
+        }
+      />
+    );
+  }
+  return <LogMissForm students={students.data.items} householdId={householdId} />;
+}
+
+export default function LogMissRoute() {
+  const me = useSignedIn();
+  let body;
+  if (!seesChildren(me) || !me.household) {
+    body = <NoHouseholdCallout me={me} />;
+  } else if (!canEditHousehold(me)) {
+    body = (
+      <Callout className="wb-callout" title="The family logs the misses">
+        As a tutor you can open any miss in the{' '}
+        <Link to={paths.app.notebook.getHref()}>notebook</Link> to place pins on the photos and add
+        notes.
+      </Callout>
+    );
+  } else {
+    body = <LogMissBody householdId={me.household.id} />;
+  }
+  return (
+    <>
+      <div className="wb-page-head">
+        <div>
+          <h1 className="wb-page-title">Log a miss</h1>
+          <p className="wb-muted">
+            One missed problem at a time: what was asked, what your child wrote, and what they said
+            when you asked how they solved it.
+          </p>
+        </div>
+      </div>
+      {body}
+    </>
+  );
+}

@@ -1,0 +1,58 @@
+import { Card, Tag } from '@blueprintjs/core';
+import { Link } from 'react-router-dom';
+
+import { paths } from '../../../config/paths';
+import { causeLabel, formatDay, ruleTitle, statusLabel, type MissSummary } from '../types';
+
+/** The same misses as cards, for phones; each card opens its miss. */
+export function NotebookCards({
+  misses,
+  studentName,
+}: {
+  misses: readonly MissSummary[];
+  studentName: (id: number) => string;
+}) {
+  return (
+    <ul className="wb-cards" aria-label="Misses">
+      {misses.map((miss) => (
+        <li key={miss.id}>
+          <Card className="wb-card wb-miss-card">
+            {miss.thumbnailPhotoId ? (
+              <img
+                className="wb-thumb"
+                src={`/api/photos/${miss.thumbnailPhotoId}/thumb`}
+                alt=""
+                loading="lazy"
+              />
+            ) : (
+              <span className="wb-thumb wb-thumb-none" aria-hidden="true" />
+            )}
+            <div className="wb-card-main">
+              <Link
+                className="wb-card-title wb-mono wb-row-link"
+                to={paths.app.miss.getHref(miss.id)}
+              >
+                {miss.problem}
+              </Link>
+              <span className="wb-muted">
+                answered <span className="wb-mono wb-pencil">{miss.answer}</span> ·{' '}
+                {studentName(miss.studentId)} · {formatDay(miss.occurredOn)}
+              </span>
+              <span className="wb-card-tags">
+                <Tag minimal round>
+                  {causeLabel(miss.cause)}
+                </Tag>
+                <Tag minimal round>
+                  {statusLabel(miss.status)}
+                </Tag>
+                {miss.ruleIds[0] ? (
+                  <span className="wb-muted">{ruleTitle(miss.ruleIds[0])}</span>
+                ) : null}
+              </span>
+            </div>
+          </Card>
+        </li>
+      ))}
+    </ul>
+  );
+}

@@ -1,0 +1,140 @@
+import { Cell, Column, SelectionModes, Table2 } from '@blueprintjs/table';
+import { Link, useNavigate } from 'react-router-dom';
+
+import { paths } from '../../../config/paths';
+import { causeLabel, formatDay, ruleTitle, statusLabel, type MissSummary } from '../types';
+
+const ROW_HEIGHT = 56;
+const HEADER_HEIGHT = 30;
+const WIDTHS = [64, 100, 108, 168, 80, 108, 170, 120];
+
+/** Below this width the table would scroll sideways, so the notebook shows cards instead. */
+export const NOTEBOOK_TABLE_QUERY = '(min-width: 1041px)';
+
+/** The misses as a table (wide screens); a click anywhere on a row opens the miss. */
+export function NotebookTable({
+  misses,
+  studentName,
+}: {
+  misses: readonly MissSummary[];
+  studentName: (id: number) => string;
+}) {
+  const navigate = useNavigate();
+  const open = (row: number) => {
+    const miss = misses[row];
+    if (miss) void navigate(paths.app.miss.getHref(miss.id));
+  };
+  const cell = (row: number, content: React.ReactNode, className?: string) => (
+    <Cell interactive className={className}>
+      <div className="wb-row-hit" onClick={() => open(row)}>
+        {content}
+      </div>
+    </Cell>
+  );
+  const columns = [
+    <Column
+      key="photo"
+      name="Photo"
+      cellRenderer={(row) => {
+        const miss = misses[row];
+        return cell(
+          row,
+          miss?.thumbnailPhotoId ? (
+            <img
+              className="wb-thumb"
+              src={`/api/photos/${miss.thumbnailPhotoId}/thumb`}
+              alt=""
+              loading="lazy"
+            />
+          ) : (
+            <span className="wb-thumb wb-thumb-none" aria-hidden="true" />
+          ),
+        );
+      }}
+    />,
+    <Column
+      key="student"
+      name="Student"
+      cellRenderer={(row) => cell(row, studentName(misses[row]?.studentId ?? 0))}
+    />,
+    <Column
+      key="date"
+      name="Date"
+      cellRenderer={(row) => cell(row, formatDay(misses[row]?.occurredOn ?? ''))}
+    />,
+    <Column
+      key="problem"
+      name="Problem"
+      cellRenderer={(row) => {
+        const miss = misses[row];
+        return (
+          <Cell interactive className="wb-cell-strong">
+            {miss ? (
+              <Link className="wb-row-link wb-mono" to={paths.app.miss.getHref(miss.id)}>
+                {miss.problem}
+              </Link>
+            ) : null}
+          </Cell>
+        );
+      }}
+    />,
+    <Column
+      key="answer"
+      name="Answer"
+      cellRenderer={(row) => cell(row, misses[row]?.answer, 'wb-mono wb-pencil')}
+    />,
+    <Column
+      key="cause"
+      name="Cause"
+      cellRenderer={(row) => {
+        const miss = misses[row];
+        return cell(row, miss ? causeLabel(miss.cause) : '');
+      }}
+    />,
+    <Column
+      key="rule"
+      name="Step error"
+      cellRenderer={(row) => {
+        const miss = misses[row];
+        const first = miss?.ruleIds[0];
+        return cell(
+          row,
+          first ? ruleTitle(first) : miss?.checked ? '—' : 'Not checked',
+          first ? undefined : 'wb-muted',
+        );
+      }}
+    />,
+    <Column
+      key="status"
+      name="Status"
+      cellRenderer={(row) => {
+        const miss = misses[row];
+        return cell(row, miss ? statusLabel(miss.status) : '');
+      }}
+    />,
+  ];
+  const width = WIDTHS.reduce((sum, w) => sum + w, 0);
+  return (
+    <div
+      className="wb-table wb-notebook-table"
+      style={{ height: HEADER_HEIGHT + misses.length * ROW_HEIGHT + 2, width: width + 2 }}
+      aria-label="Misses"
+      role="region"
+    >
+      <Table2
+        numRows={misses.length}
+        defaultRowHeight={ROW_HEIGHT}
+        columnWidths={WIDTHS}
+        enableRowHeader={false}
+        enableFocusedCell={false}
+        enableColumnResizing={false}
+        enableRowResizing={false}
+        enableGhostCells={false}
+        selectionModes={SelectionModes.NONE}
+        cellRendererDependencies={[misses, studentName]}
+      >
+        {columns}
+      </Table2>
+    </div>
+  );
+}

@@ -1,0 +1,142 @@
+import { Button, Classes } from '@blueprintjs/core';
+import { ChevronLeftIcon, ChevronRightIcon, PlusIcon, ManualIcon } from '@blueprintjs/icons';
+import { useCallback } from 'react';
+import { Link } from 'react-router-dom';
+
+import { EmptyState, ErrorState, LoadingState } from '../../../components/states';
+import { paths } from '../../../config/paths';
+import { useMediaQuery } from '../../../lib/use-media-query';
+import { useMisses } from '../api/get-misses';
+import { useNotebookFilters } from '../hooks/use-notebook-filters';
+import type { StudentOption } from '../types';
+import { NotebookCards } from './notebook-cards';
+import { NotebookFilters } from './notebook-filters';
+import { NOTEBOOK_TABLE_QUERY, NotebookTable } from './notebook-table';
+import '../misses.css';
+
+const LINK_BUTTON = `${Classes.BUTTON} ${Classes.INTENT_PRIMARY} wb-link-button`;
+
+/** Every miss of the household, filtered and sorted on the server, the view kept in the URL. */
+export function Notebook({
+  students,
+  canEdit,
+}: {
+  students: readonly StudentOption[];
+  canEdit: boolean;
+}) {
+  const { filters, value, set, clear, active } = useNotebookFilters();
+  const misses = useMisses(filters);
+  const tableFits = useMediaQuery(NOTEBOOK_TABLE_QUERY);
+  const studentName = useCallback(
+    (id: number) => students.find((s) => s.id === id)?.name ?? '—',
+    [students],
+  );
+
+  let body;
+  if (misses.isPending) {
+    body = <LoadingState label="Loading the notebook…" />;
+  } else if (misses.isError) {
+    body = (
+      <ErrorState
+        title="The notebook could not be loaded."
+        error={misses.error}
+        onRetry={() => void misses.refetch()}
+      />
+    );
+  } else if (misses.data.total === 0) {
+    body =
+      active > 0 ? (
+        <EmptyState
+          icon={<ManualIcon size={40} />}
+          title="No misses match these filters. Clear them to see every miss."
+          action={<Button onClick={clear}>Clear filters</Button>}
+        />
+      ) : (
+        <EmptyState
+          icon={<ManualIcon size={40} />}
+          title={
+            canEdit
+              ? 'No misses logged yet. After the next worksheet, log the first one.'
+              : 'Nothing logged for the children shared with you yet.'
+          }
+          action={
+            canEdit ? (
+              <Link className={LINK_BUTTON} to={paths.app.logMiss.getHref()}>
+                Log a miss
+              </Link>
+            ) : undefined
+          }
+        />
+      );
+  } else {
+    const { items, total, page, pageSize } = misses.data;
+    const pages = Math.max(1, Math.ceil(total / pageSize));
+    const first = (page - 1) * pageSize + 1;
+    const last = first + items.length - 1;
+    body = (
+      <>
+        <p className="wb-muted wb-notebook-count" aria-live="polite">
+          {items.length === 0
+            ? `No misses on page ${page}.`
+            : `Showing ${first}–${last} of ${total} ${total === 1 ? 'miss' : 'misses'}`}
+          {misses.isFetching ? ' · updating…' : ''}
+        </p>
+        {tableFits ? (
+          <NotebookTable misses={items} studentName={studentName} />
+        ) : (
+          <NotebookCards misses={items} studentName={studentName} />
+        )}
+        {pages > 1 ? (
+          <nav className="wb-pager" aria-label="Pages">
+            <Button
+              icon={<ChevronLeftIcon />}
+              disabled={page <= 1}
+              onClick={() => set({ page: String(page - 1) })}
+            >
+              Previous
+            </Button>
+            <span>
+              Page {page} of {pages}
+            </span>
+            <Button
+              endIcon={<ChevronRightIcon />}
+              disabled={page >= pages}
+              onClick={() => set({ page: String(page + 1) })}
+            >
+              Next
+            </Button>
+          </nav>
+        ) : null}
+      </>
+    );
+  }
+
+  return (
+    <>
+      <div className="wb-page-head">
+        <div>
+          <h1 className="wb-page-title">Notebook</h1>
+          <p className="wb-muted">
+            Every missed problem, newest first. Filter to spot what keeps coming back; the address
+            of a filtered view can be bookmarked or shared.
+          </p>
+        </div>
+        {canEdit ? (
+          <Link className={`${LINK_BUTTON} wb-hide-phone`} to={paths.app.logMiss.getHref()}>
+            <PlusIcon />
+            <span className={Classes.BUTTON_TEXT}>Log a miss</span>
+          </Link>
+        ) : null}
+      </div>
+      <NotebookFilters
+        students={students}
+        value={value}
+        set={set}
+        clear={clear}
+        active={active}
+        compact={!tableFits}
+      />
+      {body}
+    </>
+  );
+}
