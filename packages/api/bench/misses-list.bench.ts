@@ -28,9 +28,11 @@ export async function fill(
   const statuses = ['logged', 'discussed', 'planned', 'resolved'];
   const diagnosis = JSON.stringify({ filler: 'x'.repeat(3800) });
   const now = new Date().toISOString();
-  const [[{ base }]] = (await sequelize.query(
-    'SELECT COALESCE(MAX(id), 0) AS base FROM misses',
-  )) as [{ base: number }[], unknown];
+  const [maxRows] = (await sequelize.query('SELECT COALESCE(MAX(id), 0) AS base FROM misses')) as [
+    { base: number }[],
+    unknown,
+  ];
+  const base = maxRows[0]?.base ?? 0;
   const batch = 500;
   for (let start = 0; start < MISSES; start += batch) {
     await sequelize.transaction(async (transaction) => {

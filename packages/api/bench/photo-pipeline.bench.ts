@@ -12,6 +12,7 @@ async function twelveMegapixelJpeg(): Promise<Buffer> {
       width: 1000,
       height: 750,
       channels: 3,
+      background: '#ffffff',
       noise: { type: 'gaussian', mean: 200, sigma: 40 },
     },
   })
