@@ -7,7 +7,7 @@ import {
   Logger,
 } from '@nestjs/common';
 import type { Response } from 'express';
-import { UniqueConstraintError } from 'sequelize';
+import { ForeignKeyConstraintError, UniqueConstraintError, ValidationError } from 'sequelize';
 
 const REASONS: Record<number, string> = {
   400: 'Bad Request',
@@ -39,7 +39,11 @@ export class HttpExceptionFilter implements ExceptionFilter {
   catch(exception: unknown, host: ArgumentsHost): void {
     const res = host.switchToHttp().getResponse<Response>();
     const body = this.toBody(exception);
-    if (body.statusCode >= 500) this.logger.error(exception);
+    // Only what identifies the fault: errors from the ORM carry row values (children's data).
+    if (body.statusCode >= 500) {
+      const e = exception instanceof Error ? exception : new Error(String(exception));
+      this.logger.error({ name: e.name, message: e.message, stack: e.stack });
+    }
     if (res.headersSent) return;
     res.status(body.statusCode).json(body);
   }
@@ -56,7 +60,7 @@ export class HttpExceptionFilter implements ExceptionFilter {
       if (payload.fields && typeof payload.fields === 'object') {
         body.fields = payload.fields as Record<string, string>;
       }
-      return body;
+      return withRequestFault(body, exception.cause);
     }
     if (exception instanceof UniqueConstraintError) {
       const field = exception.errors[0]?.path ?? 'value';
@@ -67,14 +71,23 @@ export class HttpExceptionFilter implements ExceptionFilter {
         fields: { [field]: 'is already in use' },
       };
     }
-    if (isBodyParserError(exception)) {
+    if (exception instanceof ValidationError) {
+      // A value the DTO let through but the model refuses (e.g. null for a required column).
+      const fields = Object.fromEntries(
+        exception.errors.map((e) => [e.path ?? 'value', `${e.path ?? 'value'} must not be empty`]),
+      );
       return {
-        statusCode: exception.status,
-        error: REASONS[exception.status] ?? 'Bad Request',
-        message:
-          exception.status === 413
-            ? 'The request body is too large'
-            : 'The request body is not valid JSON',
+        statusCode: HttpStatus.BAD_REQUEST,
+        error: REASONS[400]!,
+        message: `Please check ${Object.keys(fields).join(', ')}`,
+        fields,
+      };
+    }
+    if (exception instanceof ForeignKeyConstraintError) {
+      return {
+        statusCode: HttpStatus.CONFLICT,
+        error: REASONS[409]!,
+        message: 'Something else still refers to this, or it refers to something that is gone',
       };
     }
     return {
@@ -85,11 +98,24 @@ export class HttpExceptionFilter implements ExceptionFilter {
   }
 }
 
-function isBodyParserError(e: unknown): e is { status: number; type: string } {
-  return (
-    typeof e === 'object' &&
-    e !== null &&
-    typeof (e as { status?: unknown }).status === 'number' &&
-    typeof (e as { type?: unknown }).type === 'string'
-  );
+/** Express maps broken JSON and broken %-escapes to 400s with parser wording; name what was wrong. */
+function withRequestFault(body: ErrorBody, cause: unknown): ErrorBody {
+  if (cause instanceof SyntaxError && body.statusCode === 400) {
+    return {
+      ...body,
+      message: 'The request body must be a JSON object',
+      fields: { body: 'must be a JSON object' },
+    };
+  }
+  if (cause instanceof URIError) {
+    return {
+      ...body,
+      message: 'The address has a broken %-escape',
+      fields: { path: 'is not valid' },
+    };
+  }
+  if (body.statusCode === 413 && !body.fields) {
+    return { ...body, message: 'The request body is too large', fields: { body: 'is too large' } };
+  }
+  return body;
 }
