@@ -41,6 +41,18 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
           lazy: lazyRoute(queryClient, () => import('./routes/create-account')),
         },
         {
+          path: paths.forgotPassword.path,
+          lazy: lazyRoute(queryClient, () => import('./routes/forgot-password')),
+        },
+        {
+          path: paths.resetPassword.path,
+          lazy: lazyRoute(queryClient, () => import('./routes/reset-password')),
+        },
+        {
+          path: paths.invitation.path,
+          lazy: lazyRoute(queryClient, () => import('./routes/invitation')),
+        },
+        {
           path: paths.app.root.path,
           loader: protectedLoader(queryClient),
           element: <ProtectedRoute />,
@@ -61,6 +73,10 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
             {
               path: paths.app.miss.path,
               lazy: lazyRoute(queryClient, () => import('./routes/miss')),
+            },
+            {
+              path: paths.app.members.path,
+              lazy: lazyRoute(queryClient, () => import('./routes/members')),
             },
             {
               path: paths.app.account.path,

@@ -12,6 +12,15 @@ export const paths = {
     path: '/create-account',
     getHref: () => '/create-account',
   },
+  forgotPassword: { path: '/forgot-password', getHref: () => '/forgot-password' },
+  resetPassword: {
+    path: '/reset-password/:token',
+    getHref: (token: string) => `/reset-password/${encodeURIComponent(token)}`,
+  },
+  invitation: {
+    path: '/invitations/:token',
+    getHref: (token: string) => `/invitations/${encodeURIComponent(token)}`,
+  },
   app: {
     root: { path: '/', getHref: () => '/' },
     students: { path: '/students', getHref: () => '/students' },
@@ -21,6 +30,7 @@ export const paths = {
       getHref: (search?: string) => (search ? `/notebook?${search}` : '/notebook'),
     },
     miss: { path: '/misses/:missId', getHref: (id: number) => `/misses/${id}` },
+    members: { path: '/members', getHref: () => '/members' },
     account: { path: '/account', getHref: () => '/account' },
   },
 } as const;

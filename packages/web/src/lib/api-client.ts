@@ -168,13 +168,46 @@ async function upload<T>(path: string, form: FormData, options: UploadOptions = 
   }
 }
 
+/** A file the API sends as an attachment (an export zip, a PDF, a CSV). */
+export type DownloadedFile = { blob: Blob; filename: string };
+
+/** `attachment; filename="plan-3.pdf"` → `'plan-3.pdf'`. */
+export function filenameOf(disposition: string | null, fallback: string): string {
+  const match = /filename\*?=(?:UTF-8'')?"?([^";]+)"?/i.exec(disposition ?? '');
+  if (!match?.[1]) return fallback;
+  try {
+    return decodeURIComponent(match[1]);
+  } catch {
+    return match[1];
+  }
+}
+
+/** GETs a file as bytes, so a failure shows as a message on the page instead of a JSON tab. */
+async function download(path: string, fallbackName: string): Promise<DownloadedFile> {
+  let response: Response;
+  try {
+    response = await fetch(`/api${path}`, { credentials: 'same-origin' });
+  } catch {
+    throw new ApiError(0, OFFLINE);
+  }
+  if (!response.ok) {
+    const error = await toApiError(response);
+    if (error.status === 401) forgetCsrfToken();
+    throw error;
+  }
+  const blob = await response.blob();
+  return { blob, filename: filenameOf(response.headers.get('content-disposition'), fallbackName) };
+}
+
 /** The one client for Workback's JSON API (same origin, under /api). */
 export const api = {
   get: <T>(path: string) => send<T>('GET', path),
   post: <T>(path: string, body?: unknown) => write<T>('POST', path, body),
   put: <T>(path: string, body?: unknown) => write<T>('PUT', path, body),
   patch: <T>(path: string, body?: unknown) => write<T>('PATCH', path, body),
-  delete: <T = void>(path: string) => write<T>('DELETE', path),
+  /** A body is rare on DELETE; deleting the household sends its typed confirmation. */
+  delete: <T = void>(path: string, body?: unknown) => write<T>('DELETE', path, body),
   /** A multipart POST (photos), reporting upload progress. */
   upload,
+  download,
 };

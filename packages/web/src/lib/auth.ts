@@ -107,7 +107,8 @@ export function useSignOut() {
   });
 }
 
-const ROLE_LABEL: Readonly<Record<Role, string>> = {
+/** `ROLE_LABEL.tutor` → `'Tutor'`. */
+export const ROLE_LABEL: Readonly<Record<Role, string>> = {
   owner: 'Owner',
   parent: 'Parent',
   tutor: 'Tutor',

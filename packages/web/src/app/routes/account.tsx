@@ -1,7 +1,12 @@
 import { Card } from '@blueprintjs/core';
+import { Role } from '@workback/core';
+import { Link, useNavigate } from 'react-router-dom';
 
 import { SignOutButton } from '../../components/layouts/app-shell';
-import { roleLabel, useSignedIn } from '../../lib/auth';
+import { useToast } from '../../components/toaster';
+import { paths } from '../../config/paths';
+import { HouseholdData } from '../../features/household-data/components/household-data';
+import { canEditHousehold, roleLabel, useSignedIn } from '../../lib/auth';
 
 const ROLE_EXPLAINED: Record<string, string> = {
   Owner: 'You set up this household and can change everything in it.',
@@ -13,6 +18,9 @@ const ROLE_EXPLAINED: Record<string, string> = {
 export default function AccountRoute() {
   const me = useSignedIn();
   const role = roleLabel(me);
+  const navigate = useNavigate();
+  const toast = useToast();
+  const household = me.household;
   return (
     <>
       <h1 className="wb-page-title">Account</h1>
@@ -32,8 +40,33 @@ export default function AccountRoute() {
             ) : null}
           </dd>
         </dl>
+        {canEditHousehold(me) ? (
+          <p>
+            <Link to={paths.app.members.getHref()}>Members of this household</Link>: invite a tutor
+            or a second parent, and choose what they see.
+          </p>
+        ) : null}
+        {household && household.role !== Role.owner ? (
+          <p className="wb-muted">Only the household’s owner can export or delete its data.</p>
+        ) : null}
         <SignOutButton className="wb-account-signout" />
       </Card>
+      {household?.role === Role.owner ? (
+        <HouseholdData
+          householdName={household.name}
+          onDeleted={(summary) => {
+            if (summary.yourAccountClosed) {
+              toast(
+                `${household.name} is deleted, and so is your account. Thank you for using Workback.`,
+              );
+              void navigate(paths.signIn.getHref(), { replace: true });
+            } else {
+              toast(`${household.name} and everything in it is deleted.`);
+              void navigate(paths.app.students.getHref(), { replace: true });
+            }
+          }}
+        />
+      ) : null}
     </>
   );
 }

@@ -1,5 +1,12 @@
 import { Button } from '@blueprintjs/core';
-import { CameraIcon, LogOutIcon, ManualIcon, PeopleIcon, UserIcon } from '@blueprintjs/icons';
+import {
+  CameraIcon,
+  IdNumberIcon,
+  LogOutIcon,
+  ManualIcon,
+  PeopleIcon,
+  UserIcon,
+} from '@blueprintjs/icons';
 import type { ReactNode } from 'react';
 import { NavLink, useNavigate } from 'react-router-dom';
 
@@ -7,6 +14,7 @@ import { paths } from '../../config/paths';
 import { canEditHousehold, roleLabel, useSignOut, useSignedIn, type Me } from '../../lib/auth';
 import { Brand } from '../brand';
 import { useToast } from '../toaster';
+import { HouseholdSwitcher } from './household-switcher';
 
 type NavItem = {
   to: string;
@@ -36,6 +44,12 @@ const NAV_ITEMS: readonly NavItem[] = [
     shownTo: seesChildren,
   },
   { to: paths.app.students.getHref(), label: 'Students', icon: <PeopleIcon /> },
+  {
+    to: paths.app.members.getHref(),
+    label: 'Members',
+    icon: <IdNumberIcon />,
+    shownTo: canEditHousehold,
+  },
   { to: paths.app.account.getHref(), label: 'Account', icon: <UserIcon /> },
 ];
 
@@ -75,10 +89,14 @@ export function AppShell({ children }: { children: ReactNode }) {
       </a>
       <aside className="wb-sidebar" aria-label="Workback">
         <Brand />
-        <div className="wb-household">
-          <span className="wb-household-label">Household</span>
-          <span className="wb-household-name">{householdName}</span>
-        </div>
+        {me.households.length > 1 ? (
+          <HouseholdSwitcher me={me} place="sidebar" />
+        ) : (
+          <div className="wb-household">
+            <span className="wb-household-label">Household</span>
+            <span className="wb-household-name">{householdName}</span>
+          </div>
+        )}
         <nav aria-label="Main">
           <ul className="wb-nav">
             {items.map((item) => (
@@ -102,7 +120,11 @@ export function AppShell({ children }: { children: ReactNode }) {
       </aside>
       <header className="wb-topbar">
         <Brand />
-        <span className="wb-topbar-household">{householdName}</span>
+        {me.households.length > 1 ? (
+          <HouseholdSwitcher me={me} place="topbar" />
+        ) : (
+          <span className="wb-topbar-household">{householdName}</span>
+        )}
       </header>
       <main className="wb-main" id="main" tabIndex={-1}>
         {children}

@@ -1,10 +1,12 @@
 import { Button, Intent } from '@blueprintjs/core';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
+import { Link } from 'react-router-dom';
 
 import { applyFieldErrors } from '../../../components/form/apply-field-errors';
 import { FormError } from '../../../components/form/form-error';
 import { TextField } from '../../../components/form/text-field';
+import { paths } from '../../../config/paths';
 import { isApiError } from '../../../lib/api-client';
 import { useSignIn, type Me, type SignInInput } from '../../../lib/auth';
 import { DemoSignIns } from './demo-sign-ins';
@@ -62,6 +64,9 @@ export function SignInForm({ onSignedIn }: { onSignedIn: (me: Me) => void }) {
           registration={register('password', { required: 'Enter your password.' })}
           error={errors.password?.message}
         />
+        <p className="wb-forgot">
+          <Link to={paths.forgotPassword.getHref()}>Forgot your password?</Link>
+        </p>
         <Button type="submit" intent={Intent.PRIMARY} size="large" fill loading={signIn.isPending}>
           Sign in
         </Button>

@@ -1,0 +1,132 @@
+import { Button, Intent } from '@blueprintjs/core';
+import { useState, type ReactNode } from 'react';
+import { useForm } from 'react-hook-form';
+
+import { applyFieldErrors } from '../../../components/form/apply-field-errors';
+import { CheckboxField } from '../../../components/form/checkbox-field';
+import { FormError } from '../../../components/form/form-error';
+import { TextField } from '../../../components/form/text-field';
+import { isApiError } from '../../../lib/api-client';
+import type { Me } from '../../../lib/auth';
+import { useAcceptInvitation } from '../api/accept-invitation';
+
+type NewAccountValues = {
+  displayName: string;
+  email: string;
+  password: string;
+  adultConfirmed: boolean;
+};
+
+const FIELDS = ['displayName', 'email', 'password'] as const;
+const PASSWORD_MIN = 8;
+const PASSWORD_MAX = 128;
+
+/** A new person accepts: their name and a password make the account, and it joins at once. */
+export function NewAccountForm({
+  token,
+  invitedEmail,
+  householdName,
+  caution,
+  onJoined,
+}: {
+  token: string;
+  invitedEmail: string;
+  householdName: string;
+  /** What we promise about children's data, said before anyone signs up. */
+  caution: ReactNode;
+  onJoined: (me: Me) => void;
+}) {
+  const accept = useAcceptInvitation();
+  const [formError, setFormError] = useState<string | null>(null);
+  const {
+    register,
+    handleSubmit,
+    setError,
+    formState: { errors },
+  } = useForm<NewAccountValues>({
+    defaultValues: { displayName: '', email: invitedEmail, password: '', adultConfirmed: false },
+  });
+
+  const onSubmit = handleSubmit(async (values) => {
+    setFormError(null);
+    const email = values.email.trim();
+    try {
+      onJoined(
+        await accept.mutateAsync({
+          token,
+          displayName: values.displayName.trim(),
+          password: values.password,
+          ...(email.toLowerCase() === invitedEmail.toLowerCase() ? {} : { email }),
+        }),
+      );
+    } catch (error) {
+      if (isApiError(error, 409) && error.fields.email) {
+        setError('email', {
+          type: 'server',
+          message: 'An account with this e-mail already exists. Sign in first (below), then join.',
+        });
+        return;
+      }
+      setFormError(applyFieldErrors(error, setError, FIELDS));
+    }
+  });
+
+  return (
+    <form onSubmit={onSubmit} noValidate aria-label="Create an account and join">
+      <FormError message={formError} />
+      <TextField
+        idPrefix="join"
+        label="Your name"
+        help={`Shown to the people in ${householdName}.`}
+        autoComplete="name"
+        registration={register('displayName', {
+          required: 'Tell us what to call you.',
+          validate: (value) => value.trim().length > 0 || 'Tell us what to call you.',
+          maxLength: { value: 80, message: 'Keep it under 80 characters.' },
+        })}
+        error={errors.displayName?.message}
+      />
+      <TextField
+        idPrefix="join"
+        label="E-mail"
+        type="email"
+        inputMode="email"
+        autoComplete="email"
+        help="The address the invitation went to; change it if you prefer another."
+        registration={register('email', {
+          required: 'Enter your e-mail address.',
+          pattern: {
+            value: /^\S+@\S+\.\S+$/,
+            message: 'That does not look like an e-mail address.',
+          },
+        })}
+        error={errors.email?.message}
+      />
+      <TextField
+        idPrefix="join"
+        label="Password"
+        type="password"
+        autoComplete="new-password"
+        help={`${PASSWORD_MIN} to ${PASSWORD_MAX} characters. A few words strung together works well.`}
+        registration={register('password', {
+          required: 'Choose a password.',
+          minLength: { value: PASSWORD_MIN, message: `Use at least ${PASSWORD_MIN} characters.` },
+          maxLength: { value: PASSWORD_MAX, message: `Use at most ${PASSWORD_MAX} characters.` },
+        })}
+        error={errors.password?.message}
+      />
+      {caution}
+      <CheckboxField
+        idPrefix="join"
+        label="I am an adult, helping this family with their children’s math."
+        registration={register('adultConfirmed', {
+          required: 'Workback accounts are for adults only. Tick the box to go on.',
+        })}
+        error={errors.adultConfirmed?.message}
+      />
+      <Button type="submit" intent={Intent.PRIMARY} size="large" fill loading={accept.isPending}>
+        Create account and join
+      </Button>
+    </form>
+  );
+}
