@@ -7,7 +7,12 @@ import {
   Logger,
 } from '@nestjs/common';
 import type { Response } from 'express';
-import { ForeignKeyConstraintError, UniqueConstraintError, ValidationError } from 'sequelize';
+import {
+  DatabaseError,
+  ForeignKeyConstraintError,
+  UniqueConstraintError,
+  ValidationError,
+} from 'sequelize';
 
 const REASONS: Record<number, string> = {
   400: 'Bad Request',
@@ -90,6 +95,8 @@ export class HttpExceptionFilter implements ExceptionFilter {
         message: 'Something else still refers to this, or it refers to something that is gone',
       };
     }
+    const storage = storageFault(exception);
+    if (storage) return storage;
     return {
       statusCode: HttpStatus.INTERNAL_SERVER_ERROR,
       error: REASONS[500]!,
@@ -118,4 +125,34 @@ function withRequestFault(body: ErrorBody, cause: unknown): ErrorBody {
     return { ...body, message: 'The request body is too large', fields: { body: 'is too large' } };
   }
   return body;
+}
+
+/** A full disk or a read-only data folder: the write was refused whole and can be retried later. */
+function storageFault(exception: unknown): ErrorBody | undefined {
+  const code =
+    exception instanceof DatabaseError
+      ? (exception.parent as { code?: string }).code
+      : (exception as { code?: unknown } | null)?.code;
+  if (code === 'SQLITE_FULL' || code === 'ENOSPC') {
+    return {
+      statusCode: 507,
+      error: REASONS[507]!,
+      message:
+        'The server has run out of storage space, so nothing was saved. Please tell the site admin.',
+    };
+  }
+  if (
+    code === 'SQLITE_READONLY' ||
+    code === 'EROFS' ||
+    code === 'SQLITE_IOERR' ||
+    code === 'SQLITE_CANTOPEN'
+  ) {
+    return {
+      statusCode: HttpStatus.SERVICE_UNAVAILABLE,
+      error: REASONS[503]!,
+      message:
+        'The server cannot write its data right now, so nothing was saved. Please try again later.',
+    };
+  }
+  return undefined;
 }
