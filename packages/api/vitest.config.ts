@@ -8,6 +8,7 @@ export default defineConfig({
   test: {
     name: 'api',
     include: ['src/**/*.spec.ts', 'test/**/*.test.ts'],
+    globalSetup: ['test/support/global-setup.ts'],
     environment: 'node',
     testTimeout: 30_000,
     hookTimeout: 30_000,

@@ -1,8 +1,9 @@
-import { mkdtempSync, rmSync } from 'node:fs';
+import { cpSync, mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import type { NestExpressApplication } from '@nestjs/platform-express';
 import request from 'supertest';
+import { inject } from 'vitest';
 import type TestAgent from 'supertest/lib/agent.js';
 import { createApp } from '../../src/app.factory.js';
 
@@ -24,6 +25,12 @@ export interface TestApp {
 /** The real app on a fresh temporary DATA_DIR (real SQLite files, real sessions). */
 export async function startTestApp(env: Record<string, string> = {}): Promise<TestApp> {
   const dataDir = mkdtempSync(path.join(tmpdir(), 'workback-test-'));
+  // A copy of the once-seeded demo data stands in for seeding again (the seeder skips a
+  // database that has users). A test that wants a fresh seed passes SEED_FRESH.
+  const template = inject('demoTemplateDir');
+  if (template && (env.SEED_DEMO ?? 'true') === 'true' && !env.SEED_FRESH) {
+    cpSync(template, dataDir, { recursive: true });
+  }
   Object.assign(process.env, {
     NODE_ENV: 'test',
     DATA_DIR: dataDir,
