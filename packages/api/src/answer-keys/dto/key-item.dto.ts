@@ -1,18 +1,9 @@
 import { ApiProperty, ApiPropertyOptional } from '@nestjs/swagger';
 import { Transform } from 'class-transformer';
-import {
-  ArrayMaxSize,
-  IsArray,
-  IsInt,
-  IsOptional,
-  IsString,
-  Length,
-  Matches,
-  Max,
-  Min,
-} from 'class-validator';
+import { ArrayMaxSize, IsArray, IsInt, IsString, Length, Matches, Max, Min } from 'class-validator';
 import { Trim } from '../../common/decorators/trim.decorator.js';
 import { trimList } from '../../curriculum/dto/create-lesson.dto.js';
+import { IfPresent } from '../../common/decorators/if-present.decorator.js';
 
 const numbersAsText = ({ value }: { value: unknown }) =>
   Array.isArray(value)
@@ -42,7 +33,7 @@ export class KeyItemDto {
   answer: string;
 
   @ApiPropertyOptional({ type: [String], example: ['partial products'] })
-  @IsOptional()
+  @IfPresent()
   @Transform(trimList)
   @ArrayMaxSize(12, { message: 'skills can hold at most 12 entries' })
   @Length(1, 60, { each: true, message: 'each skill must be 1 to 60 characters' })
@@ -55,7 +46,7 @@ export class KeyItemDto {
     example: ['12', '31-33'],
     description: 'Lessons to revisit: lesson numbers and ranges such as 31-33',
   })
-  @IsOptional()
+  @IfPresent()
   @Transform(numbersAsText)
   @ArrayMaxSize(20, { message: 'revisit can hold at most 20 entries' })
   @IsString({ each: true, message: 'each lesson to revisit must be a number or a range' })
@@ -63,7 +54,7 @@ export class KeyItemDto {
   revisit?: string[];
 
   @ApiPropertyOptional({ type: [String], example: ['sixes'], description: 'Fact families' })
-  @IsOptional()
+  @IfPresent()
   @Transform(trimList)
   @ArrayMaxSize(6, { message: 'facts can hold at most 6 entries' })
   @Length(1, 40, { each: true, message: 'each fact family must be 1 to 40 characters' })
@@ -75,7 +66,7 @@ export class KeyItemDto {
 /** An item in a PATCH: with the `id` of an existing item, or without one for a new item. */
 export class KeyItemUpdateDto extends KeyItemDto {
   @ApiPropertyOptional({ example: 41 })
-  @IsOptional()
+  @IfPresent()
   @IsInt({ message: 'id must be a whole number' })
   id?: number;
 }

@@ -1,17 +1,8 @@
 import { ApiProperty, ApiPropertyOptional } from '@nestjs/swagger';
 import { Transform } from 'class-transformer';
-import {
-  ArrayMaxSize,
-  IsArray,
-  IsInt,
-  IsOptional,
-  IsString,
-  Length,
-  Matches,
-  Max,
-  Min,
-} from 'class-validator';
+import { ArrayMaxSize, IsArray, IsInt, IsString, Length, Matches, Max, Min } from 'class-validator';
 import { Trim } from '../../common/decorators/trim.decorator.js';
+import { IfPresent } from '../../common/decorators/if-present.decorator.js';
 
 export const trimList = ({ value }: { value: unknown }) =>
   Array.isArray(value) ? value.map((v) => (typeof v === 'string' ? v.trim() : v)) : value;
@@ -31,7 +22,7 @@ export class CreateLessonDto {
   title: string;
 
   @ApiPropertyOptional({ type: [String], example: ['regrouping', 'subtraction'] })
-  @IsOptional()
+  @IfPresent()
   @Transform(trimList)
   @ArrayMaxSize(12, { message: 'skills can hold at most 12 entries' })
   @Length(1, 60, { each: true, message: 'each skill must be 1 to 60 characters' })

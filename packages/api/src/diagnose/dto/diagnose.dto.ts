@@ -1,6 +1,7 @@
 import { ApiProperty, ApiPropertyOptional } from '@nestjs/swagger';
-import { IsObject, IsOptional, IsString, Length } from 'class-validator';
+import { IsObject, IsString, Length } from 'class-validator';
 import type { WrittenSteps } from '@workback/core';
+import { IfPresent } from '../../common/decorators/if-present.decorator.js';
 
 export class DiagnoseDto {
   @ApiProperty({ example: '304 - 75', maxLength: 200 })
@@ -17,7 +18,7 @@ export class DiagnoseDto {
     description: 'The written steps: { partials?: string[], lines?: string[] }',
     example: { partials: ['68', '340'] },
   })
-  @IsOptional()
+  @IfPresent()
   @IsObject({ message: 'steps must be an object such as { "partials": ["68", "340"] }' })
   steps?: WrittenSteps;
 }

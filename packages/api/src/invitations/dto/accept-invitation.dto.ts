@@ -1,11 +1,12 @@
 import { ApiPropertyOptional } from '@nestjs/swagger';
-import { IsEmail, IsOptional, IsString, Length, Matches } from 'class-validator';
+import { IsEmail, IsString, Length, Matches } from 'class-validator';
 import { Trim } from '../../common/decorators/trim.decorator.js';
+import { IfPresent } from '../../common/decorators/if-present.decorator.js';
 
 /** Empty when signed in; a new person sends displayName and password (and may choose the e-mail). */
 export class AcceptInvitationDto {
   @ApiPropertyOptional({ example: 'Sam' })
-  @IsOptional()
+  @IfPresent()
   @Trim()
   @IsString()
   @Length(1, 80, { message: 'displayName must be 1 to 80 characters' })
@@ -13,13 +14,13 @@ export class AcceptInvitationDto {
   displayName?: string;
 
   @ApiPropertyOptional({ description: '8 to 128 characters', minLength: 8 })
-  @IsOptional()
+  @IfPresent()
   @IsString()
   @Length(8, 128, { message: 'password must be 8 to 128 characters' })
   password?: string;
 
   @ApiPropertyOptional({ description: 'Defaults to the address the invitation was sent to' })
-  @IsOptional()
+  @IfPresent()
   @Trim()
   @IsEmail({}, { message: 'email must be an e-mail address' })
   @Length(3, 254, { message: 'email must be an e-mail address' })

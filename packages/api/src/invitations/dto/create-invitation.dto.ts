@@ -1,16 +1,8 @@
 import { ApiProperty, ApiPropertyOptional } from '@nestjs/swagger';
 import { Role } from '@workback/core';
-import {
-  ArrayMaxSize,
-  IsArray,
-  IsEmail,
-  IsIn,
-  IsInt,
-  IsOptional,
-  Length,
-  Min,
-} from 'class-validator';
+import { ArrayMaxSize, IsArray, IsEmail, IsIn, IsInt, Length, Min } from 'class-validator';
 import { Trim } from '../../common/decorators/trim.decorator.js';
+import { IfPresent } from '../../common/decorators/if-present.decorator.js';
 
 export class CreateInvitationDto {
   @ApiProperty({ example: 'helper@example.test' })
@@ -27,7 +19,7 @@ export class CreateInvitationDto {
     type: [Number],
     description: 'For a tutor: the students they may see (at least one). Not for a parent.',
   })
-  @IsOptional()
+  @IfPresent()
   @IsArray({ message: 'studentIds must be a list of student ids' })
   @ArrayMaxSize(200)
   @IsInt({ each: true, message: 'studentIds must be a list of student ids' })

@@ -4,7 +4,6 @@ import {
   ArrayMaxSize,
   IsArray,
   IsNumber,
-  IsOptional,
   IsString,
   Max,
   MaxLength,
@@ -12,6 +11,7 @@ import {
   ValidateNested,
 } from 'class-validator';
 import { Trim } from '../../common/decorators/trim.decorator.js';
+import { IfPresent } from '../../common/decorators/if-present.decorator.js';
 
 export const MAX_MARKS = 20;
 
@@ -41,7 +41,7 @@ export class MarkDto {
   y: number;
 
   @ApiPropertyOptional({ maxLength: 40, example: 'borrowed here' })
-  @IsOptional()
+  @IfPresent()
   @Trim()
   @IsString()
   @MaxLength(40, { message: 'label must be at most 40 characters' })

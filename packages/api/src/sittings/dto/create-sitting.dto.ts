@@ -3,7 +3,6 @@ import { Type } from 'class-transformer';
 import {
   IsBoolean,
   IsInt,
-  IsOptional,
   IsPositive,
   IsString,
   Max,
@@ -13,6 +12,7 @@ import {
   ValidateNested,
 } from 'class-validator';
 import { Trim } from '../../common/decorators/trim.decorator.js';
+import { IfPresent } from '../../common/decorators/if-present.decorator.js';
 
 const notNull = (_: object, value: unknown) => value !== null && value !== undefined;
 
@@ -61,7 +61,7 @@ export class CreateSittingDto {
   minutes?: number | null;
 
   @ApiPropertyOptional({ type: SittingConditionsDto })
-  @IsOptional()
+  @IfPresent()
   @Type(() => SittingConditionsDto)
   @ValidateNested()
   conditions?: SittingConditionsDto;

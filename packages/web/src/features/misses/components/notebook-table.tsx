@@ -24,8 +24,8 @@ export function NotebookTable({
     const miss = misses[row];
     if (miss) void navigate(paths.app.miss.getHref(miss.id));
   };
-  const cell = (row: number, content: React.ReactNode, className?: string) => (
-    <Cell interactive className={className}>
+  const cell = (row: number, content: React.ReactNode, className?: string, tooltip?: string) => (
+    <Cell interactive className={className} tooltip={tooltip}>
       <div className="wb-row-hit" onClick={() => open(row)}>
         {content}
       </div>
@@ -68,7 +68,7 @@ export function NotebookTable({
       cellRenderer={(row) => {
         const miss = misses[row];
         return (
-          <Cell interactive className="wb-cell-strong">
+          <Cell interactive className="wb-cell-strong" tooltip={miss?.problem}>
             {miss ? (
               <Link className="wb-row-link wb-mono" to={paths.app.miss.getHref(miss.id)}>
                 {miss.problem}
@@ -97,11 +97,8 @@ export function NotebookTable({
       cellRenderer={(row) => {
         const miss = misses[row];
         const first = miss?.ruleIds[0];
-        return cell(
-          row,
-          first ? ruleTitle(first) : miss?.checked ? '—' : 'Not checked',
-          first ? undefined : 'wb-muted',
-        );
+        const title = first ? ruleTitle(first) : miss?.checked ? '—' : 'Not checked';
+        return cell(row, title, first ? undefined : 'wb-muted', first ? title : undefined);
       }}
     />,
     <Column

@@ -73,7 +73,7 @@ export function NotesThread({ missId }: { missId: number }) {
   return (
     <div className="wb-notes-thread">
       {list}
-      <form onSubmit={(event) => void onSubmit(event)} noValidate aria-label="Add a note">
+      <form onSubmit={(event) => void onSubmit(event)} noValidate aria-label="New note">
         <FormError message={formError} />
         <TextAreaField
           idPrefix={`note-${missId}`}

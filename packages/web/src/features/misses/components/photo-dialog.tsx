@@ -134,7 +134,7 @@ function PinEditor({
               Pin in the middle
             </Button>
             <Button variant="outlined" onClick={onClose}>
-              Close
+              Done
             </Button>
             <Button
               intent={Intent.PRIMARY}

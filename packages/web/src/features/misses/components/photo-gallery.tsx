@@ -15,12 +15,7 @@ export function PhotoGallery({ missId, photos }: { missId: number; photos: reado
       <ul className="wb-gallery" aria-label="Photos">
         {photos.map((photo, i) => (
           <li key={photo.id}>
-            <button
-              type="button"
-              className="wb-gallery-item"
-              onClick={() => setOpen(photo.id)}
-              aria-label={`Open photo ${i + 1} to look closer or place pins`}
-            >
+            <button type="button" className="wb-gallery-item" onClick={() => setOpen(photo.id)}>
               <span className="wb-gallery-frame">
                 <img src={photo.thumbUrl} alt="" />
                 {photo.marks.map((pin, j) => (
@@ -39,6 +34,7 @@ export function PhotoGallery({ missId, photos }: { missId: number; photos: reado
                 {photo.marks.length > 0
                   ? ` · ${photo.marks.length} ${photo.marks.length === 1 ? 'pin' : 'pins'}`
                   : ''}
+                <span className="wb-sr-only">: open it to look closer or place pins</span>
               </span>
             </button>
           </li>

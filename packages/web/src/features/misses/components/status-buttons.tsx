@@ -27,7 +27,7 @@ export function StatusButtons({
     );
   }
   return (
-    <ButtonGroup className="wb-status-buttons" aria-label="Where this miss stands">
+    <ButtonGroup className="wb-status-buttons" role="group" aria-label="Where this miss stands">
       {MISS_STATUSES.map((value) => (
         <Button
           key={value}
