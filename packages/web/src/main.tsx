@@ -7,6 +7,7 @@ import '@blueprintjs/core/lib/css/blueprint.css';
 import '@blueprintjs/icons/lib/css/blueprint-icons.css';
 import '@blueprintjs/table/lib/css/table.css';
 import './styles/theme.css';
+import './styles/records.css';
 
 import { StrictMode } from 'react';
 import { createRoot } from 'react-dom/client';
