@@ -63,6 +63,10 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
               lazy: lazyRoute(queryClient, () => import('./routes/students')),
             },
             {
+              path: paths.app.curriculum.path,
+              lazy: lazyRoute(queryClient, () => import('./routes/curriculum')),
+            },
+            {
               path: paths.app.logMiss.path,
               lazy: lazyRoute(queryClient, () => import('./routes/log-miss')),
             },

@@ -24,6 +24,7 @@ export const paths = {
   app: {
     root: { path: '/', getHref: () => '/' },
     students: { path: '/students', getHref: () => '/students' },
+    curriculum: { path: '/curriculum', getHref: () => '/curriculum' },
     logMiss: { path: '/misses/new', getHref: () => '/misses/new' },
     notebook: {
       path: '/notebook',
