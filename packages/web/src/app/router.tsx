@@ -63,6 +63,14 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
               lazy: lazyRoute(queryClient, () => import('./routes/students')),
             },
             {
+              path: paths.app.answerKeys.path,
+              lazy: lazyRoute(queryClient, () => import('./routes/answer-keys')),
+            },
+            {
+              path: paths.app.answerKey.path,
+              lazy: lazyRoute(queryClient, () => import('./routes/answer-key')),
+            },
+            {
               path: paths.app.curriculum.path,
               lazy: lazyRoute(queryClient, () => import('./routes/curriculum')),
             },

@@ -24,6 +24,8 @@ export const paths = {
   app: {
     root: { path: '/', getHref: () => '/' },
     students: { path: '/students', getHref: () => '/students' },
+    answerKeys: { path: '/keys', getHref: () => '/keys' },
+    answerKey: { path: '/keys/:keyId', getHref: (id: number) => `/keys/${id}` },
     curriculum: { path: '/curriculum', getHref: () => '/curriculum' },
     logMiss: { path: '/misses/new', getHref: () => '/misses/new' },
     notebook: {
