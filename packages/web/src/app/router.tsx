@@ -63,6 +63,26 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
               lazy: lazyRoute(queryClient, () => import('./routes/students')),
             },
             {
+              path: paths.app.student.path,
+              lazy: lazyRoute(queryClient, () => import('./routes/student')),
+            },
+            {
+              path: paths.app.sittings.path,
+              lazy: lazyRoute(queryClient, () => import('./routes/sittings')),
+            },
+            {
+              path: paths.app.newSitting.path,
+              lazy: lazyRoute(queryClient, () => import('./routes/new-sitting')),
+            },
+            {
+              path: paths.app.sitting.path,
+              lazy: lazyRoute(queryClient, () => import('./routes/sitting')),
+            },
+            {
+              path: paths.app.sittingMisses.path,
+              lazy: lazyRoute(queryClient, () => import('./routes/sitting-misses')),
+            },
+            {
               path: paths.app.answerKeys.path,
               lazy: lazyRoute(queryClient, () => import('./routes/answer-keys')),
             },

@@ -24,6 +24,23 @@ export const paths = {
   app: {
     root: { path: '/', getHref: () => '/' },
     students: { path: '/students', getHref: () => '/students' },
+    student: { path: '/students/:studentId', getHref: (id: number) => `/students/${id}` },
+    sittings: { path: '/sittings', getHref: () => '/sittings' },
+    newSitting: {
+      path: '/sittings/new',
+      getHref: (preset?: { studentId?: number; answerKeyId?: number }) => {
+        const search = new URLSearchParams();
+        if (preset?.studentId) search.set('studentId', String(preset.studentId));
+        if (preset?.answerKeyId) search.set('answerKeyId', String(preset.answerKeyId));
+        const text = search.toString();
+        return text ? `/sittings/new?${text}` : '/sittings/new';
+      },
+    },
+    sitting: { path: '/sittings/:sittingId', getHref: (id: number) => `/sittings/${id}` },
+    sittingMisses: {
+      path: '/sittings/:sittingId/misses',
+      getHref: (id: number) => `/sittings/${id}/misses`,
+    },
     answerKeys: { path: '/keys', getHref: () => '/keys' },
     answerKey: { path: '/keys/:keyId', getHref: (id: number) => `/keys/${id}` },
     curriculum: { path: '/curriculum', getHref: () => '/curriculum' },

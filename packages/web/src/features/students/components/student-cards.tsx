@@ -1,5 +1,7 @@
 import { Card } from '@blueprintjs/core';
+import { Link } from 'react-router-dom';
 
+import { paths } from '../../../config/paths';
 import { formatAdded, gradeLabel, type Student } from '../types';
 import { StudentActions, type StudentActionHandlers } from './student-actions';
 
@@ -17,7 +19,9 @@ export function StudentCards({
         <li key={student.id}>
           <Card className="wb-card">
             <div className="wb-card-main">
-              <span className="wb-card-title">{student.name}</span>
+              <Link className="wb-card-title" to={paths.app.student.getHref(student.id)}>
+                {student.name}
+              </Link>
               <span className="wb-muted">
                 {gradeLabel(student.gradeLevel)} · added {formatAdded(student.createdAt)}
               </span>

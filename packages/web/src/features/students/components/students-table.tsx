@@ -1,5 +1,7 @@
 import { Cell, Column, SelectionModes, Table2 } from '@blueprintjs/table';
+import { Link } from 'react-router-dom';
 
+import { paths } from '../../../config/paths';
 import { formatAdded, gradeLabel, type Student } from '../types';
 import { StudentActions, type StudentActionHandlers } from './student-actions';
 
@@ -23,7 +25,16 @@ export function StudentsTable({
     <Column
       key="name"
       name="Name"
-      cellRenderer={(row) => <Cell className="wb-cell-strong">{students[row]?.name}</Cell>}
+      cellRenderer={(row) => {
+        const student = students[row];
+        return (
+          <Cell interactive className="wb-cell-strong">
+            {student ? (
+              <Link to={paths.app.student.getHref(student.id)}>{student.name}</Link>
+            ) : null}
+          </Cell>
+        );
+      }}
     />,
     <Column
       key="grade"
