@@ -1,13 +1,17 @@
-import { Button } from '@blueprintjs/core';
+import { Button, PopoverNext } from '@blueprintjs/core';
 import {
+  BookIcon,
   CameraIcon,
+  DocumentIcon,
   IdNumberIcon,
   LogOutIcon,
   ManualIcon,
+  MoreIcon,
   PeopleIcon,
+  TimelineEventsIcon,
   UserIcon,
 } from '@blueprintjs/icons';
-import type { ReactNode } from 'react';
+import { useState, type ReactNode } from 'react';
 import { NavLink, useNavigate } from 'react-router-dom';
 
 import { paths } from '../../config/paths';
@@ -24,6 +28,8 @@ type NavItem = {
   primary?: boolean;
   /** Shown only to whom it is for (e.g. owners and parents log misses). */
   shownTo?: (me: Me) => boolean;
+  /** Less frequent pages sit behind “More” on the phone bar, to keep it uncluttered. */
+  phoneMore?: boolean;
 };
 
 const seesChildren = (me: Me) => !me.user.isAdmin && me.household !== null;
@@ -43,15 +49,68 @@ const NAV_ITEMS: readonly NavItem[] = [
     icon: <ManualIcon />,
     shownTo: seesChildren,
   },
+  {
+    to: paths.app.sittings.getHref(),
+    label: 'Sittings',
+    icon: <TimelineEventsIcon />,
+    shownTo: seesChildren,
+  },
   { to: paths.app.students.getHref(), label: 'Students', icon: <PeopleIcon /> },
+  {
+    to: paths.app.answerKeys.getHref(),
+    label: 'Answer keys',
+    icon: <DocumentIcon />,
+    shownTo: seesChildren,
+    phoneMore: true,
+  },
+  {
+    to: paths.app.curriculum.getHref(),
+    label: 'Curriculum',
+    icon: <BookIcon />,
+    shownTo: seesChildren,
+    phoneMore: true,
+  },
   {
     to: paths.app.members.getHref(),
     label: 'Members',
     icon: <IdNumberIcon />,
     shownTo: canEditHousehold,
+    phoneMore: true,
   },
-  { to: paths.app.account.getHref(), label: 'Account', icon: <UserIcon /> },
+  { to: paths.app.account.getHref(), label: 'Account', icon: <UserIcon />, phoneMore: true },
 ];
+
+/** The phone bar's last button: the less frequent pages in a small menu above the bar. */
+function PhoneMore({ items }: { items: readonly NavItem[] }) {
+  const [open, setOpen] = useState(false);
+  return (
+    <PopoverNext
+      isOpen={open}
+      onInteraction={setOpen}
+      usePortal={false}
+      placement="top-end"
+      arrow={false}
+      className="wb-bottombar-more"
+      content={
+        <ul className="wb-more-menu">
+          {items.map((item) => (
+            <li key={item.to}>
+              <NavLink to={item.to} className="wb-more-link" onClick={() => setOpen(false)}>
+                {item.icon}
+                <span>{item.label}</span>
+              </NavLink>
+            </li>
+          ))}
+        </ul>
+      }
+    >
+      <button type="button" className="wb-bottombar-link" aria-expanded={open}>
+        <MoreIcon />
+        <span>More</span>
+      </button>
+    </PopoverNext>
+  );
+}
 
 export function SignOutButton({ className }: { className?: string }) {
   const signOut = useSignOut();
@@ -130,16 +189,23 @@ export function AppShell({ children }: { children: ReactNode }) {
         {children}
       </main>
       <nav className="wb-bottombar" aria-label="Main (phone)">
-        {items.map((item) => (
-          <NavLink
-            key={item.to}
-            to={item.to}
-            className={item.primary ? 'wb-bottombar-link wb-bottombar-primary' : 'wb-bottombar-link'}
-          >
-            {item.icon}
-            <span>{item.label}</span>
-          </NavLink>
-        ))}
+        {items
+          .filter((item) => !item.phoneMore)
+          .map((item) => (
+            <NavLink
+              key={item.to}
+              to={item.to}
+              className={
+                item.primary ? 'wb-bottombar-link wb-bottombar-primary' : 'wb-bottombar-link'
+              }
+            >
+              {item.icon}
+              <span>{item.label}</span>
+            </NavLink>
+          ))}
+        {items.some((item) => item.phoneMore) ? (
+          <PhoneMore items={items.filter((item) => item.phoneMore)} />
+        ) : null}
       </nav>
     </div>
   );
