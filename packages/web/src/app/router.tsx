@@ -83,16 +83,16 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
               lazy: lazyRoute(queryClient, () => import('./routes/sitting-misses')),
             },
             {
+              path: paths.app.curriculum.path,
+              lazy: lazyRoute(queryClient, () => import('./routes/curriculum')),
+            },
+            {
               path: paths.app.answerKeys.path,
               lazy: lazyRoute(queryClient, () => import('./routes/answer-keys')),
             },
             {
               path: paths.app.answerKey.path,
               lazy: lazyRoute(queryClient, () => import('./routes/answer-key')),
-            },
-            {
-              path: paths.app.curriculum.path,
-              lazy: lazyRoute(queryClient, () => import('./routes/curriculum')),
             },
             {
               path: paths.app.logMiss.path,

@@ -41,9 +41,9 @@ export const paths = {
       path: '/sittings/:sittingId/misses',
       getHref: (id: number) => `/sittings/${id}/misses`,
     },
+    curriculum: { path: '/curriculum', getHref: () => '/curriculum' },
     answerKeys: { path: '/keys', getHref: () => '/keys' },
     answerKey: { path: '/keys/:keyId', getHref: (id: number) => `/keys/${id}` },
-    curriculum: { path: '/curriculum', getHref: () => '/curriculum' },
     logMiss: { path: '/misses/new', getHref: () => '/misses/new' },
     notebook: {
       path: '/notebook',
