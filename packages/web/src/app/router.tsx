@@ -67,6 +67,18 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
               lazy: lazyRoute(queryClient, () => import('./routes/student')),
             },
             {
+              path: paths.app.curriculum.path,
+              lazy: lazyRoute(queryClient, () => import('./routes/curriculum')),
+            },
+            {
+              path: paths.app.answerKeys.path,
+              lazy: lazyRoute(queryClient, () => import('./routes/answer-keys')),
+            },
+            {
+              path: paths.app.answerKey.path,
+              lazy: lazyRoute(queryClient, () => import('./routes/answer-key')),
+            },
+            {
               path: paths.app.sittings.path,
               lazy: lazyRoute(queryClient, () => import('./routes/sittings')),
             },
@@ -81,18 +93,6 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
             {
               path: paths.app.sittingMisses.path,
               lazy: lazyRoute(queryClient, () => import('./routes/sitting-misses')),
-            },
-            {
-              path: paths.app.curriculum.path,
-              lazy: lazyRoute(queryClient, () => import('./routes/curriculum')),
-            },
-            {
-              path: paths.app.answerKeys.path,
-              lazy: lazyRoute(queryClient, () => import('./routes/answer-keys')),
-            },
-            {
-              path: paths.app.answerKey.path,
-              lazy: lazyRoute(queryClient, () => import('./routes/answer-key')),
             },
             {
               path: paths.app.logMiss.path,

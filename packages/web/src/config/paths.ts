@@ -25,6 +25,9 @@ export const paths = {
     root: { path: '/', getHref: () => '/' },
     students: { path: '/students', getHref: () => '/students' },
     student: { path: '/students/:studentId', getHref: (id: number) => `/students/${id}` },
+    curriculum: { path: '/curriculum', getHref: () => '/curriculum' },
+    answerKeys: { path: '/keys', getHref: () => '/keys' },
+    answerKey: { path: '/keys/:keyId', getHref: (id: number) => `/keys/${id}` },
     sittings: { path: '/sittings', getHref: () => '/sittings' },
     newSitting: {
       path: '/sittings/new',
@@ -41,9 +44,6 @@ export const paths = {
       path: '/sittings/:sittingId/misses',
       getHref: (id: number) => `/sittings/${id}/misses`,
     },
-    curriculum: { path: '/curriculum', getHref: () => '/curriculum' },
-    answerKeys: { path: '/keys', getHref: () => '/keys' },
-    answerKey: { path: '/keys/:keyId', getHref: (id: number) => `/keys/${id}` },
     logMiss: { path: '/misses/new', getHref: () => '/misses/new' },
     notebook: {
       path: '/notebook',
