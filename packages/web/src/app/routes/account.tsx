@@ -6,7 +6,7 @@ import { SignOutButton } from '../../components/layouts/app-shell';
 import { useToast } from '../../components/toaster';
 import { paths } from '../../config/paths';
 import { HouseholdData } from '../../features/household-data/components/household-data';
-import { canEditHousehold, roleLabel, useSignedIn } from '../../lib/auth';
+import { canEditHousehold, roleLabel, useMe } from '../../lib/auth';
 
 const ROLE_EXPLAINED: Record<string, string> = {
   Owner: 'You set up this household and can change everything in it.',
@@ -16,10 +16,12 @@ const ROLE_EXPLAINED: Record<string, string> = {
 };
 
 export default function AccountRoute() {
-  const me = useSignedIn();
-  const role = roleLabel(me);
   const navigate = useNavigate();
   const toast = useToast();
+  // Signing out or deleting the household from this page ends the session under it.
+  const { data: me } = useMe();
+  if (!me) return null;
+  const role = roleLabel(me);
   const household = me.household;
   return (
     <>

@@ -20,7 +20,10 @@ export function useAcceptInvitation() {
     mutationFn: acceptInvitation,
     onSuccess: (me) => {
       // Nothing of another household may stay cached once this session shows the new one.
-      queryClient.removeQueries({ predicate: (q) => q.queryKey[0] !== authKeys.all[0] });
+      // (The open invitation page keeps its own preview until it moves on.)
+      queryClient.removeQueries({
+        predicate: (q) => q.queryKey[0] !== authKeys.all[0] && q.queryKey[1] !== 'preview',
+      });
       queryClient.setQueryData(authKeys.me(), me);
     },
   });

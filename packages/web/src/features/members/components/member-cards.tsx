@@ -58,7 +58,7 @@ export function MemberCards({
                     variant="minimal"
                     icon={<EditIcon />}
                     onClick={() => onChange(member)}
-                    aria-label={`Change ${member.displayName}’s access`}
+                    aria-label={`Change access for ${member.displayName}`}
                   >
                     Change access
                   </Button>

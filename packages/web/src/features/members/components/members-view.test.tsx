@@ -115,7 +115,7 @@ describe('Members page', () => {
     const { user, requests } = openMembers({
       'PATCH /members/2': json(200, { ...members[1], studentIds: [1, 2] }),
     });
-    await user.click(await screen.findByRole('button', { name: 'Change Robin’s access' }));
+    await user.click(await screen.findByRole('button', { name: 'Change access for Robin' }));
     const dialog = await screen.findByRole('dialog');
     expect(within(dialog).getByLabelText('Ollie')).toBeChecked();
     await user.click(within(dialog).getByLabelText('Juniper'));

@@ -46,7 +46,7 @@ function InvitationCard({
         variant="minimal"
         icon={<CrossIcon />}
         loading={withdraw.isPending}
-        aria-label={`Withdraw the invitation to ${invitation.email}`}
+        aria-label={`${expired ? 'Remove' : 'Withdraw'} the invitation to ${invitation.email}`}
         onClick={() =>
           withdraw.mutate(invitation.id, {
             onSuccess: () =>
