@@ -107,6 +107,22 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
               lazy: lazyRoute(queryClient, () => import('./routes/miss')),
             },
             {
+              path: paths.app.patterns.path,
+              lazy: lazyRoute(queryClient, () => import('./routes/patterns')),
+            },
+            {
+              path: paths.app.reviewPlans.path,
+              lazy: lazyRoute(queryClient, () => import('./routes/review-plans')),
+            },
+            {
+              path: paths.app.newReviewPlan.path,
+              lazy: lazyRoute(queryClient, () => import('./routes/new-review-plan')),
+            },
+            {
+              path: paths.app.reviewPlan.path,
+              lazy: lazyRoute(queryClient, () => import('./routes/review-plan')),
+            },
+            {
               path: paths.app.members.path,
               lazy: lazyRoute(queryClient, () => import('./routes/members')),
             },

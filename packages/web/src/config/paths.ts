@@ -50,6 +50,18 @@ export const paths = {
       getHref: (search?: string) => (search ? `/notebook?${search}` : '/notebook'),
     },
     miss: { path: '/misses/:missId', getHref: (id: number) => `/misses/${id}` },
+    patterns: { path: '/patterns', getHref: () => '/patterns' },
+    reviewPlans: {
+      path: '/review-plans',
+      getHref: (studentId?: number) =>
+        studentId ? `/review-plans?student=${studentId}` : '/review-plans',
+    },
+    newReviewPlan: {
+      path: '/review-plans/new',
+      getHref: (studentId?: number) =>
+        studentId ? `/review-plans/new?student=${studentId}` : '/review-plans/new',
+    },
+    reviewPlan: { path: '/review-plans/:planId', getHref: (id: number) => `/review-plans/${id}` },
     members: { path: '/members', getHref: () => '/members' },
     account: { path: '/account', getHref: () => '/account' },
   },

@@ -1,0 +1,271 @@
+import { readFile } from 'node:fs/promises';
+
+import type { Browser, Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
+
+import { capture, checkPage, launchBrowser, openApp, PHONE, WIDE, type Watched } from './browser';
+
+const baseUrl = inject('baseUrl');
+const DEMO_PASSWORD = 'workback-demo';
+
+type Mail = {
+  to: string;
+  subject: string;
+  text: string;
+  attachments: { filename: string; contentType: string; size: number }[];
+  links: string[];
+};
+
+let browser: Browser;
+
+beforeAll(async () => {
+  browser = await launchBrowser();
+});
+
+afterAll(async () => {
+  await browser?.close();
+});
+
+async function outbox(): Promise<Mail[]> {
+  const response = await fetch(`${baseUrl}/api/dev/outbox`);
+  expect(response.status).toBe(200);
+  return ((await response.json()) as { items: Mail[] }).items;
+}
+
+/** The newest mail to `to` whose subject matches, as soon as the fake server has it. */
+async function mailTo(to: string, subject: RegExp): Promise<Mail> {
+  let found: Mail | undefined;
+  await expect
+    .poll(async () => {
+      found = (await outbox()).find((m) => m.to.includes(to) && subject.test(m.subject));
+      return found !== undefined;
+    })
+    .toBe(true);
+  return found!;
+}
+
+function pathOf(mail: Mail, part: string): string {
+  const link = mail.links.find((l) => l.includes(part));
+  expect(link, `a ${part} link in “${mail.subject}”`).toBeDefined();
+  return new URL(link!).pathname;
+}
+
+async function signIn(page: Page, email: string, password: string) {
+  await page.goto('/sign-in');
+  await page.getByLabel('E-mail').fill(email);
+  await page.getByLabel('Password', { exact: true }).fill(password);
+  await page.getByRole('button', { name: 'Sign in', exact: true }).click();
+  await page.waitForURL('**/students');
+}
+
+async function toast(page: Page, text: string | RegExp) {
+  await page.locator('.bp6-toast').getByText(text).first().waitFor();
+}
+
+function expectCleanRun(watched: Watched) {
+  expect(watched.foreignRequests, 'requests to other sites').toEqual([]);
+  expect(watched.cspViolations, 'CSP violations').toEqual([]);
+  // A 401 or 410 answer is logged by the browser itself; the table's resize sensor is known.
+  const unexpected = watched.consoleErrors.filter(
+    (e) => !e.startsWith('Failed to load resource') && !e.startsWith('Applying inline style'),
+  );
+  expect(unexpected, 'console errors').toEqual([]);
+}
+
+const sideNav = (page: Page) => page.getByRole('navigation', { name: 'Main' });
+
+describe('a tutor joins, reads the patterns and notes on one; the parent sends a plan', () => {
+  it('runs the whole journey', async () => {
+    const owner = await openApp(browser, baseUrl);
+    const tutorEmail = `tutor-${Date.now()}@example.test`;
+    await signIn(owner.page, 'parent@workback.test', DEMO_PASSWORD);
+
+    // The owner invites a tutor for Wren only.
+    await sideNav(owner.page).getByRole('link', { name: 'Members' }).click();
+    await owner.page.getByRole('heading', { name: 'Members' }).waitFor();
+    await owner.page.getByRole('list', { name: 'Members' }).waitFor();
+    await checkPage(owner.page, 'members');
+    await owner.page.getByRole('button', { name: 'Invite someone' }).click();
+    const invite = owner.page.getByRole('dialog');
+    await invite.getByLabel('Their e-mail').fill(tutorEmail);
+    await invite.getByText('Wren', { exact: true }).click();
+    await checkPage(owner.page, 'members-invite');
+    await invite.getByRole('button', { name: 'Send invitation' }).click();
+    await invite.waitFor({ state: 'detached' });
+    await owner.page
+      .getByRole('list', { name: 'Invitations waiting' })
+      .getByText(tutorEmail)
+      .waitFor();
+
+    // The link from the captured mail, opened by a new person in a fresh browser.
+    const invitation = await mailTo(tutorEmail, /invited you/);
+    const tutor = await openApp(browser, baseUrl);
+    await tutor.page.goto(pathOf(invitation, '/invitations/'));
+    await tutor.page
+      .getByText(/invited/)
+      .first()
+      .waitFor();
+    expect(await tutor.page.locator('.wb-invite-lead').innerText()).toMatch(
+      /invited .* to join The Hollow Lane household as a tutor/,
+    );
+    await checkPage(tutor.page, 'invitation');
+    await tutor.page.getByLabel('Your name').fill('Sasha');
+    await tutor.page.getByLabel('Password').fill('squared paper 2');
+    await tutor.page.getByText(/I am an adult/).click();
+    await tutor.page.getByRole('button', { name: 'Create account and join' }).click();
+    await tutor.page.waitForURL('**/students');
+    await tutor.page.locator('.wb-table .wb-cell-strong').first().waitFor();
+    expect(await tutor.page.locator('.wb-table .wb-cell-strong').allInnerTexts()).toEqual(['Wren']);
+
+    // Patterns: the recurring list first, through to the misses, then a note.
+    await sideNav(tutor.page).getByRole('link', { name: 'Patterns' }).click();
+    const recurring = tutor.page.getByRole('list', { name: 'Recurring patterns' });
+    await recurring.waitFor();
+    await checkPage(tutor.page, 'patterns');
+    const first = recurring
+      .locator('> li')
+      .filter({ hasText: /borrow|zero/i })
+      .first();
+    const sentence = await first.locator('.wb-recurring-sentence').innerText();
+    expect(sentence.length).toBeGreaterThan(20);
+    const toMisses = first.getByRole('link', { name: /See the \d+ misses in the notebook/ });
+    const count = Number(/(\d+) misses/.exec(await toMisses.innerText())![1]);
+    await toMisses.click();
+    await tutor.page.waitForURL(/\/notebook\?student=\d+&(rule|skill)=/);
+    await tutor.page.getByRole('heading', { name: 'Notebook' }).waitFor();
+    await expect
+      .poll(() => tutor.page.getByText(new RegExp(`\\b${count} miss`)).count())
+      .toBeGreaterThan(0);
+    await capture(tutor.page, 'patterns-to-notebook');
+    await tutor.page.goBack();
+    await recurring.waitFor();
+    const again = recurring.locator('> li').filter({ hasText: sentence }).first();
+    await again.getByRole('button', { name: /^Add a note on/ }).click();
+    await again
+      .getByLabel('Your note')
+      .fill('Worked three zero problems with base-ten blocks; steadier.');
+    await again.getByRole('button', { name: 'Save note' }).click();
+    await toast(tutor.page, 'Note added.');
+    await again.getByText('Worked three zero problems with base-ten blocks; steadier.').waitFor();
+    expect(await again.getByText('Sasha').count()).toBeGreaterThan(0);
+    expectCleanRun(tutor);
+    await tutor.context.close();
+
+    // The parent builds a plan for Wren from the open misses, downloads and sends it.
+    await sideNav(owner.page).getByRole('link', { name: 'Review plans' }).click();
+    await owner.page.getByRole('heading', { name: 'Review plans' }).waitFor();
+    await owner.page.getByLabel('Student').selectOption({ label: 'Wren' });
+    await owner.page.getByRole('list', { name: 'Review plans for Wren' }).waitFor();
+    await checkPage(owner.page, 'review-plans');
+    await owner.page.getByRole('link', { name: 'Build a review plan' }).first().click();
+    await owner.page.getByRole('heading', { name: 'Build a review plan' }).waitFor();
+    await owner.page.getByText(/Misses to review \(\d+ of \d+ ticked\)/).waitFor();
+    await checkPage(owner.page, 'review-plan-new');
+    await owner.page.getByRole('button', { name: 'Build the plan' }).click();
+    await owner.page.getByRole('heading', { name: 'Review plan for Wren' }).waitFor();
+    await checkPage(owner.page, 'review-plan');
+
+    const itemBox = owner.page.locator('.wb-plan-item').first().getByRole('checkbox');
+    await owner.page.locator('.wb-plan-item').first().locator('label').click();
+    await expect.poll(() => itemBox.isChecked()).toBe(true);
+    await owner.page.getByText(/^1 of \d+ done/).waitFor();
+
+    const [pdf] = await Promise.all([
+      owner.page.waitForEvent('download'),
+      owner.page.getByRole('button', { name: 'Download PDF' }).click(),
+    ]);
+    const bytes = await readFile((await pdf.path())!);
+    expect(bytes.subarray(0, 4).toString('latin1')).toBe('%PDF');
+    expect(pdf.suggestedFilename()).toMatch(/\.pdf$/);
+
+    await owner.page.getByRole('button', { name: 'Send by e-mail' }).click();
+    const send = owner.page.getByRole('dialog');
+    await send.getByText(/^Jules/).click();
+    await capture(owner.page, 'review-plan-send');
+    await send.getByRole('button', { name: 'Send' }).click();
+    await toast(owner.page, 'The plan is on its way to Jules.');
+    const sent = await mailTo('coparent@workback.test', /plan/i);
+    expect(sent.attachments.some((a) => a.contentType === 'application/pdf')).toBe(true);
+    expectCleanRun(owner);
+    await owner.context.close();
+  });
+});
+
+describe('someone in two households, and a forgotten password', () => {
+  it('joins a second household while signed in, switches, then resets the password', async () => {
+    const person = await openApp(browser, baseUrl);
+    const { page } = person;
+    const email = `two-homes-${Date.now()}@example.test`;
+    await page.goto('/create-account');
+    await page.getByLabel('Household name').fill('Birch Row');
+    await page.getByLabel('Your name').fill('Noor');
+    await page.getByLabel('E-mail').fill(email);
+    await page.getByLabel('Password').fill('squared paper 3');
+    await page.getByText(/I am an adult/).click();
+    await page.getByRole('button', { name: 'Create account' }).click();
+    await page.waitForURL('**/students');
+
+    const owner = await openApp(browser, baseUrl);
+    await signIn(owner.page, 'parent@workback.test', DEMO_PASSWORD);
+    await owner.page.goto('/members');
+    await owner.page.getByRole('button', { name: 'Invite someone' }).click();
+    const invite = owner.page.getByRole('dialog');
+    await invite.getByLabel('Their e-mail').fill(email);
+    await invite.getByLabel('They join as').selectOption('parent');
+    await invite.getByRole('button', { name: 'Send invitation' }).click();
+    await invite.waitFor({ state: 'detached' });
+    await owner.context.close();
+
+    const invitation = await mailTo(email, /invited you/);
+    await page.goto(pathOf(invitation, '/invitations/'));
+    await page.getByText(/You are signed in as/).waitFor();
+    await capture(page, 'invitation-signed-in');
+    await page.getByRole('button', { name: 'Join The Hollow Lane household' }).click();
+    await page.waitForURL('**/students');
+    await page.locator('.wb-table .wb-cell-strong').first().waitFor();
+    expect(await page.locator('.wb-table .wb-cell-strong').count()).toBe(2);
+
+    const switcher = page.getByRole('complementary').getByRole('combobox', { name: 'Household' });
+    await checkPage(page, 'household-switcher');
+    await switcher.selectOption({ label: 'Birch Row · Owner' });
+    await page.getByText('No students yet. Add your first child to start a notebook.').waitFor();
+    await page.setViewportSize(PHONE);
+    await page.getByRole('banner').getByRole('combobox', { name: 'Household' }).waitFor();
+    await page.setViewportSize(WIDE);
+
+    // The owner's export and deletion live on the Account page.
+    await page.goto('/account');
+    await page.getByRole('heading', { name: 'Your family’s data' }).waitFor();
+    await checkPage(page, 'account-data');
+    await page.getByRole('button', { name: 'Delete the household…' }).click();
+    await page
+      .getByRole('dialog')
+      .getByLabel(/Type the household’s name/)
+      .fill('Birch');
+    await checkPage(page, 'delete-household');
+    await page.getByRole('dialog').getByRole('button', { name: 'Keep everything' }).click();
+
+    await page.getByRole('button', { name: 'Sign out' }).first().click();
+    await page.waitForURL('**/sign-in');
+    await page.getByRole('link', { name: 'Forgot your password?' }).click();
+    await page.getByRole('heading', { name: 'Forgot your password?' }).waitFor();
+    await checkPage(page, 'forgot-password');
+    await page.getByLabel('E-mail').fill(email);
+    await page.getByRole('button', { name: 'E-mail me a link' }).click();
+    await page
+      .getByRole('status')
+      .getByText(/a link to set a new password is on its way/)
+      .waitFor();
+    const reset = await mailTo(email, /new Workback password/);
+    await page.goto(pathOf(reset, '/reset-password/'));
+    await page.getByRole('heading', { name: 'Set a new password' }).waitFor();
+    await checkPage(page, 'reset-password');
+    await page.getByLabel('New password', { exact: true }).fill('a fresh sheet 4');
+    await page.getByLabel('The new password again').fill('a fresh sheet 4');
+    await page.getByRole('button', { name: 'Set new password' }).click();
+    await page.waitForURL('**/sign-in');
+    await signIn(page, email, 'a fresh sheet 4');
+    expectCleanRun(person);
+    await person.context.close();
+  });
+});

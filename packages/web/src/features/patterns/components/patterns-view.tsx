@@ -1,0 +1,139 @@
+import { Callout } from '@blueprintjs/core';
+import { HeatGridIcon, InfoSignIcon } from '@blueprintjs/icons';
+import type { ReactNode } from 'react';
+
+import { EmptyState, ErrorState, LoadingState } from '../../../components/states';
+import { usePatterns } from '../api/get-patterns';
+import { rangeOf } from '../period';
+import type { StudentRef } from '../types';
+import { CauseMixChart } from './cause-mix-chart';
+import { FactGrid } from './fact-grid';
+import { Findings } from './findings';
+import { PatternFilters, type PatternFilterValues } from './pattern-filters';
+import { RecurringList } from './recurring-list';
+import { SkillCounts } from './skill-counts';
+import { TopRulesChart } from './top-rules-chart';
+
+import '../patterns.css';
+
+function Section({
+  id,
+  title,
+  intro,
+  children,
+}: {
+  id: string;
+  title: string;
+  intro?: ReactNode;
+  children: ReactNode;
+}) {
+  return (
+    <section className="wb-pattern-section" aria-labelledby={id}>
+      <h2 id={id} className="wb-section-title">
+        {title}
+      </h2>
+      {intro ? <p className="wb-muted wb-section-intro">{intro}</p> : null}
+      {children}
+    </section>
+  );
+}
+
+/**
+ * The Patterns page body: for one student over a period, what keeps coming back first, then
+ * what the checkers found across problems, the fact gaps, and the causes and rules over time.
+ */
+export function PatternsView({
+  students,
+  filters,
+  onChange,
+}: {
+  students: readonly StudentRef[];
+  filters: PatternFilterValues;
+  onChange: (changes: Partial<PatternFilterValues>) => void;
+}) {
+  const range = rangeOf(filters.period, filters);
+  const patterns = usePatterns({ studentId: filters.studentId, ...range });
+  const student = students.find((s) => s.id === filters.studentId);
+  const name = student?.name ?? 'This student';
+
+  let body: ReactNode;
+  if (patterns.isPending) {
+    body = <LoadingState label={`Looking over ${name}’s misses…`} />;
+  } else if (patterns.isError) {
+    body = (
+      <ErrorState
+        title="The patterns could not be worked out."
+        error={patterns.error}
+        onRetry={() => void patterns.refetch()}
+      />
+    );
+  } else if (patterns.data.missCount === 0) {
+    body = (
+      <EmptyState
+        icon={<HeatGridIcon size={40} />}
+        title={`No misses logged for ${name} in this period. Log misses after each worksheet, or choose a longer period.`}
+      />
+    );
+  } else {
+    const p = patterns.data;
+    body = (
+      <>
+        <Callout icon={<InfoSignIcon />} className="wb-callout wb-patterns-caution">
+          {p.caution} Based on {p.missCount === 1 ? '1 miss' : `${p.missCount} misses`}
+          {p.rightItemCount > 0 ? ` and ${p.rightItemCount} items ${name} got right` : ''}.
+        </Callout>
+        <Section
+          id="patterns-recurring"
+          title="Keeps coming back"
+          intro="A rule, fact family or skill seen 3 or more times within 30 days."
+        >
+          <RecurringList patterns={p} studentName={name} />
+        </Section>
+        <Section
+          id="patterns-findings"
+          title="What the step checkers found"
+          intro={`A rule is a known wrong method. It becomes a finding when it reproduces 2 or more of ${name}’s answers exactly and none of the answers ${name} got right goes against it. The checkers aid your judgement; they do not grade your child.`}
+        >
+          <Findings patterns={p} studentName={name} />
+        </Section>
+        <Section
+          id="patterns-facts"
+          title="Fact gaps"
+          intro="Basic facts the checkers found wrong inside the written working."
+        >
+          {p.facts.list.length > 0 ? (
+            <FactGrid facts={p.facts} />
+          ) : (
+            <p className="wb-empty-line">No basic fact was found wrong in this period.</p>
+          )}
+        </Section>
+        <Section id="patterns-causes" title="Causes over time">
+          <CauseMixChart weeks={p.causeMix} studentId={p.studentId} />
+        </Section>
+        {p.rules.length > 0 ? (
+          <Section id="patterns-rules" title="Error rules seen most">
+            <TopRulesChart rules={p.rules} studentId={p.studentId} from={p.from} to={p.to} />
+          </Section>
+        ) : null}
+        <Section id="patterns-skills" title="Skills with the most misses">
+          <SkillCounts skills={p.skills} studentId={p.studentId} from={p.from} to={p.to} />
+        </Section>
+      </>
+    );
+  }
+
+  return (
+    <>
+      <div className="wb-page-head">
+        <div>
+          <h1 className="wb-page-title">Patterns</h1>
+          <p className="wb-muted">
+            What keeps coming back in {name}’s work across weeks, so you know what to review next.
+          </p>
+        </div>
+      </div>
+      <PatternFilters students={students} value={filters} onChange={onChange} />
+      {body}
+    </>
+  );
+}

@@ -1,0 +1,107 @@
+import { Button, Checkbox } from '@blueprintjs/core';
+import type { FactFamilyDrill, LessonRange, PracticeBlock } from '@workback/core';
+import { useState } from 'react';
+import { Link } from 'react-router-dom';
+
+import { paths } from '../../../config/paths';
+import { shortDay, type PlanItem, type PlanMiss, type PlanMissPayload } from '../types';
+
+function misses(count: number) {
+  return count === 1 ? '1 miss' : `${count} misses`;
+}
+
+function PracticeProblems({ block }: { block: PracticeBlock }) {
+  const [answers, setAnswers] = useState(false);
+  return (
+    <div className="wb-practice">
+      <ol className="wb-practice-list">
+        {block.problems.map((p) => (
+          <li key={p.number} value={p.number}>
+            <span className="wb-mono">{p.problem}</span>
+            {answers ? <span className="wb-mono wb-practice-answer"> = {p.answer}</span> : null}
+          </li>
+        ))}
+      </ol>
+      <Button
+        size="small"
+        variant="minimal"
+        onClick={() => setAnswers((on) => !on)}
+        aria-pressed={answers}
+      >
+        {answers ? 'Hide the answers' : 'Show the answers'}
+      </Button>
+    </div>
+  );
+}
+
+function ItemBody({ item, missById }: { item: PlanItem; missById: Map<number, PlanMiss> }) {
+  switch (item.kind) {
+    case 'lesson': {
+      const range = item.payload as LessonRange;
+      return <span className="wb-muted">For {misses(range.missIds.length)}</span>;
+    }
+    case 'fact-family': {
+      const drill = item.payload as FactFamilyDrill;
+      return (
+        <div>
+          <span className="wb-mono">{drill.facts.join(', ')}</span>
+          <p className="wb-activity">
+            <strong>{drill.activity.title}.</strong> {drill.activity.how}
+          </p>
+        </div>
+      );
+    }
+    case 'practice':
+      return <PracticeProblems block={item.payload as PracticeBlock} />;
+    default: {
+      const payload = item.payload as PlanMissPayload;
+      const miss = missById.get(payload.missId);
+      return (
+        <div>
+          <span className="wb-muted">
+            Wrote <span className="wb-mono">{payload.answer}</span>
+            {miss?.expected ? (
+              <>
+                {' '}
+                (the answer is <span className="wb-mono">{miss.expected}</span>)
+              </>
+            ) : null}{' '}
+            on {shortDay(payload.occurredOn)} ·{' '}
+            <Link to={paths.app.miss.getHref(payload.missId)}>open the miss</Link>
+          </span>
+          {miss?.explanation ? <p className="wb-activity">“{miss.explanation}”</p> : null}
+        </div>
+      );
+    }
+  }
+}
+
+/** One line of the checklist: a tick, what to do, and the details that go with it. */
+export function PlanItemRow({
+  item,
+  missById,
+  pending,
+  onCheck,
+}: {
+  item: PlanItem;
+  missById: Map<number, PlanMiss>;
+  pending: boolean;
+  onCheck: (done: boolean) => void;
+}) {
+  const title =
+    item.kind === 'miss' ? `Re-work ${(item.payload as PlanMissPayload).problem}` : item.title;
+  return (
+    <li className={item.done ? 'wb-plan-item wb-plan-item-done' : 'wb-plan-item'}>
+      <Checkbox
+        checked={item.done}
+        disabled={pending}
+        onChange={(e) => onCheck(e.currentTarget.checked)}
+        size="large"
+        labelElement={<span className="wb-plan-item-title">{title}</span>}
+      />
+      <div className="wb-plan-item-body">
+        <ItemBody item={item} missById={missById} />
+      </div>
+    </li>
+  );
+}

@@ -1,0 +1,157 @@
+import { screen, waitFor, within } from '@testing-library/react';
+import userEvent from '@testing-library/user-event';
+import { describe, expect, it } from 'vitest';
+
+import { CSRF, json, mockApi, ownerMe, students, tutorMe } from '../../../testing/mock-api';
+import { renderApp } from '../../../testing/render';
+
+const list = (items: unknown[]) =>
+  json(200, { items, total: items.length, page: 1, pageSize: 100 });
+const miss = (id: number, occurredOn: string, problem: string, answer: string, status: string) => ({
+  id,
+  studentId: 1,
+  occurredOn,
+  problem,
+  answer,
+  cause: 'step',
+  status,
+  ruleIds: ['sub.borrow-across-zero'],
+});
+
+const plan = {
+  id: 5,
+  studentId: 1,
+  scheduledFor: '2026-03-12',
+  status: 'open',
+  lessonsText: 'Lessons 12–14',
+  createdBy: 1,
+  createdAt: '2026-03-10T10:00:00.000Z',
+  updatedAt: '2026-03-10T10:00:00.000Z',
+  progress: { done: 0, total: 2 },
+  student: { id: 1, name: 'Juniper', gradeLevel: '4' },
+  lessons: { text: 'Lessons 12–14', ranges: [] },
+  factFamilies: [],
+  practice: [],
+  misses: [],
+  covers: [],
+  notes: [],
+  warning: null,
+  items: [
+    {
+      id: 31,
+      position: 0,
+      kind: 'lesson',
+      key: 'lesson:12-14',
+      title: 'Lessons 12–14',
+      payload: { from: 12, to: 14, label: 'Lessons 12–14', missIds: [41] },
+      done: false,
+      doneAt: null,
+      doneBy: null,
+      missIds: [41],
+    },
+    {
+      id: 32,
+      position: 1,
+      kind: 'miss',
+      key: 'miss:41',
+      title: '304 - 75',
+      payload: { missId: 41, problem: '304 - 75', answer: '139', occurredOn: '2026-03-09' },
+      done: false,
+      doneAt: null,
+      doneBy: null,
+      missIds: [41],
+    },
+  ],
+};
+
+describe('review plans', () => {
+  it('builds a plan from every open miss by default, warning when it is the day of the work', async () => {
+    const { requests } = mockApi({
+      ...CSRF,
+      'GET /auth/me': json(200, ownerMe),
+      'GET /students': list([students[0]]),
+      'GET /misses?studentId=1&status=logged&pageSize=100&sort=-occurredOn': list([
+        miss(41, '2026-03-09', '304 - 75', '139', 'logged'),
+      ]),
+      'GET /misses?studentId=1&status=discussed&pageSize=100&sort=-occurredOn': list([
+        miss(42, '2026-03-05', '500 - 38', '572', 'discussed'),
+      ]),
+      'POST /review-plans': json(201, plan),
+      'GET /review-plans/5': json(200, plan),
+    });
+    const user = userEvent.setup();
+    renderApp('/review-plans/new?student=1');
+    expect(await screen.findByText('Misses to review (2 of 2 ticked)')).toBeInTheDocument();
+    const day = screen.getByLabelText('Day of the review');
+    await user.clear(day);
+    await user.type(day, '2026-03-09');
+    expect(await screen.findByText('Same day as the sitting it reviews')).toBeInTheDocument();
+    await user.click(screen.getByRole('checkbox', { name: /304 - 75/ }));
+    expect(screen.queryByText('Same day as the sitting it reviews')).not.toBeInTheDocument();
+    expect(screen.getByText('Misses to review (1 of 2 ticked)')).toBeInTheDocument();
+    await user.click(screen.getByRole('button', { name: 'Build the plan' }));
+    await screen.findByRole('heading', { name: 'Review plan for Juniper' });
+    expect(requests.find((r) => r.method === 'POST')?.body).toEqual({
+      studentId: 1,
+      scheduledFor: '2026-03-09',
+      missIds: [42],
+    });
+  });
+
+  it('checks an item off and e-mails the plan to the chosen members', async () => {
+    const { requests } = mockApi({
+      ...CSRF,
+      'GET /auth/me': json(200, ownerMe),
+      'GET /review-plans/5': json(200, plan),
+      'PATCH /review-plans/5': json(200, {
+        ...plan,
+        progress: { done: 1, total: 2 },
+        items: [{ ...plan.items[0], done: true }, plan.items[1]],
+      }),
+      'GET /members': list([
+        { id: 1, displayName: 'Sam', email: 'sam@example.test', role: 'owner', isYou: true },
+        { id: 2, displayName: 'Kit', email: 'kit@example.test', role: 'tutor', isYou: false },
+      ]),
+      'POST /review-plans/5/send': json(200, { sent: [{ memberId: 2, displayName: 'Kit' }] }),
+    });
+    const user = userEvent.setup();
+    renderApp('/review-plans/5');
+    expect(await screen.findByText('Re-work 304 - 75')).toBeInTheDocument();
+    await user.click(screen.getByRole('checkbox', { name: 'Lessons 12–14' }));
+    expect(await screen.findByText('1 of 2 done')).toBeInTheDocument();
+    expect(requests.find((r) => r.method === 'PATCH')?.body).toEqual({
+      items: [{ id: 31, done: true }],
+    });
+
+    await user.click(screen.getByRole('button', { name: 'Send by e-mail' }));
+    const dialog = await screen.findByRole('dialog');
+    await user.click(within(dialog).getByRole('button', { name: 'Send' }));
+    expect(await within(dialog).findByText('Tick at least one person.')).toBeInTheDocument();
+    await user.click(await within(dialog).findByRole('checkbox', { name: /Kit/ }));
+    await user.click(within(dialog).getByRole('button', { name: 'Send' }));
+    expect(await screen.findByText('The plan is on its way to Kit.')).toBeInTheDocument();
+    await waitFor(() =>
+      expect(requests.find((r) => r.path === '/review-plans/5/send')?.body).toEqual({
+        memberIds: [2],
+      }),
+    );
+  });
+
+  it('lets a tutor download but not e-mail, and lists plans with their progress', async () => {
+    mockApi({
+      'GET /auth/me': json(200, tutorMe),
+      'GET /students': list([students[0]]),
+      'GET /review-plans?studentId=1&pageSize=100': list([
+        { ...plan, missCount: 1, progress: { done: 1, total: 2 } },
+      ]),
+      'GET /review-plans/5': json(200, plan),
+    });
+    const user = userEvent.setup();
+    renderApp('/review-plans');
+    const plans = await screen.findByRole('list', { name: 'Review plans for Juniper' });
+    expect(within(plans).getByText('1 of 2 done')).toBeInTheDocument();
+    await user.click(within(plans).getByRole('link', { name: /Review on/ }));
+    expect(await screen.findByRole('button', { name: 'Download PDF' })).toBeInTheDocument();
+    expect(screen.queryByRole('button', { name: 'Send by e-mail' })).not.toBeInTheDocument();
+  });
+});
