@@ -22,7 +22,10 @@ import { MailModule } from './mail/mail.module.js';
 import { MissesModule } from './misses/misses.module.js';
 import { NotesModule } from './notes/notes.module.js';
 import { PasswordResetsModule } from './password-resets/password-resets.module.js';
+import { PatternsModule } from './patterns/patterns.module.js';
 import { PhotosModule } from './photos/photos.module.js';
+import { PortfolioModule } from './portfolio/portfolio.module.js';
+import { ReviewPlansModule } from './review-plans/review-plans.module.js';
 import { SeedModule } from './seed/seed.module.js';
 import { SessionsModule } from './sessions/sessions.module.js';
 import { SittingsModule } from './sittings/sittings.module.js';
@@ -89,6 +92,9 @@ const emailOf = (req: Request) =>
     InvitationsModule,
     PasswordResetsModule,
     HouseholdDataModule,
+    ReviewPlansModule,
+    PatternsModule,
+    PortfolioModule,
     HealthModule,
     SeedModule,
   ],

@@ -26,6 +26,9 @@ interface Ids {
   key: number;
   keyItem: number;
   sitting: number;
+  /** A review plan and a pattern note of the student (made fresh by the cases that need them). */
+  plan?: number;
+  patternNote?: number;
 }
 
 interface Case {
@@ -104,6 +107,7 @@ const CASES: Case[] = [
   },
   ...MISS_CASES(),
   ...KEY_CASES(),
+  ...PLAN_CASES(),
 ];
 
 function memberMailCases(): Case[] {
@@ -408,6 +412,97 @@ async function freshKeyTargets() {
 }
 
 let lessonNumber = 100;
+
+/** A review plan of one fresh miss of the student, and a note on one of their patterns, made by the owner. */
+async function freshPlan(student: number): Promise<Partial<Ids>> {
+  const { miss } = await freshMiss(student);
+  const plan = await clients.owner
+    .post('/api/review-plans', { studentId: student, scheduledFor: '2026-01-09', missIds: [miss] })
+    .expect(201);
+  const note = await clients.owner
+    .post('/api/patterns/notes', { studentId: student, patternKey: 'fact:x7', body: 'Matrix.' })
+    .expect(201);
+  return { plan: plan.body.id as number, patternNote: note.body.id as number };
+}
+
+function PLAN_CASES(): Case[] {
+  const scoped = (ok: number) => ({ ...members(ok), tutorUngranted: 404, stranger: 404 });
+  const editors = (ok: number) => ({ ...scoped(ok), tutor: 403, tutorUngranted: 403 });
+  const onPlan = { destructive: true, fresh: freshPlan };
+  return [
+    {
+      route: 'GET /api/patterns',
+      path: ({ student }) => `/api/patterns?studentId=${student}`,
+      expect: scoped(200),
+    },
+    {
+      route: 'GET /api/patterns/notes',
+      path: ({ student }) => `/api/patterns/notes?studentId=${student}`,
+      expect: scoped(200),
+    },
+    {
+      route: 'POST /api/patterns/notes',
+      path: () => '/api/patterns/notes',
+      body: ({ student }) => ({ studentId: student, patternKey: 'fact:x7', body: 'Sevens.' }),
+      expect: scoped(201),
+    },
+    {
+      route: 'DELETE /api/patterns/notes/:id',
+      path: ({ patternNote }) => `/api/patterns/notes/${patternNote}`,
+      ...onPlan,
+      expect: editors(204),
+    },
+    { route: 'GET /api/review-plans', path: () => '/api/review-plans', expect: members(200) },
+    {
+      route: 'POST /api/review-plans',
+      path: () => '/api/review-plans',
+      body: ({ student, miss }) => ({
+        studentId: student,
+        scheduledFor: '2026-01-09',
+        missIds: [miss],
+      }),
+      expect: scoped(201),
+    },
+    {
+      route: 'GET /api/review-plans/:id',
+      path: ({ plan }) => `/api/review-plans/${plan}`,
+      ...onPlan,
+      expect: scoped(200),
+    },
+    {
+      route: 'PATCH /api/review-plans/:id',
+      path: ({ plan }) => `/api/review-plans/${plan}`,
+      body: { scheduledFor: '2026-01-10' },
+      ...onPlan,
+      expect: scoped(200),
+    },
+    {
+      route: 'GET /api/review-plans/:id/export.pdf',
+      path: ({ plan }) => `/api/review-plans/${plan}/export.pdf`,
+      ...onPlan,
+      expect: scoped(200),
+    },
+    {
+      route: 'GET /api/review-plans/:id/export.csv',
+      path: ({ plan }) => `/api/review-plans/${plan}/export.csv`,
+      ...onPlan,
+      expect: scoped(200),
+    },
+    {
+      // Membership 1 is the demo owner's.
+      route: 'POST /api/review-plans/:id/send',
+      path: ({ plan }) => `/api/review-plans/${plan}/send`,
+      body: { memberIds: [1] },
+      ...onPlan,
+      expect: editors(200),
+    },
+    {
+      route: 'GET /api/students/:id/portfolio.pdf',
+      path: ({ student }) => `/api/students/${student}/portfolio.pdf?from=2026-01-01&to=2026-01-31`,
+      expect: scoped(200),
+    },
+  ];
+}
 
 function KEY_CASES(): Case[] {
   // Courses and keys belong to the household (a tutor reads them all); sittings follow grants.

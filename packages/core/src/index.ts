@@ -132,6 +132,9 @@ export type {
   Patterns,
 } from './patterns/types.js';
 
+// Plain-text drawing of a working (the CLI's, also used for printing)
+export { formatTrace } from './cli/formatTrace.js';
+
 // Review plans
 export { buildReviewPlan } from './plans/buildReviewPlan.js';
 export type { ReviewPlanOptions } from './plans/buildReviewPlan.js';

@@ -11,11 +11,15 @@ import { MissRule } from '../misses/models/miss-rule.model.js';
 import { Miss } from '../misses/models/miss.model.js';
 import { Note } from '../notes/models/note.model.js';
 import { Invitation } from '../invitations/models/invitation.model.js';
+import { PatternNote } from '../patterns/models/pattern-note.model.js';
 import { PasswordResetToken } from '../password-resets/models/password-reset-token.model.js';
 import { PhotoMark } from '../photos/models/photo-mark.model.js';
 import { Photo } from '../photos/models/photo.model.js';
 import { SittingMark } from '../sittings/models/sitting-mark.model.js';
 import { Sitting } from '../sittings/models/sitting.model.js';
+import { ReviewPlanItemMiss } from '../review-plans/models/review-plan-item-miss.model.js';
+import { ReviewPlanItem } from '../review-plans/models/review-plan-item.model.js';
+import { ReviewPlan } from '../review-plans/models/review-plan.model.js';
 import { Student } from '../students/models/student.model.js';
 import { User } from '../users/models/user.model.js';
 
@@ -41,4 +45,8 @@ export const MODELS = [
   KeyCorrection,
   Sitting,
   SittingMark,
+  ReviewPlan,
+  ReviewPlanItem,
+  ReviewPlanItemMiss,
+  PatternNote,
 ];

@@ -216,6 +216,45 @@ export class MissesService {
     return count;
   }
 
+  /**
+   * For the patterns and review-plans modules: one student's misses with their full
+   * diagnoses, oldest first, filtered by day range, status or ids (all scoped to the member).
+   */
+  async withDiagnoses(
+    member: MemberContext,
+    filter: {
+      studentId: number;
+      from?: string;
+      to?: string;
+      statuses?: readonly MissStatus[];
+      ids?: readonly number[];
+    },
+    transaction?: Transaction,
+  ) {
+    const and: WhereOptions<Miss>[] = [missScope(member), { studentId: filter.studentId }];
+    if (filter.from) and.push({ occurredOn: { [Op.gte]: filter.from } });
+    if (filter.to) and.push({ occurredOn: { [Op.lte]: filter.to } });
+    if (filter.statuses) and.push({ status: { [Op.in]: [...filter.statuses] } });
+    if (filter.ids) and.push({ id: { [Op.in]: [...filter.ids] } });
+    const rows = await this.missModel.findAll({
+      where: { [Op.and]: and },
+      order: [
+        ['occurredOn', 'ASC'],
+        ['id', 'ASC'],
+      ],
+      transaction,
+    });
+    const diagnoses = new Map(
+      (
+        await this.diagnosisModel.findAll({
+          where: { missId: { [Op.in]: rows.map((r) => r.id) } },
+          transaction,
+        })
+      ).map((d) => [d.missId, d.diagnosis]),
+    );
+    return rows.map((m) => ({ ...toMissSummary(m), diagnosis: diagnoses.get(m.id) ?? null }));
+  }
+
   async remove(member: MemberContext, id: number): Promise<void> {
     const keys = await this.sequelize.transaction(async (transaction) => {
       const miss = await this.findModel(member, id, transaction);

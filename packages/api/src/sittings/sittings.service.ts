@@ -221,6 +221,45 @@ export class SittingsService implements OnModuleInit {
     });
   }
 
+  /**
+   * For the patterns module: the items a student got right in their sittings, with the
+   * problem and the answer (the child's when typed, else the key's), by day.
+   */
+  async rightItemsOf(
+    member: MemberContext,
+    studentId: number,
+    range: { from?: string; to?: string } = {},
+  ): Promise<{ occurredOn: string; problem: string; answer: string }[]> {
+    const sittings = await this.sittingModel.findAll({
+      where: this.listWhere(member, { ...range, studentId }),
+      attributes: ['id', 'answerKeyId', 'startedAt'],
+      order: [
+        ['startedAt', 'ASC'],
+        ['id', 'ASC'],
+      ],
+    });
+    if (sittings.length === 0) return [];
+    const marks = await this.markModel.findAll({
+      where: { sittingId: { [Op.in]: sittings.map((s) => s.id) }, correct: true },
+    });
+    const items = new Map<number, KeyItem>();
+    for (const keyId of new Set(sittings.map((s) => s.answerKeyId)))
+      for (const item of await this.keys.itemsOf(keyId)) items.set(item.id, item);
+    const day = new Map(sittings.map((s) => [s.id, s.startedAt.slice(0, 10)]));
+    return marks.flatMap((m) => {
+      const item = items.get(m.keyItemId);
+      return item
+        ? [
+            {
+              occurredOn: day.get(m.sittingId)!,
+              problem: item.prompt,
+              answer: m.answer ?? item.answer,
+            },
+          ]
+        : [];
+    });
+  }
+
   async summary(member: MemberContext, studentId: number, query: SittingRangeQuery) {
     const student = await this.students.findModel(member, studentId);
     const where = this.listWhere(member, { ...query, studentId });

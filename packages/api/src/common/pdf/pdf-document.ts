@@ -105,7 +105,8 @@ export function monoText(
 
 export function heading(doc: Doc, text: string): void {
   ensureRoom(doc, 60);
-  doc.moveDown(0.8).font('sansBold').fontSize(14).fillColor(INK).text(printable(text));
+  doc.moveDown(0.8).font('sansBold').fontSize(14).fillColor(INK);
+  doc.text(printable(text), MARGIN, doc.y, { width: doc.page.width - 2 * MARGIN });
   doc.moveDown(0.3).font('sans').fontSize(10.5);
 }
 
@@ -126,7 +127,9 @@ export function checkbox(doc: Doc, x: number, y: number): void {
 }
 
 /**
- * Monospace lines of a working on faint squared paper, at (x, y); rules drawn as lines.
+ * A working at (x, y) within `width`: its digit rows in monospace on faint squared paper
+ * (rules drawn as lines, the row `highlightLine` on a soft highlight), and its lines of
+ * words (regrouping notes, partial products in words) as small text under the grid.
  * Returns the height used.
  */
 export function working(
@@ -134,13 +137,17 @@ export function working(
   lines: readonly string[],
   x: number,
   y: number,
-  options: { color?: string; highlightLine?: number | null } = {},
+  options: { color?: string; highlightLine?: number | null; width?: number } = {},
 ): number {
   const size = 11;
   const lineHeight = 15;
   const cell = size * MONO_ADVANCE;
-  const cols = Math.max(8, ...lines.map((l) => l.length)) + 1;
-  const height = lines.length * lineHeight + 6;
+  const width = options.width ?? 220;
+  const isWords = (l: string) => /[A-Za-z]{3,}/.test(l);
+  const rows = lines.filter((l) => !isWords(l));
+  const words = lines.filter(isWords);
+  const cols = Math.min(Math.floor(width / cell), Math.max(8, ...rows.map((l) => l.length)) + 1);
+  const height = rows.length * lineHeight + 6;
   doc.save().lineWidth(0.3).strokeColor('#e3e7ef');
   for (let c = 0; c <= cols; c += 1)
     doc
@@ -153,7 +160,8 @@ export function working(
       .lineTo(x + cols * cell, y + r * lineHeight)
       .stroke();
   doc.restore();
-  lines.forEach((line, i) => {
+  const highlighted = options.highlightLine == null ? null : lines[options.highlightLine];
+  rows.forEach((line, i) => {
     const top = y + 3 + i * lineHeight;
     if (/^─+$/.test(line)) {
       doc
@@ -161,20 +169,33 @@ export function working(
         .lineWidth(1)
         .strokeColor(options.color ?? INK)
         .moveTo(x + cell * 0.5, top + lineHeight / 2)
-        .lineTo(x + cell * (line.length + 0.5), top + lineHeight / 2)
+        .lineTo(x + cell * (Math.min(line.length, cols - 1) + 0.5), top + lineHeight / 2)
         .stroke()
         .restore();
       return;
     }
-    if (options.highlightLine === i)
+    if (highlighted !== null && line === highlighted)
       doc
         .save()
         .fillColor(HIGHLIGHT)
         .rect(x, top - 2, cols * cell, lineHeight)
         .fill()
         .restore();
-    monoText(doc, line, x + cell * 0.5, top, { size, color: options.color ?? INK });
+    monoText(doc, line.slice(0, cols - 1), x + cell * 0.5, top, {
+      size,
+      color: options.color ?? INK,
+    });
   });
+  let used = height;
+  doc
+    .font('sans')
+    .fontSize(8.5)
+    .fillColor(options.color ?? PENCIL);
+  for (const line of words) {
+    const text = printable(line);
+    doc.text(text, x, y + used + 2, { width });
+    used += doc.heightOfString(text, { width }) + 2;
+  }
   doc.fillColor(INK).font('sans').fontSize(10.5);
-  return height;
+  return used;
 }

@@ -1,0 +1,23 @@
+import { Module } from '@nestjs/common';
+import { SequelizeModule } from '@nestjs/sequelize';
+import { MissesModule } from '../misses/misses.module.js';
+import { ReviewPlansModule } from '../review-plans/review-plans.module.js';
+import { SittingsModule } from '../sittings/sittings.module.js';
+import { StudentsModule } from '../students/students.module.js';
+import { PatternNote } from './models/pattern-note.model.js';
+import { PatternsController } from './patterns.controller.js';
+import { PatternsService } from './patterns.service.js';
+
+@Module({
+  imports: [
+    SequelizeModule.forFeature([PatternNote]),
+    StudentsModule,
+    MissesModule,
+    SittingsModule,
+    ReviewPlansModule,
+  ],
+  controllers: [PatternsController],
+  providers: [PatternsService],
+  exports: [PatternsService],
+})
+export class PatternsModule {}

@@ -1,0 +1,123 @@
+import { Injectable, NotFoundException } from '@nestjs/common';
+import { InjectModel } from '@nestjs/sequelize';
+import { computePatterns } from '@workback/core';
+import { Op } from 'sequelize';
+import type { MemberContext } from '../common/member-context.js';
+import { fieldsError } from '../common/pipes/validation.pipe.js';
+import { MissesService } from '../misses/misses.service.js';
+import { toPlanMiss } from '../review-plans/plan-miss.js';
+import { ReviewPlansService } from '../review-plans/review-plans.service.js';
+import { SittingsService } from '../sittings/sittings.service.js';
+import { StudentsService } from '../students/students.service.js';
+import { User } from '../users/models/user.model.js';
+import type { CreatePatternNoteDto } from './dto/create-pattern-note.dto.js';
+import type { PatternsQuery } from './dto/patterns.query.js';
+import { PatternNote } from './models/pattern-note.model.js';
+import { patternKeyProblem } from './pattern-key.js';
+
+@Injectable()
+export class PatternsService {
+  constructor(
+    @InjectModel(PatternNote) private readonly noteModel: typeof PatternNote,
+    private readonly students: StudentsService,
+    private readonly misses: MissesService,
+    private readonly sittings: SittingsService,
+    private readonly plans: ReviewPlansService,
+  ) {}
+
+  /** One student's patterns over a day range, the maths done by `@workback/core`. */
+  async find(member: MemberContext, query: PatternsQuery, today = new Date()) {
+    if (query.from && query.to && query.from > query.to)
+      throw fieldsError({ to: 'to must be on or after from' });
+    const student = await this.students.findModel(member, query.studentId);
+    const range = { from: query.from, to: query.to };
+    const [misses, rightItems, plans, notes] = await Promise.all([
+      this.misses.withDiagnoses(member, { studentId: student.id, ...range }),
+      this.sittings.rightItemsOf(member, student.id, range),
+      this.plans.coverage(member, student.id),
+      this.notesOf(member, student.id),
+    ]);
+    const patterns = computePatterns(misses.map(toPlanMiss), {
+      rightItems,
+      plans,
+      asOf: today.toISOString().slice(0, 10),
+      ...range,
+    });
+    return {
+      studentId: student.id,
+      from: query.from ?? null,
+      to: query.to ?? null,
+      missCount: misses.length,
+      rightItemCount: rightItems.length,
+      ...patterns,
+      recurring: patterns.recurring.map((r) => ({
+        ...r,
+        notes: notes.filter((n) => n.patternKey === r.key),
+      })),
+      notes,
+      caution:
+        'These are patterns across the work, to help you decide what to review; they do not grade your child.',
+    };
+  }
+
+  async listNotes(member: MemberContext, studentId: number) {
+    const student = await this.students.findModel(member, studentId);
+    const items = await this.notesOf(member, student.id);
+    return { items, total: items.length };
+  }
+
+  async createNote(member: MemberContext, dto: CreatePatternNoteDto) {
+    const problem = patternKeyProblem(dto.patternKey);
+    if (problem !== null) throw fieldsError({ patternKey: problem });
+    const student = await this.students.findModel(member, dto.studentId);
+    const note = await this.noteModel.create({
+      householdId: member.householdId,
+      studentId: student.id,
+      patternKey: dto.patternKey,
+      body: dto.body,
+      authorId: member.userId,
+    });
+    const saved = await this.noteModel.findByPk(note.id, {
+      include: [{ model: User, attributes: ['id', 'displayName'] }],
+      rejectOnEmpty: true,
+    });
+    return toPatternNoteJson(saved);
+  }
+
+  async removeNote(member: MemberContext, id: number): Promise<void> {
+    const note = await this.noteModel.findOne({
+      where: { [Op.and]: [this.scope(member), { id }] },
+    });
+    if (!note) throw new NotFoundException(`No pattern note ${id} in this household`);
+    await note.destroy();
+  }
+
+  private scope(member: MemberContext) {
+    return member.studentIds === null
+      ? { householdId: member.householdId }
+      : { householdId: member.householdId, studentId: { [Op.in]: member.studentIds } };
+  }
+
+  private async notesOf(member: MemberContext, studentId: number) {
+    const rows = await this.noteModel.findAll({
+      where: { [Op.and]: [this.scope(member), { studentId }] },
+      include: [{ model: User, attributes: ['id', 'displayName'] }],
+      order: [
+        ['createdAt', 'ASC'],
+        ['id', 'ASC'],
+      ],
+    });
+    return rows.map(toPatternNoteJson);
+  }
+}
+
+export function toPatternNoteJson(n: PatternNote) {
+  return {
+    id: n.id,
+    studentId: n.studentId,
+    patternKey: n.patternKey,
+    body: n.body,
+    author: n.author ? { id: n.author.id, displayName: n.author.displayName } : null,
+    createdAt: n.createdAt,
+  };
+}

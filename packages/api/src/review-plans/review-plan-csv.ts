@@ -1,0 +1,60 @@
+import { stringify } from 'csv-stringify/sync';
+import type { ReviewPlanJson } from './review-plans.service.js';
+
+export const PLAN_CSV_COLUMNS = [
+  'section',
+  'item',
+  'problem',
+  'child_answer',
+  'answer',
+  'activity',
+  'done',
+  'miss_ids',
+] as const;
+
+// A spreadsheet reads a cell starting with = + - @ as a formula: such cells get a leading quote.
+const guard = (cell: string) => (/^[=+\-@\t\r]/.test(cell) ? `'${cell}` : cell);
+
+/** The plan as rows for a spreadsheet: one per lesson range, fact family, miss, and practice problem. */
+export function renderReviewPlanCsv(plan: ReviewPlanJson): string {
+  const rows: string[][] = [];
+  for (const item of plan.items) {
+    const done = item.done ? 'yes' : 'no';
+    const misses = item.missIds.join(' ');
+    if (item.kind === 'lesson') {
+      rows.push(['lessons', item.title, '', '', '', '', done, misses]);
+    } else if (item.kind === 'fact-family') {
+      const f = plan.factFamilies.find((x) => `fact:${x.family}` === item.key);
+      rows.push([
+        'facts',
+        item.title,
+        f?.facts.join(', ') ?? '',
+        '',
+        '',
+        f?.activity.title ?? '',
+        done,
+        misses,
+      ]);
+    } else if (item.kind === 'miss') {
+      const m = plan.misses.find((x) => `miss:${x.id}` === item.key);
+      if (m)
+        rows.push(['re-work', item.title, m.problem, m.answer, m.expected ?? '', '', done, misses]);
+    } else {
+      const block = plan.practice.find((x) => `practice:${x.ruleId}` === item.key);
+      for (const p of block?.problems ?? [])
+        rows.push([
+          'practice',
+          `${p.number}. ${block!.title}`,
+          p.problem,
+          '',
+          p.answer,
+          '',
+          done,
+          misses,
+        ]);
+    }
+  }
+  return stringify([[...PLAN_CSV_COLUMNS], ...rows.map((r) => r.map(guard))], {
+    record_delimiter: 'windows',
+  });
+}

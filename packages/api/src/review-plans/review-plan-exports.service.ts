@@ -1,0 +1,77 @@
+import { Injectable } from '@nestjs/common';
+import { Role } from '@workback/core';
+import type { MemberContext } from '../common/member-context.js';
+import { fieldsError } from '../common/pipes/validation.pipe.js';
+import { HouseholdsService } from '../households/households.service.js';
+import { MembersService } from '../households/members.service.js';
+import { MailService } from '../mail/mail.service.js';
+import { UsersService } from '../users/users.service.js';
+import type { SendReviewPlanDto } from './dto/send-review-plan.dto.js';
+import { renderReviewPlanCsv } from './review-plan-csv.js';
+import { renderReviewPlanPdf } from './review-plan-pdf.js';
+import { ReviewPlansService } from './review-plans.service.js';
+
+/** A plan printed (PDF), as a spreadsheet (CSV), or e-mailed to chosen household members. */
+@Injectable()
+export class ReviewPlanExportsService {
+  constructor(
+    private readonly plans: ReviewPlansService,
+    private readonly members: MembersService,
+    private readonly households: HouseholdsService,
+    private readonly users: UsersService,
+    private readonly mail: MailService,
+  ) {}
+
+  async pdf(member: MemberContext, id: number) {
+    const plan = await this.plans.findOne(member, id);
+    return { filename: filenameOf(plan, 'pdf'), body: await renderReviewPlanPdf(plan) };
+  }
+
+  async csv(member: MemberContext, id: number) {
+    const plan = await this.plans.findOne(member, id);
+    return { filename: filenameOf(plan, 'csv'), body: renderReviewPlanCsv(plan) };
+  }
+
+  /**
+   * E-mails the PDF to each chosen member. Every recipient is checked first (a member of
+   * this household, and a tutor only when given this student), so a bad id sends nothing.
+   */
+  async send(member: MemberContext, id: number, dto: SendReviewPlanDto) {
+    const plan = await this.plans.findOne(member, id);
+    const recipients = [];
+    const errors: Record<string, string> = {};
+    for (const [index, memberId] of dto.memberIds.entries()) {
+      const target = await this.members.findOne(member, memberId);
+      if (target.role === Role.tutor && !(target.studentIds ?? []).includes(plan.studentId))
+        errors[`memberIds.${index}`] =
+          `${target.displayName} is a tutor not given ${plan.student.name}`;
+      recipients.push(target);
+    }
+    if (Object.keys(errors).length) throw fieldsError(errors);
+    const pdf = await renderReviewPlanPdf(plan);
+    const household = await this.households.findCurrent(member);
+    const sender = (await this.users.findById(member.userId))?.displayName ?? 'A member';
+    const filename = filenameOf(plan, 'pdf');
+    for (const r of recipients) {
+      await this.mail.send({
+        to: r.email,
+        subject: `Review plan for ${plan.student.name}, ${plan.scheduledFor}`,
+        paragraphs: [
+          `Hello ${r.displayName},`,
+          `${sender} sent you the review plan for ${plan.student.name} for ${plan.scheduledFor}: ` +
+            `${plan.progress.total} items to work through, attached as a PDF to print.`,
+          ...(dto.message ? [`${sender} adds: ${dto.message}`] : []),
+          'The answers are on the last page; keep it apart while the problems are worked.',
+        ],
+        sentBy: `${sender}, of ${household.name}`,
+        reason: `because ${sender} chose to send this plan to you as a member of ${household.name}`,
+        attachments: [{ filename, content: pdf, contentType: 'application/pdf' }],
+      });
+    }
+    return { sent: recipients.map((r) => ({ memberId: r.id, displayName: r.displayName })) };
+  }
+}
+
+function filenameOf(plan: { id: number; scheduledFor: string }, ext: string): string {
+  return `review-plan-${plan.id}-${plan.scheduledFor}.${ext}`;
+}

@@ -1,0 +1,28 @@
+import { Module } from '@nestjs/common';
+import { SequelizeModule } from '@nestjs/sequelize';
+import { HouseholdsModule } from '../households/households.module.js';
+import { MailModule } from '../mail/mail.module.js';
+import { MissesModule } from '../misses/misses.module.js';
+import { StudentsModule } from '../students/students.module.js';
+import { UsersModule } from '../users/users.module.js';
+import { ReviewPlanItemMiss } from './models/review-plan-item-miss.model.js';
+import { ReviewPlanItem } from './models/review-plan-item.model.js';
+import { ReviewPlan } from './models/review-plan.model.js';
+import { ReviewPlanExportsService } from './review-plan-exports.service.js';
+import { ReviewPlansController } from './review-plans.controller.js';
+import { ReviewPlansService } from './review-plans.service.js';
+
+@Module({
+  imports: [
+    SequelizeModule.forFeature([ReviewPlan, ReviewPlanItem, ReviewPlanItemMiss]),
+    StudentsModule,
+    MissesModule,
+    HouseholdsModule,
+    UsersModule,
+    MailModule,
+  ],
+  controllers: [ReviewPlansController],
+  providers: [ReviewPlansService, ReviewPlanExportsService],
+  exports: [ReviewPlansService],
+})
+export class ReviewPlansModule {}
