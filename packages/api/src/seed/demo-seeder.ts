@@ -11,6 +11,7 @@ import { User } from '../users/models/user.model.js';
 import { UsersService } from '../users/users.service.js';
 import { DemoCurriculumSeeder } from './demo-curriculum.js';
 import { DemoMissesSeeder } from './demo-misses.js';
+import { DemoReviewPlansSeeder } from './demo-review-plans.js';
 
 export const DEMO_FILE = new URL('../../../../seeds/demo-household.json', import.meta.url);
 
@@ -37,6 +38,7 @@ export class DemoSeeder {
     @InjectConnection() private readonly sequelize: Sequelize,
     private readonly demoMisses: DemoMissesSeeder,
     private readonly demoCurriculum: DemoCurriculumSeeder,
+    private readonly demoPlans: DemoReviewPlansSeeder,
   ) {}
 
   async seedIfEmpty(): Promise<boolean> {
@@ -65,6 +67,7 @@ export class DemoSeeder {
     });
     await this.demoMisses.seed(ownerMember.householdId);
     await this.demoCurriculum.seed(ownerMember);
+    await this.demoPlans.seed(ownerMember);
     this.logger.log(`Demo household "${demo.household.name}" loaded`);
     return true;
   }

@@ -8,11 +8,13 @@ import { HouseholdsModule } from '../households/households.module.js';
 import { MissesModule } from '../misses/misses.module.js';
 import { NotesModule } from '../notes/notes.module.js';
 import { PhotosModule } from '../photos/photos.module.js';
+import { ReviewPlansModule } from '../review-plans/review-plans.module.js';
 import { SittingsModule } from '../sittings/sittings.module.js';
 import { StudentsModule } from '../students/students.module.js';
 import { UsersModule } from '../users/users.module.js';
 import { DemoCurriculumSeeder } from './demo-curriculum.js';
 import { DemoMissesSeeder } from './demo-misses.js';
+import { DemoReviewPlansSeeder } from './demo-review-plans.js';
 import { DemoSeeder } from './demo-seeder.js';
 
 @Module({
@@ -27,8 +29,9 @@ import { DemoSeeder } from './demo-seeder.js';
     CurriculumModule,
     AnswerKeysModule,
     SittingsModule,
+    ReviewPlansModule,
   ],
-  providers: [DemoSeeder, DemoMissesSeeder, DemoCurriculumSeeder],
+  providers: [DemoSeeder, DemoMissesSeeder, DemoCurriculumSeeder, DemoReviewPlansSeeder],
   exports: [DemoSeeder],
 })
 export class SeedModule implements OnApplicationBootstrap {
