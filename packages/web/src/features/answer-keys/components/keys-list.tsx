@@ -1,20 +1,18 @@
 import { Button, Card, Intent, Tag } from '@blueprintjs/core';
 import { DocumentIcon, ImportIcon, PlusIcon } from '@blueprintjs/icons';
-import { Cell, Column, SelectionModes, Table2 } from '@blueprintjs/table';
+import { Cell, Column } from '@blueprintjs/table';
 import { useState } from 'react';
 import { Link } from 'react-router-dom';
 
+import { ListTable, useTableFits } from '../../../components/list-table';
 import { EmptyState, ErrorState, LoadingState } from '../../../components/states';
 import { paths } from '../../../config/paths';
-import { useMediaQuery } from '../../../lib/use-media-query';
 import { useAnswerKeys } from '../api/get-answer-keys';
 import { KEY_KIND_LABEL, type AnswerKeySummary, type CourseOption } from '../types';
 import { ImportKeyDialog } from './import-key-dialog';
 import { NewKeyDialog } from './new-key-dialog';
 
-const TABLE_FITS_QUERY = '(min-width: 1041px)';
 const ROW_HEIGHT = 44;
-const HEADER_HEIGHT = 30;
 const WIDTHS = [240, 110, 180, 70, 120, 90];
 
 function FlagTag({ count }: { count: number }) {
@@ -33,57 +31,44 @@ function KeysTable({
   keys: readonly AnswerKeySummary[];
   courseName: (id: number | null) => string;
 }) {
-  const width = WIDTHS.reduce((sum, w) => sum + w, 0);
   return (
-    <div
-      className="wb-table"
-      style={{ height: HEADER_HEIGHT + keys.length * ROW_HEIGHT + 2, width: width + 2 }}
-      aria-label="Answer keys"
-      role="region"
+    <ListTable
+      label="Answer keys"
+      numRows={keys.length}
+      rowHeight={ROW_HEIGHT}
+      columnWidths={WIDTHS}
+      dependencies={[keys]}
     >
-      <Table2
-        numRows={keys.length}
-        defaultRowHeight={ROW_HEIGHT}
-        columnWidths={WIDTHS}
-        enableRowHeader={false}
-        enableFocusedCell={false}
-        enableColumnResizing={false}
-        enableRowResizing={false}
-        enableGhostCells={false}
-        selectionModes={SelectionModes.NONE}
-        cellRendererDependencies={[keys]}
-      >
-        <Column
-          name="Title"
-          cellRenderer={(row) => {
-            const key = keys[row];
-            return (
-              <Cell interactive className="wb-cell-strong">
-                {key ? <Link to={paths.app.answerKey.getHref(key.id)}>{key.title}</Link> : null}
-              </Cell>
-            );
-          }}
-        />
-        <Column
-          name="Kind"
-          cellRenderer={(row) => <Cell>{keys[row] ? KEY_KIND_LABEL[keys[row].kind] : ''}</Cell>}
-        />
-        <Column
-          name="Course"
-          cellRenderer={(row) => <Cell>{courseName(keys[row]?.courseId ?? null)}</Cell>}
-        />
-        <Column name="Items" cellRenderer={(row) => <Cell>{keys[row]?.itemCount}</Cell>} />
-        <Column
-          name="Checker"
-          cellRenderer={(row) => (
-            <Cell>
-              <FlagTag count={keys[row]?.flagCount ?? 0} />
+      <Column
+        name="Title"
+        cellRenderer={(row) => {
+          const key = keys[row];
+          return (
+            <Cell interactive className="wb-cell-strong">
+              {key ? <Link to={paths.app.answerKey.getHref(key.id)}>{key.title}</Link> : null}
             </Cell>
-          )}
-        />
-        <Column name="Sittings" cellRenderer={(row) => <Cell>{keys[row]?.sittingCount}</Cell>} />
-      </Table2>
-    </div>
+          );
+        }}
+      />
+      <Column
+        name="Kind"
+        cellRenderer={(row) => <Cell>{keys[row] ? KEY_KIND_LABEL[keys[row].kind] : ''}</Cell>}
+      />
+      <Column
+        name="Course"
+        cellRenderer={(row) => <Cell>{courseName(keys[row]?.courseId ?? null)}</Cell>}
+      />
+      <Column name="Items" cellRenderer={(row) => <Cell>{keys[row]?.itemCount}</Cell>} />
+      <Column
+        name="Checker"
+        cellRenderer={(row) => (
+          <Cell>
+            <FlagTag count={keys[row]?.flagCount ?? 0} />
+          </Cell>
+        )}
+      />
+      <Column name="Sittings" cellRenderer={(row) => <Cell>{keys[row]?.sittingCount}</Cell>} />
+    </ListTable>
   );
 }
 
@@ -127,7 +112,7 @@ export function KeysList({
   courses: readonly CourseOption[];
 }) {
   const keys = useAnswerKeys();
-  const tableFits = useMediaQuery(TABLE_FITS_QUERY);
+  const tableFits = useTableFits();
   const [dialog, setDialog] = useState<'new' | 'import' | null>(null);
   const courseName = (id: number | null) => courses.find((c) => c.id === id)?.name ?? '—';
 

@@ -2,12 +2,12 @@ import { Button, Card } from '@blueprintjs/core';
 import { EditIcon, TrashIcon } from '@blueprintjs/icons';
 import { useMemo } from 'react';
 
+import { useTableFits } from '../../../components/list-table';
 import { ErrorState, LoadingState } from '../../../components/states';
-import { useMediaQuery } from '../../../lib/use-media-query';
 import { useLessons } from '../api/get-lessons';
 import type { Course, Lesson } from '../types';
 import { LessonCards } from './lesson-cards';
-import { LessonsTable, TABLE_FITS_QUERY } from './lessons-table';
+import { LESSONS_TABLE_FITS_QUERY, LessonsTable } from './lessons-table';
 import { QuickAddLesson } from './quick-add-lesson';
 
 type CourseSectionProps = {
@@ -29,7 +29,7 @@ export function CourseSection({
   onDeleteLesson,
 }: CourseSectionProps) {
   const lessons = useLessons(course.id);
-  const tableFits = useMediaQuery(TABLE_FITS_QUERY);
+  const tableFits = useTableFits(LESSONS_TABLE_FITS_QUERY);
   const actions = useMemo(
     () => (canEdit ? { onEdit: onEditLesson, onDelete: onDeleteLesson } : undefined),
     [canEdit, onEditLesson, onDeleteLesson],

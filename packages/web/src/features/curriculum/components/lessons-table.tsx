@@ -1,14 +1,14 @@
-import { Cell, Column, SelectionModes, Table2 } from '@blueprintjs/table';
+import { Cell, Column } from '@blueprintjs/table';
 
+import { actionsColumn, ListTable } from '../../../components/list-table';
 import type { Lesson } from '../types';
 import { LessonActions, type LessonActionHandlers } from './lesson-actions';
 
 const ROW_HEIGHT = 40;
-const HEADER_HEIGHT = 30;
 const WIDTHS = { number: 56, title: 300, skills: 240, actions: 160 };
 
-/** Below this width the table would scroll sideways, so lessons show as cards instead. */
-export const TABLE_FITS_QUERY = '(min-width: 1180px)';
+/** Wider than the other lists' tables, so lessons turn to cards on narrower screens. */
+export const LESSONS_TABLE_FITS_QUERY = '(min-width: 1180px)';
 
 export function LessonsTable({
   courseName,
@@ -40,45 +40,21 @@ export function LessonsTable({
   ];
   if (actions) {
     columns.push(
-      <Column
-        key="actions"
-        name="Actions"
-        cellRenderer={(row) => {
-          const lesson = lessons[row];
-          return (
-            <Cell interactive className="wb-cell-actions">
-              {lesson ? <LessonActions lesson={lesson} {...actions} /> : null}
-            </Cell>
-          );
-        }}
-      />,
+      actionsColumn(lessons, (lesson) => <LessonActions lesson={lesson} {...actions} />),
     );
   }
   const columnWidths = actions
     ? [WIDTHS.number, WIDTHS.title, WIDTHS.skills, WIDTHS.actions]
     : [WIDTHS.number, WIDTHS.title + 80, WIDTHS.skills + 80];
-  const width = columnWidths.reduce((sum, w) => sum + w, 0);
   return (
-    <div
-      className="wb-table"
-      style={{ height: HEADER_HEIGHT + lessons.length * ROW_HEIGHT + 2, width: width + 2 }}
-      aria-label={`Lessons of ${courseName}`}
-      role="region"
+    <ListTable
+      label={`Lessons of ${courseName}`}
+      numRows={lessons.length}
+      rowHeight={ROW_HEIGHT}
+      columnWidths={columnWidths}
+      dependencies={[lessons, actions]}
     >
-      <Table2
-        numRows={lessons.length}
-        defaultRowHeight={ROW_HEIGHT}
-        columnWidths={columnWidths}
-        enableRowHeader={false}
-        enableFocusedCell={false}
-        enableColumnResizing={false}
-        enableRowResizing={false}
-        enableGhostCells={false}
-        selectionModes={SelectionModes.NONE}
-        cellRendererDependencies={[lessons, actions]}
-      >
-        {columns}
-      </Table2>
-    </div>
+      {columns}
+    </ListTable>
   );
 }

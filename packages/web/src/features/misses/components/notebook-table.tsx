@@ -1,15 +1,12 @@
-import { Cell, Column, SelectionModes, Table2 } from '@blueprintjs/table';
+import { Cell, Column } from '@blueprintjs/table';
 import { Link, useNavigate } from 'react-router-dom';
 
+import { ListTable } from '../../../components/list-table';
 import { paths } from '../../../config/paths';
 import { causeLabel, formatDay, ruleTitle, statusLabel, type MissSummary } from '../types';
 
 const ROW_HEIGHT = 56;
-const HEADER_HEIGHT = 30;
 const WIDTHS = [64, 100, 108, 168, 80, 108, 170, 120];
-
-/** Below this width the table would scroll sideways, so the notebook shows cards instead. */
-export const NOTEBOOK_TABLE_QUERY = '(min-width: 1041px)';
 
 /** The misses as a table (wide screens); a click anywhere on a row opens the miss. */
 export function NotebookTable({
@@ -110,28 +107,16 @@ export function NotebookTable({
       }}
     />,
   ];
-  const width = WIDTHS.reduce((sum, w) => sum + w, 0);
   return (
-    <div
-      className="wb-table wb-notebook-table"
-      style={{ height: HEADER_HEIGHT + misses.length * ROW_HEIGHT + 2, width: width + 2 }}
-      aria-label="Misses"
-      role="region"
+    <ListTable
+      label="Misses"
+      className="wb-notebook-table"
+      numRows={misses.length}
+      rowHeight={ROW_HEIGHT}
+      columnWidths={WIDTHS}
+      dependencies={[misses, studentName]}
     >
-      <Table2
-        numRows={misses.length}
-        defaultRowHeight={ROW_HEIGHT}
-        columnWidths={WIDTHS}
-        enableRowHeader={false}
-        enableFocusedCell={false}
-        enableColumnResizing={false}
-        enableRowResizing={false}
-        enableGhostCells={false}
-        selectionModes={SelectionModes.NONE}
-        cellRendererDependencies={[misses, studentName]}
-      >
-        {columns}
-      </Table2>
-    </div>
+      {columns}
+    </ListTable>
   );
 }

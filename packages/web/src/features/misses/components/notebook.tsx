@@ -3,15 +3,15 @@ import { ChevronLeftIcon, ChevronRightIcon, PlusIcon, ManualIcon } from '@bluepr
 import { useCallback } from 'react';
 import { Link } from 'react-router-dom';
 
+import { useTableFits } from '../../../components/list-table';
 import { EmptyState, ErrorState, LoadingState } from '../../../components/states';
 import { paths } from '../../../config/paths';
-import { useMediaQuery } from '../../../lib/use-media-query';
 import { useMisses } from '../api/get-misses';
 import { useNotebookFilters } from '../hooks/use-notebook-filters';
 import type { StudentOption } from '../types';
 import { NotebookCards } from './notebook-cards';
 import { NotebookFilters } from './notebook-filters';
-import { NOTEBOOK_TABLE_QUERY, NotebookTable } from './notebook-table';
+import { NotebookTable } from './notebook-table';
 import '../misses.css';
 
 const LINK_BUTTON = `${Classes.BUTTON} ${Classes.INTENT_PRIMARY} wb-link-button`;
@@ -26,7 +26,7 @@ export function Notebook({
 }) {
   const { filters, value, set, clear, active } = useNotebookFilters();
   const misses = useMisses(filters);
-  const tableFits = useMediaQuery(NOTEBOOK_TABLE_QUERY);
+  const tableFits = useTableFits();
   const studentName = useCallback(
     (id: number) => students.find((s) => s.id === id)?.name ?? '—',
     [students],

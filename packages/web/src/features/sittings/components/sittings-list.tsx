@@ -1,18 +1,16 @@
 import { Card } from '@blueprintjs/core';
 import { PlusIcon, TimelineEventsIcon } from '@blueprintjs/icons';
-import { Cell, Column, SelectionModes, Table2 } from '@blueprintjs/table';
+import { Cell, Column } from '@blueprintjs/table';
 import { Link } from 'react-router-dom';
 
 import { LinkButton } from '../../../components/link-button';
+import { ListTable, useTableFits } from '../../../components/list-table';
 import { EmptyState, ErrorState, LoadingState } from '../../../components/states';
 import { paths } from '../../../config/paths';
-import { useMediaQuery } from '../../../lib/use-media-query';
 import { useSittings } from '../api/get-sittings';
 import { formatStartedAt, scoreText, TIME_OF_DAY_LABEL, type SittingSummary } from '../types';
 
-const TABLE_FITS_QUERY = '(min-width: 1041px)';
 const ROW_HEIGHT = 44;
-const HEADER_HEIGHT = 30;
 const WIDTHS = [200, 110, 200, 100, 130];
 
 type Props = { studentName: (id: number) => string; canEdit: boolean };
@@ -28,61 +26,48 @@ function SittingsTable({
   studentName,
   canEdit,
 }: { sittings: readonly SittingSummary[] } & Props) {
-  const width = WIDTHS.reduce((sum, w) => sum + w, 0);
   return (
-    <div
-      className="wb-table"
-      style={{ height: HEADER_HEIGHT + sittings.length * ROW_HEIGHT + 2, width: width + 2 }}
-      aria-label="Sittings"
-      role="region"
+    <ListTable
+      label="Sittings"
+      numRows={sittings.length}
+      rowHeight={ROW_HEIGHT}
+      columnWidths={WIDTHS}
+      dependencies={[sittings, canEdit]}
     >
-      <Table2
-        numRows={sittings.length}
-        defaultRowHeight={ROW_HEIGHT}
-        columnWidths={WIDTHS}
-        enableRowHeader={false}
-        enableFocusedCell={false}
-        enableColumnResizing={false}
-        enableRowResizing={false}
-        enableGhostCells={false}
-        selectionModes={SelectionModes.NONE}
-        cellRendererDependencies={[sittings, canEdit]}
-      >
-        <Column
-          name="Started"
-          cellRenderer={(row) => {
-            const sitting = sittings[row];
-            return (
-              <Cell interactive>
-                {sitting ? (
-                  <Link to={hrefOf(sitting, canEdit)}>{formatStartedAt(sitting.startedAt)}</Link>
-                ) : null}
-              </Cell>
-            );
-          }}
-        />
-        <Column
-          name="Student"
-          cellRenderer={(row) => (
-            <Cell className="wb-cell-strong">{studentName(sittings[row]?.studentId ?? 0)}</Cell>
-          )}
-        />
-        <Column
-          name="Key"
-          cellRenderer={(row) => <Cell>{sittings[row]?.answerKey?.title ?? ''}</Cell>}
-        />
-        <Column
-          name="Time of day"
-          cellRenderer={(row) => (
-            <Cell>{sittings[row] ? TIME_OF_DAY_LABEL[sittings[row].timeOfDay] : ''}</Cell>
-          )}
-        />
-        <Column
-          name="Score"
-          cellRenderer={(row) => <Cell>{sittings[row] ? scoreText(sittings[row].score) : ''}</Cell>}
-        />
-      </Table2>
-    </div>
+      <Column
+        name="Started"
+        cellRenderer={(row) => {
+          const sitting = sittings[row];
+          return (
+            <Cell interactive>
+              {sitting ? (
+                <Link to={hrefOf(sitting, canEdit)}>{formatStartedAt(sitting.startedAt)}</Link>
+              ) : null}
+            </Cell>
+          );
+        }}
+      />
+      <Column
+        name="Student"
+        cellRenderer={(row) => (
+          <Cell className="wb-cell-strong">{studentName(sittings[row]?.studentId ?? 0)}</Cell>
+        )}
+      />
+      <Column
+        name="Key"
+        cellRenderer={(row) => <Cell>{sittings[row]?.answerKey?.title ?? ''}</Cell>}
+      />
+      <Column
+        name="Time of day"
+        cellRenderer={(row) => (
+          <Cell>{sittings[row] ? TIME_OF_DAY_LABEL[sittings[row].timeOfDay] : ''}</Cell>
+        )}
+      />
+      <Column
+        name="Score"
+        cellRenderer={(row) => <Cell>{sittings[row] ? scoreText(sittings[row].score) : ''}</Cell>}
+      />
+    </ListTable>
   );
 }
 
@@ -114,7 +99,7 @@ function SittingCards({
 /** The Sittings page: the latest sittings of the household, newest first. */
 export function SittingsList({ studentName, canEdit }: Props) {
   const sittings = useSittings();
-  const tableFits = useMediaQuery(TABLE_FITS_QUERY);
+  const tableFits = useTableFits();
   const start = canEdit ? (
     <LinkButton to={paths.app.newSitting.getHref()} primary icon={<PlusIcon />}>
       Start a sitting

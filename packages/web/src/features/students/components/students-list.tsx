@@ -2,21 +2,21 @@ import { Button, Intent } from '@blueprintjs/core';
 import { PeopleIcon, PlusIcon } from '@blueprintjs/icons';
 import { useMemo, useState } from 'react';
 
+import { useTableFits } from '../../../components/list-table';
 import { EmptyState, ErrorState, LoadingState } from '../../../components/states';
-import { useMediaQuery } from '../../../lib/use-media-query';
 import { useStudents } from '../api/get-students';
 import type { Student } from '../types';
 import { DeleteStudentAlert } from './delete-student-alert';
 import { StudentCards } from './student-cards';
 import { StudentDialog } from './student-dialog';
-import { StudentsTable, TABLE_FITS_QUERY } from './students-table';
+import { StudentsTable } from './students-table';
 
 type Editing = { open: boolean; student: Student | null };
 
 /** The Students page body: the list, and for owners and parents the add/edit/delete actions. */
 export function StudentsList({ canEdit }: { canEdit: boolean }) {
   const students = useStudents();
-  const tableFits = useMediaQuery(TABLE_FITS_QUERY);
+  const tableFits = useTableFits();
   const [editing, setEditing] = useState<Editing>({ open: false, student: null });
   const [deleting, setDeleting] = useState<Student | null>(null);
 

@@ -1,16 +1,13 @@
-import { Cell, Column, SelectionModes, Table2 } from '@blueprintjs/table';
+import { Cell, Column } from '@blueprintjs/table';
 import { Link } from 'react-router-dom';
 
+import { actionsColumn, ListTable } from '../../../components/list-table';
 import { paths } from '../../../config/paths';
 import { formatAdded, gradeLabel, type Student } from '../types';
 import { StudentActions, type StudentActionHandlers } from './student-actions';
 
 const ROW_HEIGHT = 44;
-const HEADER_HEIGHT = 30;
 const WIDTHS = { name: 240, grade: 150, added: 140, actions: 190 };
-
-/** Below this width the table would scroll sideways, so the list shows cards instead. */
-export const TABLE_FITS_QUERY = '(min-width: 1041px)';
 
 /** The students of the household as a table (wide screens). */
 export function StudentsTable({
@@ -49,45 +46,21 @@ export function StudentsTable({
   ];
   if (actions) {
     columns.push(
-      <Column
-        key="actions"
-        name="Actions"
-        cellRenderer={(row) => {
-          const student = students[row];
-          return (
-            <Cell interactive className="wb-cell-actions">
-              {student ? <StudentActions student={student} {...actions} /> : null}
-            </Cell>
-          );
-        }}
-      />,
+      actionsColumn(students, (student) => <StudentActions student={student} {...actions} />),
     );
   }
   const columnWidths = actions
     ? [WIDTHS.name, WIDTHS.grade, WIDTHS.added, WIDTHS.actions]
     : [WIDTHS.name, WIDTHS.grade, WIDTHS.added];
-  const width = columnWidths.reduce((sum, w) => sum + w, 0);
   return (
-    <div
-      className="wb-table"
-      style={{ height: HEADER_HEIGHT + students.length * ROW_HEIGHT + 2, width: width + 2 }}
-      aria-label="Students"
-      role="region"
+    <ListTable
+      label="Students"
+      numRows={students.length}
+      rowHeight={ROW_HEIGHT}
+      columnWidths={columnWidths}
+      dependencies={[students, actions]}
     >
-      <Table2
-        numRows={students.length}
-        defaultRowHeight={ROW_HEIGHT}
-        columnWidths={columnWidths}
-        enableRowHeader={false}
-        enableFocusedCell={false}
-        enableColumnResizing={false}
-        enableRowResizing={false}
-        enableGhostCells={false}
-        selectionModes={SelectionModes.NONE}
-        cellRendererDependencies={[students, actions]}
-      >
-        {columns}
-      </Table2>
-    </div>
+      {columns}
+    </ListTable>
   );
 }
