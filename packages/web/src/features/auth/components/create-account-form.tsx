@@ -2,8 +2,8 @@ import { Button, Intent } from '@blueprintjs/core';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 
+import { AccountFields } from '../../../components/form/account-fields';
 import { applyFieldErrors } from '../../../components/form/apply-field-errors';
-import { CheckboxField } from '../../../components/form/checkbox-field';
 import { FormError } from '../../../components/form/form-error';
 import { TextField } from '../../../components/form/text-field';
 import { isApiError } from '../../../lib/api-client';
@@ -19,9 +19,6 @@ type CreateAccountValues = {
 };
 
 const FIELDS = ['householdName', 'displayName', 'email', 'password', 'adultConfirmed'] as const;
-
-export const PASSWORD_MIN = 8;
-export const PASSWORD_MAX = 128;
 
 export function CreateAccountForm({ onCreated }: { onCreated: (me: Me) => void }) {
   const createAccount = useCreateAccount();
@@ -92,39 +89,14 @@ export function CreateAccountForm({ onCreated }: { onCreated: (me: Me) => void }
         })}
         error={errors.displayName?.message}
       />
-      <TextField
-        label="E-mail"
-        type="email"
-        inputMode="email"
-        autoComplete="email"
-        registration={register('email', {
-          required: 'Enter your e-mail address.',
-          pattern: {
-            value: /^\S+@\S+\.\S+$/,
-            message: 'That does not look like an e-mail address.',
-          },
-        })}
-        error={errors.email?.message}
-      />
-      <TextField
-        label="Password"
-        type="password"
-        autoComplete="new-password"
-        help={`${PASSWORD_MIN} to ${PASSWORD_MAX} characters. A few words strung together works well.`}
-        registration={register('password', {
-          required: 'Choose a password.',
-          minLength: { value: PASSWORD_MIN, message: `Use at least ${PASSWORD_MIN} characters.` },
-          maxLength: { value: PASSWORD_MAX, message: `Use at most ${PASSWORD_MAX} characters.` },
-        })}
-        error={errors.password?.message}
-      />
-      <PrivacyCaution />
-      <CheckboxField
-        label="I am an adult, and the parent or guardian of each child I add."
-        registration={register('adultConfirmed', {
+      <AccountFields
+        register={register}
+        errors={errors}
+        caution={<PrivacyCaution />}
+        adult={{
+          label: 'I am an adult, and the parent or guardian of each child I add.',
           required: 'Only a parent or guardian can create a household. Tick the box to go on.',
-        })}
-        error={errors.adultConfirmed?.message}
+        }}
       />
       <Button
         type="submit"

@@ -2,8 +2,8 @@ import { Button, Intent } from '@blueprintjs/core';
 import { useState, type ReactNode } from 'react';
 import { useForm } from 'react-hook-form';
 
+import { AccountFields } from '../../../components/form/account-fields';
 import { applyFieldErrors } from '../../../components/form/apply-field-errors';
-import { CheckboxField } from '../../../components/form/checkbox-field';
 import { FormError } from '../../../components/form/form-error';
 import { TextField } from '../../../components/form/text-field';
 import { isApiError } from '../../../lib/api-client';
@@ -18,8 +18,6 @@ type NewAccountValues = {
 };
 
 const FIELDS = ['displayName', 'email', 'password'] as const;
-const PASSWORD_MIN = 8;
-const PASSWORD_MAX = 128;
 
 /** A new person accepts: their name and a password make the account, and it joins at once. */
 export function NewAccountForm({
@@ -86,43 +84,16 @@ export function NewAccountForm({
         })}
         error={errors.displayName?.message}
       />
-      <TextField
+      <AccountFields
+        register={register}
+        errors={errors}
         idPrefix="join"
-        label="E-mail"
-        type="email"
-        inputMode="email"
-        autoComplete="email"
-        help="The address the invitation went to; change it if you prefer another."
-        registration={register('email', {
-          required: 'Enter your e-mail address.',
-          pattern: {
-            value: /^\S+@\S+\.\S+$/,
-            message: 'That does not look like an e-mail address.',
-          },
-        })}
-        error={errors.email?.message}
-      />
-      <TextField
-        idPrefix="join"
-        label="Password"
-        type="password"
-        autoComplete="new-password"
-        help={`${PASSWORD_MIN} to ${PASSWORD_MAX} characters. A few words strung together works well.`}
-        registration={register('password', {
-          required: 'Choose a password.',
-          minLength: { value: PASSWORD_MIN, message: `Use at least ${PASSWORD_MIN} characters.` },
-          maxLength: { value: PASSWORD_MAX, message: `Use at most ${PASSWORD_MAX} characters.` },
-        })}
-        error={errors.password?.message}
-      />
-      {caution}
-      <CheckboxField
-        idPrefix="join"
-        label="I am an adult, helping this family with their children’s math."
-        registration={register('adultConfirmed', {
+        emailHelp="The address the invitation went to; change it if you prefer another."
+        caution={caution}
+        adult={{
+          label: 'I am an adult, helping this family with their children’s math.',
           required: 'Workback accounts are for adults only. Tick the box to go on.',
-        })}
-        error={errors.adultConfirmed?.message}
+        }}
       />
       <Button type="submit" intent={Intent.PRIMARY} size="large" fill loading={accept.isPending}>
         Create account and join
