@@ -1,9 +1,9 @@
-import { Button, Dialog, DialogBody, DialogFooter, Intent } from '@blueprintjs/core';
+import { Dialog } from '@blueprintjs/core';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 
 import { applyFieldErrors } from '../../../components/form/apply-field-errors';
-import { FormError } from '../../../components/form/form-error';
+import { DialogForm } from '../../../components/form/dialog-form';
 import { TextField } from '../../../components/form/text-field';
 import { useToast } from '../../../components/toaster';
 import { useCreateCourse } from '../api/create-course';
@@ -45,45 +45,37 @@ function CourseForm({ course, onClose }: CourseDialogProps) {
   });
 
   return (
-    <form onSubmit={onSubmit} noValidate aria-label={course ? 'Edit course' : 'Add a course'}>
-      <DialogBody>
-        <FormError message={formError} />
-        <TextField
-          idPrefix="course"
-          label="Course name"
-          help="As you call it at home, e.g. “Number trail, book 3”."
-          autoComplete="off"
-          autoFocus
-          registration={register('name', {
-            validate: (value) => value.trim().length > 0 || 'Give the course a name.',
-            maxLength: { value: 80, message: 'Keep it under 80 characters.' },
-          })}
-          error={errors.name?.message}
-        />
-        <TextField
-          idPrefix="course"
-          label="Level (optional)"
-          help="A grade, book or level, if the course has one."
-          autoComplete="off"
-          registration={register('level', {
-            maxLength: { value: 40, message: 'Keep it under 40 characters.' },
-          })}
-          error={errors.level?.message}
-        />
-      </DialogBody>
-      <DialogFooter
-        actions={
-          <>
-            <Button variant="minimal" onClick={onClose}>
-              Cancel
-            </Button>
-            <Button type="submit" intent={Intent.PRIMARY} loading={isSubmitting}>
-              {course ? 'Save changes' : 'Add course'}
-            </Button>
-          </>
-        }
+    <DialogForm
+      label={course ? 'Edit course' : 'Add a course'}
+      onSubmit={onSubmit}
+      error={formError}
+      onCancel={onClose}
+      submitText={course ? 'Save changes' : 'Add course'}
+      submitting={isSubmitting}
+    >
+      <TextField
+        idPrefix="course"
+        label="Course name"
+        help="As you call it at home, e.g. “Number trail, book 3”."
+        autoComplete="off"
+        autoFocus
+        registration={register('name', {
+          validate: (value) => value.trim().length > 0 || 'Give the course a name.',
+          maxLength: { value: 80, message: 'Keep it under 80 characters.' },
+        })}
+        error={errors.name?.message}
       />
-    </form>
+      <TextField
+        idPrefix="course"
+        label="Level (optional)"
+        help="A grade, book or level, if the course has one."
+        autoComplete="off"
+        registration={register('level', {
+          maxLength: { value: 40, message: 'Keep it under 40 characters.' },
+        })}
+        error={errors.level?.message}
+      />
+    </DialogForm>
   );
 }
 

@@ -1,38 +1,8 @@
-import { Button } from '@blueprintjs/core';
-import { EditIcon, TrashIcon } from '@blueprintjs/icons';
-
+import { RowActions, type RowActionHandlers } from '../../../components/row-actions';
 import type { Lesson } from '../types';
 
-export type LessonActionHandlers = {
-  onEdit: (lesson: Lesson) => void;
-  onDelete: (lesson: Lesson) => void;
-};
+export type LessonActionHandlers = RowActionHandlers<Lesson>;
 
-export function LessonActions({
-  lesson,
-  onEdit,
-  onDelete,
-}: { lesson: Lesson } & LessonActionHandlers) {
-  return (
-    <span className="wb-row-actions">
-      <Button
-        size="small"
-        variant="minimal"
-        icon={<EditIcon />}
-        onClick={() => onEdit(lesson)}
-        aria-label={`Edit lesson ${lesson.number}`}
-      >
-        Edit
-      </Button>
-      <Button
-        size="small"
-        variant="minimal"
-        icon={<TrashIcon />}
-        onClick={() => onDelete(lesson)}
-        aria-label={`Delete lesson ${lesson.number}`}
-      >
-        Delete
-      </Button>
-    </span>
-  );
+export function LessonActions({ lesson, ...handlers }: { lesson: Lesson } & LessonActionHandlers) {
+  return <RowActions row={lesson} name={`lesson ${lesson.number}`} {...handlers} />;
 }

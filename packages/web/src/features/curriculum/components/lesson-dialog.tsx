@@ -1,9 +1,9 @@
-import { Button, Dialog, DialogBody, DialogFooter, Intent } from '@blueprintjs/core';
+import { Dialog } from '@blueprintjs/core';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 
 import { applyFieldErrors } from '../../../components/form/apply-field-errors';
-import { FormError } from '../../../components/form/form-error';
+import { DialogForm } from '../../../components/form/dialog-form';
 import { TextField } from '../../../components/form/text-field';
 import { useToast } from '../../../components/toaster';
 import { useUpdateLesson } from '../api/update-lesson';
@@ -48,47 +48,39 @@ function LessonForm({ lesson, onClose }: { lesson: Lesson; onClose: () => void }
   });
 
   return (
-    <form onSubmit={onSubmit} noValidate aria-label="Edit lesson">
-      <DialogBody>
-        <FormError message={formError} />
-        <TextField
-          idPrefix="lesson-edit"
-          label="Lesson number"
-          inputMode="numeric"
-          autoComplete="off"
-          registration={register('number', lessonRules.number)}
-          error={errors.number?.message}
-        />
-        <TextField
-          idPrefix="lesson-edit"
-          label="Title"
-          autoComplete="off"
-          autoFocus
-          registration={register('title', lessonRules.title)}
-          error={errors.title?.message}
-        />
-        <TextField
-          idPrefix="lesson-edit"
-          label="Skills (optional)"
-          help="Separate skills with ; — e.g. “subtraction; regrouping”."
-          autoComplete="off"
-          registration={register('skills')}
-          error={errors.skills?.message}
-        />
-      </DialogBody>
-      <DialogFooter
-        actions={
-          <>
-            <Button variant="minimal" onClick={onClose}>
-              Cancel
-            </Button>
-            <Button type="submit" intent={Intent.PRIMARY} loading={isSubmitting}>
-              Save changes
-            </Button>
-          </>
-        }
+    <DialogForm
+      label="Edit lesson"
+      onSubmit={onSubmit}
+      error={formError}
+      onCancel={onClose}
+      submitText="Save changes"
+      submitting={isSubmitting}
+    >
+      <TextField
+        idPrefix="lesson-edit"
+        label="Lesson number"
+        inputMode="numeric"
+        autoComplete="off"
+        registration={register('number', lessonRules.number)}
+        error={errors.number?.message}
       />
-    </form>
+      <TextField
+        idPrefix="lesson-edit"
+        label="Title"
+        autoComplete="off"
+        autoFocus
+        registration={register('title', lessonRules.title)}
+        error={errors.title?.message}
+      />
+      <TextField
+        idPrefix="lesson-edit"
+        label="Skills (optional)"
+        help="Separate skills with ; — e.g. “subtraction; regrouping”."
+        autoComplete="off"
+        registration={register('skills')}
+        error={errors.skills?.message}
+      />
+    </DialogForm>
   );
 }
 

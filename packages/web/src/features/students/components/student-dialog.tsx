@@ -1,10 +1,10 @@
-import { Button, Dialog, DialogBody, DialogFooter, Intent } from '@blueprintjs/core';
+import { Dialog } from '@blueprintjs/core';
 import { GRADE_LEVELS } from '@workback/core';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 
 import { applyFieldErrors } from '../../../components/form/apply-field-errors';
-import { FormError } from '../../../components/form/form-error';
+import { DialogForm } from '../../../components/form/dialog-form';
 import { SelectField } from '../../../components/form/select-field';
 import { TextField } from '../../../components/form/text-field';
 import { useToast } from '../../../components/toaster';
@@ -59,45 +59,37 @@ function StudentForm({ student, onClose }: StudentDialogProps) {
   });
 
   return (
-    <form onSubmit={onSubmit} noValidate aria-label={student ? 'Edit student' : 'Add a student'}>
-      <DialogBody>
-        <FormError message={formError} />
-        <TextField
-          idPrefix="student"
-          label="First name or nickname"
-          help="That is all we need. No last names."
-          autoComplete="off"
-          autoFocus
-          registration={register('name', {
-            required: 'Enter a first name or nickname.',
-            validate: (value) => value.trim().length > 0 || 'Enter a first name or nickname.',
-            maxLength: { value: NAME_MAX, message: `Keep it under ${NAME_MAX} characters.` },
-          })}
-          error={errors.name?.message}
-        />
-        <SelectField
-          idPrefix="student"
-          label="Grade"
-          help="The grade of the math they are working on now."
-          options={GRADE_OPTIONS}
-          control={control}
-          name="gradeLevel"
-          rules={{ required: 'Choose a grade.' }}
-        />
-      </DialogBody>
-      <DialogFooter
-        actions={
-          <>
-            <Button variant="minimal" onClick={onClose}>
-              Cancel
-            </Button>
-            <Button type="submit" intent={Intent.PRIMARY} loading={isSubmitting}>
-              {student ? 'Save changes' : 'Add student'}
-            </Button>
-          </>
-        }
+    <DialogForm
+      label={student ? 'Edit student' : 'Add a student'}
+      onSubmit={onSubmit}
+      error={formError}
+      onCancel={onClose}
+      submitText={student ? 'Save changes' : 'Add student'}
+      submitting={isSubmitting}
+    >
+      <TextField
+        idPrefix="student"
+        label="First name or nickname"
+        help="That is all we need. No last names."
+        autoComplete="off"
+        autoFocus
+        registration={register('name', {
+          required: 'Enter a first name or nickname.',
+          validate: (value) => value.trim().length > 0 || 'Enter a first name or nickname.',
+          maxLength: { value: NAME_MAX, message: `Keep it under ${NAME_MAX} characters.` },
+        })}
+        error={errors.name?.message}
       />
-    </form>
+      <SelectField
+        idPrefix="student"
+        label="Grade"
+        help="The grade of the math they are working on now."
+        options={GRADE_OPTIONS}
+        control={control}
+        name="gradeLevel"
+        rules={{ required: 'Choose a grade.' }}
+      />
+    </DialogForm>
   );
 }
 
