@@ -7,11 +7,10 @@ import {
   IsOptional,
   IsPositive,
   IsString,
-  Max,
   MaxLength,
-  Min,
   Validate,
 } from 'class-validator';
+import { PageQuery } from '../../common/dto/page.query.js';
 import { CalendarDate } from './calendar-date.validator.js';
 
 export const MISS_SORTS = [
@@ -24,7 +23,7 @@ export const MISS_SORTS = [
 ] as const;
 const SORT_VALUES = MISS_SORTS.flatMap((s) => [s, `-${s}`]);
 
-export class ListMissesQuery {
+export class ListMissesQuery extends PageQuery {
   @ApiPropertyOptional()
   @IsOptional()
   @Type(() => Number)
@@ -69,21 +68,6 @@ export class ListMissesQuery {
   @IsString()
   @MaxLength(100, { message: 'q must be at most 100 characters' })
   q?: string;
-
-  @ApiPropertyOptional({ default: 1 })
-  @IsOptional()
-  @Type(() => Number)
-  @IsInt({ message: 'page must be a whole number from 1' })
-  @Min(1, { message: 'page must be a whole number from 1' })
-  page?: number;
-
-  @ApiPropertyOptional({ default: 25, maximum: 100 })
-  @IsOptional()
-  @Type(() => Number)
-  @IsInt({ message: 'pageSize must be a whole number from 1 to 100' })
-  @Min(1, { message: 'pageSize must be a whole number from 1 to 100' })
-  @Max(100, { message: 'pageSize must be a whole number from 1 to 100' })
-  pageSize?: number;
 
   @ApiPropertyOptional({ enum: SORT_VALUES, default: '-occurredOn' })
   @IsOptional()

@@ -1,8 +1,9 @@
 import { ApiPropertyOptional } from '@nestjs/swagger';
 import { Type } from 'class-transformer';
-import { IsInt, IsOptional, IsPositive, Max, Min } from 'class-validator';
+import { IsInt, IsOptional, IsPositive } from 'class-validator';
+import { PageQuery } from '../../common/dto/page.query.js';
 
-export class ListNotesQuery {
+export class ListNotesQuery extends PageQuery {
   @ApiPropertyOptional({ description: 'The notes of one miss, oldest first' })
   @IsOptional()
   @Type(() => Number)
@@ -10,18 +11,7 @@ export class ListNotesQuery {
   @IsPositive({ message: 'missId must be a whole number' })
   missId?: number;
 
-  @ApiPropertyOptional({ default: 1 })
-  @IsOptional()
-  @Type(() => Number)
-  @IsInt({ message: 'page must be a whole number from 1' })
-  @Min(1, { message: 'page must be a whole number from 1' })
-  page?: number;
-
+  // Only the documented default differs (the service pages notes by 50); PageQuery's checks apply.
   @ApiPropertyOptional({ default: 50, maximum: 100 })
-  @IsOptional()
-  @Type(() => Number)
-  @IsInt({ message: 'pageSize must be a whole number from 1 to 100' })
-  @Min(1, { message: 'pageSize must be a whole number from 1 to 100' })
-  @Max(100, { message: 'pageSize must be a whole number from 1 to 100' })
-  pageSize?: number;
+  override pageSize?: number;
 }
