@@ -4,7 +4,7 @@ import { placeColumn, placeName } from '../numbers/digits.js';
 import { describeOutcome } from '../diagnose/describeOutcome.js';
 import { digitSlipBesideRule } from '../diagnose/digitSlipBesideRule.js';
 import { findFactSlip, nearSlip, type FactCell } from '../diagnose/findFactSlip.js';
-import { firstWrongColumn } from '../diagnose/firstWrongColumn.js';
+import { diagnoseWholeAnswer } from '../diagnose/diagnoseWholeAnswer.js';
 import type { Candidate, FactError, Findings } from '../diagnose/types.js';
 import { addColumns, type AdditionMethod, type AdditionRun } from './addColumns.js';
 
@@ -103,21 +103,21 @@ const factSentence = (f: FactError): string =>
  */
 export function diagnoseAddition(problem: AdditionProblem, answer: Answer): Findings {
   const correct = addColumns(problem.addends);
-  const expected = correct.result;
-  const base = { expected, expectedTrace: correct.trace };
-  if (answer.kind !== 'whole') {
-    return {
-      ...base,
-      correct: false,
-      matches: [],
-      firstWrongStep: null,
-      notes: [`The answer ${answer.text} is not a whole number; this sum is ${expected}.`],
-    };
-  }
-  const written = answer.value;
-  if (written === expected)
-    return { ...base, correct: true, matches: [], firstWrongStep: null, notes: [] };
+  return diagnoseWholeAnswer(
+    { expected: correct.result, expectedTrace: correct.trace },
+    answer,
+    (written) => searchAddition(problem, correct, written),
+    { resultName: 'this sum' },
+  );
+}
 
+/** Every rule, fact slip and pair that turns the problem into the written (wrong) answer. */
+function searchAddition(
+  problem: AdditionProblem,
+  correct: AdditionRun,
+  written: string,
+): Candidate[] {
+  const expected = correct.result;
   const matches: Candidate[] = [];
   const outcome = describeOutcome(problem.text, written, expected);
   const singles = ADDITION_RULES.map((rule) => ({
@@ -189,11 +189,5 @@ export function diagnoseAddition(problem: AdditionProblem, answer: Answer): Find
       facts: [fact],
     });
   }
-  return {
-    ...base,
-    correct: false,
-    matches,
-    firstWrongStep: firstWrongColumn(expected, written),
-    notes: [],
-  };
+  return matches;
 }

@@ -1,5 +1,5 @@
 import { describeOutcome } from '../diagnose/describeOutcome.js';
-import { firstWrongColumn } from '../diagnose/firstWrongColumn.js';
+import { diagnoseWholeAnswer } from '../diagnose/diagnoseWholeAnswer.js';
 import type { Candidate, Findings } from '../diagnose/types.js';
 import type { Answer, Problem } from '../parse/types.js';
 import type { MissingNumberTrace } from '../trace/types.js';
@@ -14,22 +14,21 @@ type MissingProblem = Extract<Problem, { kind: 'missing' }>;
  */
 export function diagnoseMissing(problem: MissingProblem, answer: Answer): Findings {
   const correct = solveMissing(problem) as MissingNumberTrace;
+  return diagnoseWholeAnswer(
+    { expected: correct.result, expectedTrace: correct },
+    answer,
+    (written) => searchMissing(problem, correct, written),
+    { resultName: 'the missing number' },
+  );
+}
+
+/** The rules that turn the equation into the written (wrong) answer. */
+function searchMissing(
+  problem: MissingProblem,
+  correct: MissingNumberTrace,
+  written: string,
+): Candidate[] {
   const expected = correct.result;
-  const base = { expected, expectedTrace: correct };
-  if (answer.kind !== 'whole') {
-    return {
-      ...base,
-      correct: false,
-      matches: [],
-      firstWrongStep: null,
-      notes: [
-        `The answer ${answer.text} is not a whole number; the missing number is ${expected}.`,
-      ],
-    };
-  }
-  const written = answer.value;
-  if (written === expected)
-    return { ...base, correct: true, matches: [], firstWrongStep: null, notes: [] };
   const outcome = describeOutcome(problem.text, written, expected);
   const matches: Candidate[] = [];
   const wrong = solveMissing(problem, 'wrong-operation');
@@ -50,11 +49,5 @@ export function diagnoseMissing(problem: MissingProblem, answer: Answer): Findin
       facts: [],
     });
   }
-  return {
-    ...base,
-    correct: false,
-    matches,
-    firstWrongStep: firstWrongColumn(expected, written),
-    notes: [],
-  };
+  return matches;
 }

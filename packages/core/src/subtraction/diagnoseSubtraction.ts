@@ -4,7 +4,7 @@ import { placeColumn, placeName } from '../numbers/digits.js';
 import { describeOutcome } from '../diagnose/describeOutcome.js';
 import { digitSlipBesideRule } from '../diagnose/digitSlipBesideRule.js';
 import { findFactSlip, nearSlip, type FactCell } from '../diagnose/findFactSlip.js';
-import { firstWrongColumn } from '../diagnose/firstWrongColumn.js';
+import { diagnoseWholeAnswer } from '../diagnose/diagnoseWholeAnswer.js';
 import type { Candidate, FactError, Findings } from '../diagnose/types.js';
 import { runSubtraction } from './runSubtraction.js';
 import { subtractColumns, type SubtractionMethod, type SubtractionRun } from './subtractColumns.js';
@@ -130,21 +130,21 @@ function factError(c: SubtractionColumn, written: number): FactError | null {
  */
 export function diagnoseSubtraction(problem: SubtractionProblem, answer: Answer): Findings {
   const correct = subtractColumns(problem.minuend, problem.subtrahend) as SubtractionRun;
-  const expected = correct.result;
-  const base = { expected, expectedTrace: correct.trace };
-  if (answer.kind !== 'whole') {
-    return {
-      ...base,
-      correct: false,
-      matches: [],
-      firstWrongStep: null,
-      notes: [`The answer ${answer.text} is not a whole number; this difference is ${expected}.`],
-    };
-  }
-  const written = answer.value;
-  if (written === expected)
-    return { ...base, correct: true, matches: [], firstWrongStep: null, notes: [] };
+  return diagnoseWholeAnswer(
+    { expected: correct.result, expectedTrace: correct.trace },
+    answer,
+    (written) => searchSubtraction(problem, correct, written),
+    { resultName: 'this difference' },
+  );
+}
 
+/** Every rule, fact slip and pair that turns the problem into the written (wrong) answer. */
+function searchSubtraction(
+  problem: SubtractionProblem,
+  correct: SubtractionRun,
+  written: string,
+): Candidate[] {
+  const expected = correct.result;
   const matches: Candidate[] = [];
   const outcome = describeOutcome(problem.text, written, expected);
   const { minuend, subtrahend } = problem;
@@ -230,11 +230,5 @@ export function diagnoseSubtraction(problem: SubtractionProblem, answer: Answer)
       facts: [fact],
     });
   }
-  return {
-    ...base,
-    correct: false,
-    matches,
-    firstWrongStep: firstWrongColumn(expected, written),
-    notes: [],
-  };
+  return matches;
 }
