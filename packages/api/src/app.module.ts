@@ -19,6 +19,7 @@ import { HouseholdDataModule } from './household-data/household-data.module.js';
 import { HouseholdsModule } from './households/households.module.js';
 import { InvitationsModule } from './invitations/invitations.module.js';
 import { MailModule } from './mail/mail.module.js';
+import { MetricsModule } from './metrics/metrics.module.js';
 import { MissesModule } from './misses/misses.module.js';
 import { NotesModule } from './notes/notes.module.js';
 import { PasswordResetsModule } from './password-resets/password-resets.module.js';
@@ -96,6 +97,7 @@ const emailOf = (req: Request) =>
     PatternsModule,
     PortfolioModule,
     HealthModule,
+    MetricsModule,
     SeedModule,
   ],
   providers: [

@@ -58,6 +58,11 @@ const members = (ok: number, admin = 403): Record<Actor, number> => ({
 // Every route × every kind of caller → the status DESIGN.md's roles imply.
 const CASES: Case[] = [
   { route: 'GET /api/health', path: () => '/api/health', expect: same(200) },
+  {
+    route: 'GET /api/admin/metrics',
+    path: () => '/api/admin/metrics',
+    expect: { ...same(403), anon: 401, admin: 200 },
+  },
   { route: 'GET /api/auth/csrf', path: () => '/api/auth/csrf', expect: same(200) },
   { route: 'GET /api/docs', path: () => '/api/docs', expect: same(200) },
   { route: 'POST /api/auth/login', path: () => '/api/auth/login', body: {}, expect: same(400) },

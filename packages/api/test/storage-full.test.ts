@@ -1,5 +1,7 @@
+import path from 'node:path';
 import { getConnectionToken } from '@nestjs/sequelize';
 import type { Sequelize } from 'sequelize-typescript';
+import sqlite3 from 'sqlite3';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DEMO, signedIn, startTestApp, type TestApp } from './support/test-app.js';
 
@@ -39,5 +41,41 @@ describe('a full disk', () => {
       await sequelize.query('PRAGMA max_page_count = 1073741823');
     }
     await owner.post('/api/students', { name: 'After', gradeLevel: '2' }).expect(201);
+    const admin = await signedIn(t, DEMO.admin);
+    const metrics = (await admin.get('/api/admin/metrics').expect(200)).body;
+    expect(metrics.storageFaults).toBeGreaterThanOrEqual(1);
+    expect(metrics.sqliteBusy).toBe(0);
+  });
+});
+
+describe('a database held by another writer', () => {
+  function run(db: sqlite3.Database, sql: string): Promise<void> {
+    return new Promise((resolve, reject) => db.exec(sql, (err) => (err ? reject(err) : resolve())));
+  }
+
+  it('answers 503 when the wait runs out, saves nothing, and counts it for the site admin', async () => {
+    const owner = await signedIn(t, DEMO.owner);
+    const admin = await signedIn(t, DEMO.admin);
+    const sequelize = t.app.get<Sequelize>(getConnectionToken());
+    const busyBefore = (await admin.get('/api/admin/metrics').expect(200)).body.sqliteBusy;
+    const before = (await owner.get('/api/students').expect(200)).body.total as number;
+    // A short wait on the app's shared connection, so the test need not sit out the 10 s one.
+    await sequelize.query('PRAGMA busy_timeout = 100');
+    const other = new sqlite3.Database(path.join(t.dataDir, 'workback.sqlite'));
+    try {
+      await run(other, 'BEGIN IMMEDIATE');
+      const res = await owner.post('/api/students', { name: 'Waits', gradeLevel: '2' });
+      expect(res.status).toBe(503);
+      expect(res.body.message).toMatch(/busy with other changes, so nothing was saved/);
+      await run(other, 'ROLLBACK');
+    } finally {
+      await new Promise((resolve) => other.close(resolve));
+      await sequelize.query('PRAGMA busy_timeout = 10000');
+    }
+    expect((await owner.get('/api/students').expect(200)).body.total).toBe(before);
+    const metrics = (await admin.get('/api/admin/metrics').expect(200)).body;
+    expect(metrics.sqliteBusy).toBe(busyBefore + 1);
+    expect(metrics.requests['5xx']).toBeGreaterThanOrEqual(1);
+    expect(metrics.memory.peakRssBytes).toBeGreaterThanOrEqual(metrics.memory.rssBytes);
   });
 });

@@ -7,6 +7,7 @@ import {
   Logger,
 } from '@nestjs/common';
 import type { Response } from 'express';
+import { MetricsService } from '../../metrics/metrics.service.js';
 import {
   DatabaseError,
   ForeignKeyConstraintError,
@@ -40,6 +41,8 @@ export interface ErrorBody {
 @Catch()
 export class HttpExceptionFilter implements ExceptionFilter {
   private readonly logger = new Logger('Errors');
+
+  constructor(private readonly metrics: MetricsService) {}
 
   catch(exception: unknown, host: ArgumentsHost): void {
     const res = host.switchToHttp().getResponse<Response>();
@@ -96,13 +99,27 @@ export class HttpExceptionFilter implements ExceptionFilter {
       };
     }
     const storage = storageFault(exception);
-    if (storage) return storage;
+    if (storage) {
+      this.countFault(exception);
+      return storage;
+    }
     return {
       statusCode: HttpStatus.INTERNAL_SERVER_ERROR,
       error: REASONS[500]!,
       message: 'Something went wrong on our side; nothing was saved',
     };
   }
+
+  private countFault(exception: unknown): void {
+    if (faultCode(exception) === 'SQLITE_BUSY') this.metrics.countSqliteBusy();
+    else this.metrics.countStorageFault();
+  }
+}
+
+function faultCode(exception: unknown): unknown {
+  return exception instanceof DatabaseError
+    ? (exception.parent as { code?: string }).code
+    : (exception as { code?: unknown } | null)?.code;
 }
 
 /** Express maps broken JSON and broken %-escapes to 400s with parser wording; name what was wrong. */
@@ -127,12 +144,17 @@ function withRequestFault(body: ErrorBody, cause: unknown): ErrorBody {
   return body;
 }
 
-/** A full disk or a read-only data folder: the write was refused whole and can be retried later. */
+/** A full disk, a read-only data folder or a database held too long by others: the write was refused whole and can be retried later. */
 function storageFault(exception: unknown): ErrorBody | undefined {
-  const code =
-    exception instanceof DatabaseError
-      ? (exception.parent as { code?: string }).code
-      : (exception as { code?: unknown } | null)?.code;
+  const code = faultCode(exception);
+  if (code === 'SQLITE_BUSY') {
+    // Another write held the database past busy_timeout; the request was rolled back whole.
+    return {
+      statusCode: HttpStatus.SERVICE_UNAVAILABLE,
+      error: REASONS[503]!,
+      message: 'The notebook is busy with other changes, so nothing was saved. Please try again.',
+    };
+  }
   if (code === 'SQLITE_FULL' || code === 'ENOSPC') {
     return {
       statusCode: 507,
