@@ -2,7 +2,7 @@ import { existsSync } from 'node:fs';
 import path from 'node:path';
 import type { NestExpressApplication } from '@nestjs/platform-express';
 import { DocumentBuilder, SwaggerModule } from '@nestjs/swagger';
-import type { NextFunction, Request, Response } from 'express';
+import express, { type NextFunction, type Request, type Response } from 'express';
 import session from 'express-session';
 import helmet from 'helmet';
 import { Logger } from 'nestjs-pino';
@@ -11,6 +11,7 @@ import { createValidationPipe } from './common/pipes/validation.pipe.js';
 import type { AppConfig } from './config/app.config.js';
 import { API_VERSION } from './health/health.controller.js';
 import { mountDevOutboxPage } from './mail/dev-outbox.page.js';
+import { MetricsService } from './metrics/metrics.service.js';
 import { SessionStoreService } from './sessions/session-store.service.js';
 
 const strictCsp = {
@@ -47,8 +48,10 @@ export function configureApp(app: NestExpressApplication, config: AppConfig): vo
   app.use((req: Request, res: Response, next: NextFunction) =>
     (req.path.startsWith('/api/docs') ? docsHeaders : appHeaders)(req, res, next),
   );
+  const metrics = app.get(MetricsService);
   app.use('/api', (_req: Request, res: Response, next: NextFunction) => {
     res.setHeader('Cache-Control', 'no-store');
+    res.once('finish', () => metrics.countResponse(res.statusCode));
     next();
   });
 
@@ -108,7 +111,11 @@ function absoluteLifetime(maxAgeMs: number) {
 function serveWebApp(app: NestExpressApplication, webDist: string): void {
   const index = path.join(webDist, 'index.html');
   if (!existsSync(index)) return;
-  app.useStaticAssets(webDist, { index: false, maxAge: '1h', immutable: false });
+  const assets = express.static(webDist, { index: false, maxAge: '1h', immutable: false });
+  // API paths never name a file of the web app: skip the disk lookup on every API request.
+  app.use((req: Request, res: Response, next: NextFunction) =>
+    req.path.startsWith('/api') ? next() : assets(req, res, next),
+  );
   app.use((req: Request, res: Response, next: NextFunction) => {
     if (req.method !== 'GET' || req.path.startsWith('/api') || !req.accepts('html')) return next();
     res.setHeader('Cache-Control', 'no-cache');

@@ -41,6 +41,9 @@ export async function startTestApp(env: Record<string, string> = {}): Promise<Te
     ...env,
   });
   const { app } = await createApp();
+  // Listening once lets supertest reuse the address; an idle server makes it bind and close a
+  // port for every request.
+  await app.listen(0, '127.0.0.1');
   const server = app.getHttpServer();
   return {
     app,
