@@ -103,6 +103,11 @@ describe('GET /api/misses filters', () => {
     ],
     ['q with a literal _', () => 'q=I_f', (m: Seeded) => m.explanation.includes('I_f')],
     [
+      'q of two characters (too short for the index)',
+      () => 'q=Ja',
+      (m: Seeded) => `${m.problem} ${m.explanation}`.toLowerCase().includes('ja'),
+    ],
+    [
       'several at once',
       () => `studentId=${ada}&cause=slip&from=2025-01-01`,
       (m: Seeded) => m.studentId === ada && m.cause === 'slip',
@@ -112,6 +117,30 @@ describe('GET /api/misses filters', () => {
     expect(expected.length).toBeGreaterThan(0);
     expect(expected.length).toBeLessThan(seeded.length);
     expect(await ids(query())).toEqual(expected);
+  });
+
+  it('keeps the text search in step with edits and deletions', async () => {
+    const target = seeded.find((m) => m.problem.includes('jar'))!;
+    const search = async (q: string) => ids(`q=${encodeURIComponent(q)}`);
+    expect(await search('holds 50%')).toContain(target.id);
+    await parent
+      .send('patch', `/api/misses/${target.id}`, { explanation: 'I counted the marbles twice' })
+      .expect(200);
+    target.explanation = 'I counted the marbles twice';
+    expect(await search('marbles twice')).toEqual([target.id]);
+    const extra = await parent
+      .post('/api/misses', {
+        studentId: ada,
+        occurredOn: '2025-02-01',
+        problem: '7 x 8',
+        answer: '54',
+        explanation: 'zebra crossing words',
+        cause: 'fact',
+      })
+      .expect(201);
+    expect(await search('ZEBRA cross')).toEqual([extra.body.id]);
+    await parent.send('delete', `/api/misses/${extra.body.id}`).expect(204);
+    expect(await search('zebra')).toEqual([]);
   });
 
   it('finds the rule in the diagnosis of the seeded borrow-across-zero misses', () => {

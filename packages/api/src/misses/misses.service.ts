@@ -424,16 +424,30 @@ export class MissesService {
       );
     }
     const text = q.q?.trim();
-    if (text) {
-      const pattern = `%${text.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
-      and.push(
-        literal(
-          `("Miss"."problem" LIKE ${esc(pattern)} ESCAPE '\\' OR "Miss"."explanation" LIKE ${esc(pattern)} ESCAPE '\\')`,
-        ) as unknown as WhereOptions<Miss>,
-      );
-    }
+    if (text) and.push(textCondition(text, esc));
     return { [Op.and]: and };
   }
+}
+
+/**
+ * Problem or explanation containing `text`, any case. From three characters on, the trigram
+ * index (migration 0006) finds the rows; shorter text has no trigram and scans the household's.
+ */
+function textCondition(text: string, esc: (v: string) => string): WhereOptions<Miss> {
+  if ([...text].length >= 3) {
+    const phrase = `"${text.replace(/"/g, '""')}"`;
+    return {
+      id: {
+        [Op.in]: literal(
+          `(SELECT rowid FROM misses_search WHERE misses_search MATCH ${esc(phrase)})`,
+        ),
+      },
+    };
+  }
+  const pattern = `%${text.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+  return literal(
+    `("Miss"."problem" LIKE ${esc(pattern)} ESCAPE '\\' OR "Miss"."explanation" LIKE ${esc(pattern)} ESCAPE '\\')`,
+  ) as unknown as WhereOptions<Miss>;
 }
 
 function diagnosisColumns(checked: Checked) {

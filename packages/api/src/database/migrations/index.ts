@@ -3,6 +3,7 @@ import * as m0002 from './0002-misses.js';
 import * as m0003 from './0003-curriculum-keys-sittings.js';
 import * as m0004 from './0004-members-mail.js';
 import * as m0005 from './0005-patterns-review-plans.js';
+import * as m0006 from './0006-miss-search.js';
 
 /** Every migration in order; listed explicitly so src and dist behave alike. */
-export const MIGRATIONS = [m0001, m0002, m0003, m0004, m0005];
+export const MIGRATIONS = [m0001, m0002, m0003, m0004, m0005, m0006];
