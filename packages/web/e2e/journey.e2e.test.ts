@@ -22,13 +22,13 @@ async function signIn(page: Page, email: string, password: string) {
   await page.getByLabel('Password').fill(password);
   await page.getByRole('button', { name: 'Sign in', exact: true }).click();
   await page.waitForURL('**/students');
-  await page.getByRole('heading', { name: 'Students' }).waitFor();
+  await page.getByRole('heading', { name: 'Students', exact: true }).waitFor();
 }
 
 async function signOut(page: Page) {
   await page.getByRole('button', { name: 'Sign out' }).first().click();
   await page.waitForURL('**/sign-in');
-  await page.getByRole('heading', { name: 'Sign in' }).waitFor();
+  await page.getByRole('heading', { name: 'Sign in', exact: true }).waitFor();
 }
 
 /** Names in the students table (wide screens). */
@@ -50,12 +50,12 @@ describe('a new household', () => {
 
     await page.goto('/');
     await page.waitForURL('**/sign-in');
-    await page.getByRole('heading', { name: 'Sign in' }).waitFor();
+    await page.getByRole('heading', { name: 'Sign in', exact: true }).waitFor();
     await checkPage(page, 'sign-in');
 
     await page.getByRole('link', { name: /create an account/i }).click();
     await page.waitForURL('**/create-account');
-    await page.getByRole('heading', { name: 'Create an account' }).waitFor();
+    await page.getByRole('heading', { name: 'Create an account', exact: true }).waitFor();
     await checkPage(page, 'create-account');
 
     await page.getByRole('button', { name: 'Create account' }).click();
@@ -95,7 +95,7 @@ describe('a new household', () => {
       .getByRole('navigation', { name: 'Main' })
       .getByRole('link', { name: 'Account' })
       .click();
-    await page.getByRole('heading', { name: 'Account' }).waitFor();
+    await page.getByRole('heading', { name: 'Account', exact: true }).waitFor();
     expect(await page.getByText(email).isVisible()).toBe(true);
     await checkPage(page, 'account');
 
@@ -145,7 +145,7 @@ describe('the demo household', () => {
     const phoneNav = page.getByRole('navigation', { name: 'Main (phone)' });
     await phoneNav.getByRole('button', { name: 'More' }).click();
     await phoneNav.getByRole('link', { name: 'Account' }).click();
-    await page.getByRole('heading', { name: 'Account' }).waitFor();
+    await page.getByRole('heading', { name: 'Account', exact: true }).waitFor();
     await signOut(page);
     expectCleanRun(watched);
     await watched.context.close();

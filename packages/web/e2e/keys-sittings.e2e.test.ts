@@ -55,7 +55,7 @@ describe('answer keys and sittings', () => {
         .getByRole('navigation', { name: 'Main' })
         .getByRole('link', { name: 'Curriculum' })
         .click();
-      await page.getByRole('heading', { name: 'Curriculum' }).waitFor();
+      await page.getByRole('heading', { name: 'Curriculum', exact: true }).waitFor();
       await page.getByRole('region', { name: /^Lessons of / }).waitFor();
       await checkPage(page, 'curriculum');
       await page.getByRole('button', { name: 'Delete lesson 14' }).click();
@@ -69,7 +69,7 @@ describe('answer keys and sittings', () => {
         .getByRole('navigation', { name: 'Main' })
         .getByRole('link', { name: 'Answer keys' })
         .click();
-      await page.getByRole('heading', { name: 'Answer keys' }).waitFor();
+      await page.getByRole('heading', { name: 'Answer keys', exact: true }).waitFor();
       await page.getByRole('region', { name: 'Answer keys' }).waitFor();
       await checkPage(page, 'keys');
       await page.getByRole('button', { name: 'Import a CSV' }).click();
@@ -84,7 +84,7 @@ describe('answer keys and sittings', () => {
         .selectOption({ label: 'Number Trail, level 3–4' });
       await checkPage(page, 'key-import-preview');
       await dialog.getByRole('button', { name: 'Import 12 items' }).click();
-      await page.getByRole('heading', { name: 'Worksheet 21' }).waitFor();
+      await page.getByRole('heading', { name: 'Worksheet 21', exact: true }).waitFor();
       expect(await page.getByRole('textbox', { name: 'Problem, item 4' }).inputValue()).toBe(
         '304 - 75',
       );
@@ -117,16 +117,16 @@ describe('answer keys and sittings', () => {
         .getByRole('navigation', { name: 'Main (phone)' })
         .getByRole('link', { name: 'Sittings' })
         .click();
-      await page.getByRole('heading', { name: 'Sittings' }).waitFor();
+      await page.getByRole('heading', { name: 'Sittings', exact: true }).waitFor();
       await page.getByRole('link', { name: 'Start a sitting' }).click();
-      await page.getByRole('heading', { name: 'Start a sitting' }).waitFor();
+      await page.getByRole('heading', { name: 'Start a sitting', exact: true }).waitFor();
       await page.getByLabel('Student').selectOption({ label: 'Wren' });
       await page.getByLabel('Answer key').selectOption({ label: 'Worksheet 21 (12 items)' });
       await page.getByLabel('Minutes taken (optional)').fill('18');
       await page.getByLabel('Well rested?').selectOption('yes');
       await checkPage(page, 'sitting-start', PHONE);
       await page.getByRole('button', { name: 'Start marking' }).click();
-      await page.getByRole('heading', { name: 'Mark the sitting' }).waitFor();
+      await page.getByRole('heading', { name: 'Mark the sitting', exact: true }).waitFor();
       await checkPage(page, 'sitting-marking', PHONE);
 
       const wrong: Record<number, string> = { 2: '819', 4: '139', 9: '12' };
@@ -146,7 +146,7 @@ describe('answer keys and sittings', () => {
       await checkPage(page, 'sitting-marked', PHONE);
       await page.getByRole('button', { name: 'Save marks' }).click();
 
-      await page.getByRole('heading', { name: '9 of 12 right' }).waitFor();
+      await page.getByRole('heading', { name: '9 of 12 right', exact: true }).waitFor();
       expect(page.url()).toMatch(/\/sittings\/\d+\/misses$/);
       const misses = page
         .getByRole('list', { name: 'Misses from this sitting' })
@@ -180,7 +180,7 @@ describe('answer keys and sittings', () => {
       await checkPage(page, 'sittings');
       await page.goto('/students');
       await page.locator('.wb-table').getByRole('link', { name: 'Wren' }).click();
-      await page.getByRole('heading', { name: 'Wren' }).waitFor();
+      await page.getByRole('heading', { name: 'Wren', exact: true }).waitFor();
       await page.getByRole('table', { name: 'Scores by time of day' }).waitFor();
       await page.locator('.wb-chart svg').first().waitFor();
       await checkPage(page, 'student');

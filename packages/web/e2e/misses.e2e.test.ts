@@ -35,7 +35,7 @@ describe('logging a miss on a phone', () => {
     await signIn(page, 'parent@workback.test');
 
     await phoneNav(page).getByRole('link', { name: 'Log a miss' }).click();
-    await page.getByRole('heading', { name: 'Log a miss' }).waitFor();
+    await page.getByRole('heading', { name: 'Log a miss', exact: true }).waitFor();
     await checkPage(page, 'log-miss-empty', PHONE);
 
     await page.getByLabel('Student').selectOption({ label: 'Wren' });
@@ -44,7 +44,7 @@ describe('logging a miss on a phone', () => {
     await page.getByLabel('The child’s answer').fill('61');
     // The engine runs in the browser: the diagnosis appears while typing, before any save.
     await page.getByText('Checked: the usual working gives 43.').waitFor();
-    await page.getByRole('heading', { name: 'Carry reversed' }).waitFor();
+    await page.getByRole('heading', { name: 'Carry reversed', exact: true }).waitFor();
     const usual = page.getByRole('table', { name: 'The usual working' });
     expect(await usual.locator('tr').last().innerText()).toMatch(/4\s*3/);
     expect(await page.getByRole('radio', { name: /Method step/ }).isChecked()).toBe(true);
@@ -59,7 +59,7 @@ describe('logging a miss on a phone', () => {
 
     await page.getByRole('button', { name: 'Save', exact: true }).click();
     await page.waitForURL(/\/misses\/\d+$/);
-    await page.getByRole('heading', { name: '27 + 16' }).waitFor();
+    await page.getByRole('heading', { name: '27 + 16', exact: true }).waitFor();
     expect(await page.getByText('Seven and six is thirteen, so I wrote the one.').isVisible()).toBe(
       true,
     );
@@ -93,7 +93,7 @@ describe('logging a miss on a phone', () => {
     await page.getByText('Photo 1 · 1 pin').waitFor();
 
     await phoneNav(page).getByRole('link', { name: 'Notebook' }).click();
-    await page.getByRole('heading', { name: 'Notebook' }).waitFor();
+    await page.getByRole('heading', { name: 'Notebook', exact: true }).waitFor();
     await page.getByRole('button', { name: 'More filters' }).click();
     await page.getByLabel('Step error').selectOption({ label: 'Carry reversed' });
     await page.waitForURL(/rule=add\.carry-reversed/);
@@ -109,7 +109,7 @@ describe('logging a miss on a phone', () => {
     await page.goto(filtered);
     await cards.getByRole('link', { name: '27 + 16' }).click();
     await page.waitForURL(missUrl);
-    await page.getByRole('heading', { name: '27 + 16' }).waitFor();
+    await page.getByRole('heading', { name: '27 + 16', exact: true }).waitFor();
 
     expect(watched.foreignRequests, 'requests to other sites').toEqual([]);
     expect(watched.cspViolations, 'CSP violations').toEqual([]);
@@ -128,7 +128,7 @@ describe('logging a miss on a phone', () => {
     await checkPage(page, 'notebook-tutor');
     await page.getByRole('region', { name: 'Misses' }).getByRole('link').first().click();
     await page.waitForURL(/\/misses\/\d+$/);
-    await page.getByRole('heading', { name: 'Notes' }).waitFor();
+    await page.getByRole('heading', { name: 'Notes', exact: true }).waitFor();
     expect(await page.getByRole('button', { name: 'Edit' }).count()).toBe(0);
     expect(await page.getByRole('button', { name: 'Delete' }).count()).toBe(0);
     expect(await page.getByRole('group', { name: 'Where this miss stands' }).count()).toBe(0);

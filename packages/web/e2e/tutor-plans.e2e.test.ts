@@ -82,7 +82,7 @@ describe('a tutor joins, reads the patterns and notes on one; the parent sends a
 
     // The owner invites a tutor for Wren only.
     await sideNav(owner.page).getByRole('link', { name: 'Members' }).click();
-    await owner.page.getByRole('heading', { name: 'Members' }).waitFor();
+    await owner.page.getByRole('heading', { name: 'Members', exact: true }).waitFor();
     await owner.page.getByRole('list', { name: 'Members' }).waitFor();
     await checkPage(owner.page, 'members');
     await owner.page.getByRole('button', { name: 'Invite someone' }).click();
@@ -132,7 +132,7 @@ describe('a tutor joins, reads the patterns and notes on one; the parent sends a
     const count = Number(/(\d+) misses/.exec(await toMisses.innerText())![1]);
     await toMisses.click();
     await tutor.page.waitForURL(/\/notebook\?student=\d+&(rule|skill)=/);
-    await tutor.page.getByRole('heading', { name: 'Notebook' }).waitFor();
+    await tutor.page.getByRole('heading', { name: 'Notebook', exact: true }).waitFor();
     await expect
       .poll(() => tutor.page.getByText(new RegExp(`\\b${count} miss`)).count())
       .toBeGreaterThan(0);
@@ -153,16 +153,16 @@ describe('a tutor joins, reads the patterns and notes on one; the parent sends a
 
     // The parent builds a plan for Wren from the open misses, downloads and sends it.
     await sideNav(owner.page).getByRole('link', { name: 'Review plans' }).click();
-    await owner.page.getByRole('heading', { name: 'Review plans' }).waitFor();
+    await owner.page.getByRole('heading', { name: 'Review plans', exact: true }).waitFor();
     await owner.page.getByLabel('Student').selectOption({ label: 'Wren' });
     await owner.page.getByRole('list', { name: 'Review plans for Wren' }).waitFor();
     await checkPage(owner.page, 'review-plans');
     await owner.page.getByRole('link', { name: 'Build a review plan' }).first().click();
-    await owner.page.getByRole('heading', { name: 'Build a review plan' }).waitFor();
+    await owner.page.getByRole('heading', { name: 'Build a review plan', exact: true }).waitFor();
     await owner.page.getByText(/Misses to review \(\d+ of \d+ ticked\)/).waitFor();
     await checkPage(owner.page, 'review-plan-new');
     await owner.page.getByRole('button', { name: 'Build the plan' }).click();
-    await owner.page.getByRole('heading', { name: 'Review plan for Wren' }).waitFor();
+    await owner.page.getByRole('heading', { name: 'Review plan for Wren', exact: true }).waitFor();
     await checkPage(owner.page, 'review-plan');
 
     const itemBox = owner.page.locator('.wb-plan-item').first().getByRole('checkbox');
@@ -235,7 +235,7 @@ describe('someone in two households, and a forgotten password', () => {
 
     // The owner's export and deletion live on the Account page.
     await page.goto('/account');
-    await page.getByRole('heading', { name: 'Your family’s data' }).waitFor();
+    await page.getByRole('heading', { name: 'Your family’s data', exact: true }).waitFor();
     await checkPage(page, 'account-data');
     await page.getByRole('button', { name: 'Delete the household…' }).click();
     await page
@@ -248,7 +248,7 @@ describe('someone in two households, and a forgotten password', () => {
     await page.getByRole('button', { name: 'Sign out' }).first().click();
     await page.waitForURL('**/sign-in');
     await page.getByRole('link', { name: 'Forgot your password?' }).click();
-    await page.getByRole('heading', { name: 'Forgot your password?' }).waitFor();
+    await page.getByRole('heading', { name: 'Forgot your password?', exact: true }).waitFor();
     await checkPage(page, 'forgot-password');
     await page.getByLabel('E-mail').fill(email);
     await page.getByRole('button', { name: 'E-mail me a link' }).click();
@@ -258,7 +258,7 @@ describe('someone in two households, and a forgotten password', () => {
       .waitFor();
     const reset = await mailTo(email, /new Workback password/);
     await page.goto(pathOf(reset, '/reset-password/'));
-    await page.getByRole('heading', { name: 'Set a new password' }).waitFor();
+    await page.getByRole('heading', { name: 'Set a new password', exact: true }).waitFor();
     await checkPage(page, 'reset-password');
     await page.getByLabel('New password', { exact: true }).fill('a fresh sheet 4');
     await page.getByLabel('The new password again').fill('a fresh sheet 4');
