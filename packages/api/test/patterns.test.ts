@@ -1,4 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { HouseholdsService } from '../src/households/households.service.js';
+import { MissesService } from '../src/misses/misses.service.js';
 import {
   DEMO,
   registered,
@@ -99,6 +101,35 @@ describe('GET /api/patterns on the demo', () => {
     const back = await owner.get(`/api/patterns?studentId=${wren}&from=2026-03-02&to=2026-03-01`);
     expect(back.status).toBe(400);
     expect(back.body.fields).toEqual({ to: 'to must be on or after from' });
+  });
+});
+
+describe('the misses patterns read', () => {
+  it('carry from the row the same rules and facts as the stored diagnoses', async () => {
+    const me = (await owner.get('/api/auth/me').expect(200)).body as { user: { id: number } };
+    const member = (await t.app.get(HouseholdsService).resolveMember(me.user.id))!;
+    const misses = t.app.get(MissesService);
+    for (const studentId of [wren, milo]) {
+      const full = await misses.withDiagnoses(member, { studentId });
+      const slim = await misses.patternMisses(member, { studentId });
+      expect(full.some((m) => (m.diagnosis?.facts.length ?? 0) > 0 || m.ruleIds.length > 0)).toBe(
+        true,
+      );
+      expect(slim).toEqual(
+        full.map((m) => ({
+          id: m.id,
+          occurredOn: m.occurredOn,
+          cause: m.cause,
+          skills: m.skills,
+          problem: m.problem,
+          answer: m.answer,
+          diagnosis: m.diagnosis && {
+            rules: m.diagnosis.rules.map((r) => ({ id: r.id, ids: r.ids })),
+            facts: m.diagnosis.facts,
+          },
+        })),
+      );
+    }
   });
 });
 

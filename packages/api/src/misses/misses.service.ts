@@ -1,6 +1,12 @@
 import { Injectable, NotFoundException } from '@nestjs/common';
 import { InjectConnection, InjectModel } from '@nestjs/sequelize';
-import { Cause, MissStatus, type Diagnosis, type WrittenSteps } from '@workback/core';
+import {
+  Cause,
+  MissStatus,
+  type Diagnosis,
+  type PatternMiss,
+  type WrittenSteps,
+} from '@workback/core';
 import { literal, Op, type Order, type Transaction, type WhereOptions } from 'sequelize';
 import type { Sequelize } from 'sequelize-typescript';
 import type { MemberContext } from '../common/member-context.js';
@@ -255,6 +261,49 @@ export class MissesService {
     return rows.map((m) => ({ ...toMissSummary(m), diagnosis: diagnoses.get(m.id) ?? null }));
   }
 
+  /**
+   * One student's misses as the pattern maths reads them, from the row's own columns: the
+   * rule ids (a pair's `id` joins its `ids` with `+`) and facts, without the stored diagnosis.
+   */
+  async patternMisses(
+    member: MemberContext,
+    filter: { studentId: number; from?: string; to?: string },
+  ): Promise<PatternMiss[]> {
+    const and: WhereOptions<Miss>[] = [missScope(member), { studentId: filter.studentId }];
+    if (filter.from) and.push({ occurredOn: { [Op.gte]: filter.from } });
+    if (filter.to) and.push({ occurredOn: { [Op.lte]: filter.to } });
+    const rows = await this.missModel.findAll({
+      attributes: [
+        'id',
+        'occurredOn',
+        'cause',
+        'skills',
+        'problem',
+        'answer',
+        'notCheckedReason',
+        'ruleIds',
+        'facts',
+      ],
+      where: { [Op.and]: and },
+      order: [
+        ['occurredOn', 'ASC'],
+        ['id', 'ASC'],
+      ],
+    });
+    return rows.map((m) => ({
+      id: m.id,
+      occurredOn: m.occurredOn,
+      cause: m.cause,
+      skills: m.skills,
+      problem: m.problem,
+      answer: m.answer,
+      diagnosis:
+        m.notCheckedReason === null
+          ? { rules: m.ruleIds.map((id) => ({ id, ids: id.split('+') })), facts: m.facts }
+          : null,
+    }));
+  }
+
   async remove(member: MemberContext, id: number): Promise<void> {
     const keys = await this.sequelize.transaction(async (transaction) => {
       const miss = await this.findModel(member, id, transaction);
@@ -458,6 +507,7 @@ function diagnosisColumns(checked: Checked) {
       expected: null,
       correct: null,
       ruleIds: [],
+      facts: [],
       suggestedCause: null,
     };
   }
@@ -468,6 +518,7 @@ function diagnosisColumns(checked: Checked) {
     expected: d.expected,
     correct: d.correct,
     ruleIds: d.rules.map((r) => r.id),
+    facts: d.facts,
     suggestedCause: d.suggestedCause?.cause ?? null,
   };
 }

@@ -5,7 +5,6 @@ import { Op } from 'sequelize';
 import type { MemberContext } from '../common/member-context.js';
 import { fieldsError } from '../common/pipes/validation.pipe.js';
 import { MissesService } from '../misses/misses.service.js';
-import { toPlanMiss } from '../review-plans/plan-miss.js';
 import { ReviewPlansService } from '../review-plans/review-plans.service.js';
 import { SittingsService } from '../sittings/sittings.service.js';
 import { StudentsService } from '../students/students.service.js';
@@ -32,12 +31,12 @@ export class PatternsService {
     const student = await this.students.findModel(member, query.studentId);
     const range = { from: query.from, to: query.to };
     const [misses, rightItems, plans, notes] = await Promise.all([
-      this.misses.withDiagnoses(member, { studentId: student.id, ...range }),
+      this.misses.patternMisses(member, { studentId: student.id, ...range }),
       this.sittings.rightItemsOf(member, student.id, range),
       this.plans.coverage(member, student.id),
       this.notesOf(member, student.id),
     ]);
-    const patterns = computePatterns(misses.map(toPlanMiss), {
+    const patterns = computePatterns(misses, {
       rightItems,
       plans,
       asOf: today.toISOString().slice(0, 10),

@@ -1,4 +1,4 @@
-import type { Cause, MissStatus, WrittenSteps } from '@workback/core';
+import type { Cause, MissStatus, StoredDiagnosis, WrittenSteps } from '@workback/core';
 import { Column, DataType, ForeignKey, Model, Table } from 'sequelize-typescript';
 import { jsonColumn } from '../../common/json-column.js';
 import { Household } from '../../households/models/household.model.js';
@@ -68,6 +68,10 @@ export class Miss extends Model {
 
   @Column(jsonColumn<string[]>('ruleIds', []))
   declare ruleIds: string[];
+
+  /** The diagnosis's wrong basic facts, kept on the row for the pattern maths. */
+  @Column(jsonColumn<StoredDiagnosis['facts']>('facts', []))
+  declare facts: StoredDiagnosis['facts'];
 
   @Column({ type: DataType.STRING(16), allowNull: true })
   declare suggestedCause: Cause | null;
