@@ -131,15 +131,17 @@ export class MissesService {
     const page = query.page ?? 1;
     const pageSize = query.pageSize ?? 25;
     const where = this.listWhere(member, query);
-    const [total, rows] = await Promise.all([
-      this.missModel.count({ where }),
-      this.missModel.findAll({
-        where,
-        order: sortOrder(query.sort ?? '-occurredOn'),
-        limit: pageSize,
-        offset: (page - 1) * pageSize,
-      }),
-    ]);
+    const offset = (page - 1) * pageSize;
+    const rows = await this.missModel.findAll({
+      where,
+      order: sortOrder(query.sort ?? '-occurredOn'),
+      limit: pageSize,
+      offset,
+    });
+    // A short page (or an empty first one) already says how many there are; counting a big
+    // notebook is the costliest part of a list.
+    const known = rows.length < pageSize && (rows.length > 0 || page === 1);
+    const total = known ? offset + rows.length : await this.missModel.count({ where });
     const thumbs = await this.photos.thumbnails(rows.map((r) => r.id));
     const items = rows.map((m) => ({
       ...toMissSummary(m),
