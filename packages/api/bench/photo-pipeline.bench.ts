@@ -1,6 +1,7 @@
 import { performance } from 'node:perf_hooks';
 import sharp from 'sharp';
 import { PhotoPipeline } from '../src/photos/photo-pipeline.service.js';
+import { report } from './figures.js';
 import { ms, summary, table } from './stats.js';
 
 const RUNS = Number(process.env.BENCH_PHOTO_RUNS ?? 30);
@@ -93,7 +94,29 @@ export async function benchPhotoPipeline(): Promise<void> {
       })),
     ],
   );
-  console.log(
-    `peak RSS growth during the runs: ${((rssPeak - rssBefore) / 1024 / 1024).toFixed(0)} MB`,
-  );
+  const growth = `${((rssPeak - rssBefore) / 1024 / 1024).toFixed(0)} MB`;
+  console.log(`peak RSS growth during the runs: ${growth}`);
+  report([
+    {
+      area: 'photos',
+      measure: '12 MP pipeline median / p95',
+      value: `${ms(a.median)} / ${ms(a.p95)}`,
+    },
+    {
+      area: 'photos',
+      measure: 'bare sharp resize median / p95',
+      value: `${ms(b.median)} / ${ms(b.p95)}`,
+    },
+    {
+      area: 'photos',
+      measure: 'pipeline ÷ bare sharp (median)',
+      value: (a.median / b.median).toFixed(2),
+    },
+    ...Object.entries(refusals).map(([step, s]) => ({
+      area: 'photos',
+      measure: `refusal: ${step} (median)`,
+      value: ms(summary(s).median),
+    })),
+    { area: 'photos', measure: 'peak RSS growth', value: growth },
+  ]);
 }

@@ -1,5 +1,6 @@
 // Diagnoses per second and median microseconds per diagnosis, for 2-, 3- and 4-digit
 // problems of each operation, with the full catalog and pairs. Run: npm run bench -w packages/core
+import { appendFileSync } from 'node:fs';
 import { diagnose } from '../src/index.js';
 import { applyRule } from '../src/rules/applyRule.js';
 import { parseProblem } from '../src/parse/parseProblem.js';
@@ -62,6 +63,7 @@ for (let w = 0; w < 5; w += 1)
   for (const set of sets.values()) for (const [p, a] of set) diagnose(p, a);
 
 const rows: string[] = [];
+const figures: object[] = [];
 for (const kind of Object.keys(makers)) {
   for (const d of [2, 3, 4]) {
     const set = sets.get(`${kind} ${d}`) as [string, string][];
@@ -81,6 +83,12 @@ for (const kind of Object.keys(makers)) {
     const cpuMean = (cpu.user + cpu.system) / times.length;
     times.sort((x, y) => x - y);
     const median = times[Math.floor(times.length / 2)] as number;
+    figures.push({
+      area: 'engine',
+      measure: `diagnose ${kind}, ${d} digits (median)`,
+      value: `${median.toFixed(1)} µs`,
+      ...(kind === 'subtraction' && d === 4 ? { target: '< 50 µs', met: median < 50 } : {}),
+    });
     rows.push(
       `${kind.padEnd(15)} ${String(d).padStart(6)}   ${String(Math.round(times.length / total)).padStart(11)}   ${median.toFixed(1).padStart(9)}   ${cpuMean.toFixed(1).padStart(11)}`,
     );
@@ -88,3 +96,7 @@ for (const kind of Object.keys(makers)) {
 }
 console.log('operation       digits   diagnoses/s   median µs   CPU µs/diag');
 for (const r of rows) console.log(r);
+// The root `npm run bench` prints these with the other packages' figures in one table.
+if (process.env.BENCH_REPORT) {
+  appendFileSync(process.env.BENCH_REPORT, figures.map((f) => `${JSON.stringify(f)}\n`).join(''));
+}
