@@ -3,6 +3,7 @@ import { InjectConnection } from '@nestjs/sequelize';
 import type { Sequelize } from 'sequelize-typescript';
 import { createMigrator } from './migrator.js';
 import { CONNECTION_PRAGMAS, preparePragmasOnConnect } from './sqlite-pragmas.js';
+import { queueTransactions } from './transaction-queue.js';
 
 /** Prepares connections and brings the schema up to date before anything serves. */
 @Injectable()
@@ -11,6 +12,7 @@ export class DatabaseService implements OnModuleInit {
 
   async onModuleInit(): Promise<void> {
     preparePragmasOnConnect(this.sequelize);
+    queueTransactions(this.sequelize);
     // The default connection was opened by the module's authenticate() before the wrap.
     for (const pragma of CONNECTION_PRAGMAS) await this.sequelize.query(pragma);
     await createMigrator(this.sequelize).up();

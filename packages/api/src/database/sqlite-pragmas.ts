@@ -18,6 +18,7 @@ export const CONNECTION_PRAGMAS = [
 
 interface RawConnection {
   exec(sql: string, callback: (err: Error | null) => void): void;
+  serialize(): void;
 }
 
 const prepared = new WeakSet<object>();
@@ -30,6 +31,11 @@ function exec(connection: RawConnection, sql: string): Promise<void> {
 
 export async function applyPragmas(connection: RawConnection): Promise<void> {
   if (prepared.has(connection)) return;
+  // One statement at a time per connection. In node-sqlite3's default parallel mode every
+  // queued statement takes a libuv worker thread and waits there on the connection's mutex:
+  // under load the shared connection filled all four, and a transaction holding the write
+  // lock waited behind them until other writers gave up with SQLITE_BUSY.
+  connection.serialize();
   for (const pragma of CONNECTION_PRAGMAS) await exec(connection, pragma);
   prepared.add(connection);
 }

@@ -38,6 +38,8 @@ export class SessionStoreService implements OnApplicationShutdown {
     const file = config.getOrThrow<AppConfig>('app').sessionsFile;
     mkdirSync(path.dirname(file), { recursive: true, mode: 0o700 });
     this.db = new sqlite3.Database(file);
+    // One statement at a time, so session reads never hold every libuv worker (see applyPragmas).
+    this.db.serialize();
     // sqlite3 queues statements in order, so these run before the store's CREATE TABLE.
     // Sessions can afford NORMAL: WAL still survives a process kill, and a power cut at
     // worst signs someone out, so no fsync is spent on every request.

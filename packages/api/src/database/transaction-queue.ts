@@ -1,0 +1,35 @@
+import { AsyncLocalStorage } from 'node:async_hooks';
+import type { Transaction } from 'sequelize';
+import type { Sequelize } from 'sequelize-typescript';
+
+type Work<T> = (transaction: Transaction) => PromiseLike<T>;
+
+/**
+ * Runs this process's write transactions one after another. SQLite has one writer at a time;
+ * when many `BEGIN IMMEDIATE` waited on busy_timeout together, each waiter slept on a libuv
+ * worker thread, and with all four taken the transaction holding the lock could not run its
+ * next statement until the waiters gave up with SQLITE_BUSY. Queued here they wait in
+ * JavaScript instead; busy_timeout is left to writers in other processes (a backup).
+ */
+export function queueTransactions(sequelize: Sequelize): void {
+  const begin = sequelize.transaction.bind(sequelize) as <T>(
+    options: object,
+    work: Work<T>,
+  ) => Promise<T>;
+  const inside = new AsyncLocalStorage<true>();
+  let last: Promise<unknown> = Promise.resolve();
+
+  function transaction<T>(optionsOrWork: object | Work<T>, maybeWork?: Work<T>): Promise<T> {
+    const [options, work] =
+      typeof optionsOrWork === 'function' ? [{}, optionsOrWork] : [optionsOrWork, maybeWork];
+    if (!work) throw new Error('Use managed transactions: sequelize.transaction(async (t) => …)');
+    // Waiting for the queue from inside a queued transaction would wait for ever.
+    if (inside.getStore()) {
+      throw new Error('A transaction was opened inside another: pass the outer one instead');
+    }
+    const run = last.then(() => begin<T>(options, (t) => inside.run(true, () => work(t))));
+    last = run.catch(() => undefined);
+    return run;
+  }
+  sequelize.transaction = transaction as Sequelize['transaction'];
+}
