@@ -1,6 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { HouseholdsService } from '../src/households/households.service.js';
 import { MissesService } from '../src/misses/misses.service.js';
+import { toPatternMiss } from '../src/misses/pattern-miss.js';
 import {
   DEMO,
   registered,
@@ -116,18 +117,15 @@ describe('the misses patterns read', () => {
         true,
       );
       expect(slim).toEqual(
-        full.map((m) => ({
-          id: m.id,
-          occurredOn: m.occurredOn,
-          cause: m.cause,
-          skills: m.skills,
-          problem: m.problem,
-          answer: m.answer,
-          diagnosis: m.diagnosis && {
-            rules: m.diagnosis.rules.map((r) => ({ id: r.id, ids: r.ids })),
-            facts: m.diagnosis.facts,
-          },
-        })),
+        full.map((m) =>
+          toPatternMiss(
+            m,
+            m.diagnosis && {
+              rules: m.diagnosis.rules.map((r) => ({ id: r.id, ids: r.ids })),
+              facts: m.diagnosis.facts,
+            },
+          ),
+        ),
       );
     }
   });

@@ -22,6 +22,7 @@ import {
 import { StudentsService } from '../students/students.service.js';
 import type { CreateMissDto } from './dto/create-miss.dto.js';
 import type { ListMissesQuery } from './dto/list-misses.query.js';
+import { toPatternMiss } from './pattern-miss.js';
 import type { UpdateMissDto } from './dto/update-miss.dto.js';
 import { missScope } from './miss-scope.js';
 import { MissDiagnosis } from './models/miss-diagnosis.model.js';
@@ -292,18 +293,14 @@ export class MissesService {
         ['id', 'ASC'],
       ],
     });
-    return rows.map((m) => ({
-      id: m.id,
-      occurredOn: m.occurredOn,
-      cause: m.cause,
-      skills: m.skills,
-      problem: m.problem,
-      answer: m.answer,
-      diagnosis:
+    return rows.map((m) =>
+      toPatternMiss(
+        m,
         m.notCheckedReason === null
           ? { rules: m.ruleIds.map((id) => ({ id, ids: id.split('+') })), facts: m.facts }
           : null,
-    }));
+      ),
+    );
   }
 
   async remove(member: MemberContext, id: number): Promise<void> {
