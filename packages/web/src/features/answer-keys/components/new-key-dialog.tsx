@@ -1,10 +1,10 @@
-import { Button, Dialog, DialogBody, DialogFooter, Intent } from '@blueprintjs/core';
+import { Dialog } from '@blueprintjs/core';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { useNavigate } from 'react-router-dom';
 
 import { applyFieldErrors } from '../../../components/form/apply-field-errors';
-import { FormError } from '../../../components/form/form-error';
+import { DialogForm } from '../../../components/form/dialog-form';
 import { useToast } from '../../../components/toaster';
 import { paths } from '../../../config/paths';
 import { useCreateAnswerKey } from '../api/create-answer-key';
@@ -49,31 +49,23 @@ function NewKeyForm({
   });
 
   return (
-    <form onSubmit={onSubmit} noValidate aria-label="New answer key">
-      <DialogBody>
-        <FormError message={formError} />
-        <KeyFields
-          idPrefix="new-key"
-          courses={courses}
-          register={register}
-          control={control}
-          errors={errors}
-          autoFocus
-        />
-      </DialogBody>
-      <DialogFooter
-        actions={
-          <>
-            <Button variant="minimal" onClick={onClose}>
-              Cancel
-            </Button>
-            <Button type="submit" intent={Intent.PRIMARY} loading={isSubmitting}>
-              Make the key
-            </Button>
-          </>
-        }
+    <DialogForm
+      label="New answer key"
+      onSubmit={onSubmit}
+      error={formError}
+      onCancel={onClose}
+      submitText="Make the key"
+      submitting={isSubmitting}
+    >
+      <KeyFields
+        idPrefix="new-key"
+        courses={courses}
+        register={register}
+        control={control}
+        errors={errors}
+        autoFocus
       />
-    </form>
+    </DialogForm>
   );
 }
 
