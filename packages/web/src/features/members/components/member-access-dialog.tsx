@@ -1,11 +1,11 @@
-import { Button, Dialog, DialogBody, DialogFooter, Intent } from '@blueprintjs/core';
+import { Dialog } from '@blueprintjs/core';
 import { Role } from '@workback/core';
 import { useState } from 'react';
 import { useForm, useWatch } from 'react-hook-form';
 
 import { applyFieldErrors } from '../../../components/form/apply-field-errors';
 import { CheckboxGroupField } from '../../../components/form/checkbox-group-field';
-import { FormError } from '../../../components/form/form-error';
+import { DialogForm } from '../../../components/form/dialog-form';
 import { SelectField } from '../../../components/form/select-field';
 import { useToast } from '../../../components/toaster';
 import { useUpdateMember } from '../api/update-member';
@@ -64,45 +64,37 @@ function AccessForm({ member, students, viewerIsOwner, onClose }: AccessProps) {
   });
 
   return (
-    <form onSubmit={onSubmit} noValidate aria-label={`Change ${member.displayName}’s access`}>
-      <DialogBody>
-        <FormError message={formError} />
-        <SelectField
-          idPrefix="access"
-          label="Role"
-          options={roles}
-          control={control}
-          name="role"
-          rules={{ required: 'Choose a role.' }}
-        />
-        {role === Role.tutor ? (
-          <CheckboxGroupField
-            idPrefix="access"
-            label="Children they may see"
-            help="The change takes effect on their next click."
-            options={students.map((s) => ({ value: s.id, label: s.name }))}
-            control={control}
-            name="studentIds"
-            rules={{
-              validate: (ids: number[]) =>
-                ids.length > 0 || 'Tick at least one child the tutor may see.',
-            }}
-          />
-        ) : null}
-      </DialogBody>
-      <DialogFooter
-        actions={
-          <>
-            <Button variant="minimal" onClick={onClose}>
-              Cancel
-            </Button>
-            <Button type="submit" intent={Intent.PRIMARY} loading={isSubmitting}>
-              Save access
-            </Button>
-          </>
-        }
+    <DialogForm
+      label={`Change ${member.displayName}’s access`}
+      onSubmit={onSubmit}
+      error={formError}
+      onCancel={onClose}
+      submitText="Save access"
+      submitting={isSubmitting}
+    >
+      <SelectField
+        idPrefix="access"
+        label="Role"
+        options={roles}
+        control={control}
+        name="role"
+        rules={{ required: 'Choose a role.' }}
       />
-    </form>
+      {role === Role.tutor ? (
+        <CheckboxGroupField
+          idPrefix="access"
+          label="Children they may see"
+          help="The change takes effect on their next click."
+          options={students.map((s) => ({ value: s.id, label: s.name }))}
+          control={control}
+          name="studentIds"
+          rules={{
+            validate: (ids: number[]) =>
+              ids.length > 0 || 'Tick at least one child the tutor may see.',
+          }}
+        />
+      ) : null}
+    </DialogForm>
   );
 }
 
