@@ -47,7 +47,13 @@ export function rankFindings(
     }
   }
   const items = readItems(rightItems);
-  const contradictionsOf = memo((ruleId: string) => contradictions(ruleId, items));
+  // Sittings repeat their keys' problems, so the same written answer is checked many times.
+  const isRight = memo((key: string) => {
+    const [text, written] = key.split('\u0000') as [string, string];
+    const d = diagnose(text, written);
+    return d.ok && d.correct;
+  });
+  const contradictionsOf = memo((ruleId: string) => contradictions(ruleId, items, isRight));
   const groupOf = (id: string) => RULE_GROUPS.find((g) => g.ruleIds.includes(id))?.group ?? null;
   const order = new Map(RULES.map((r, i) => [r.id, i]));
   const rules: RuleFinding[] = [...new Set([...singles.keys(), ...pairs.keys()])]
@@ -117,15 +123,16 @@ function readItems(rightItems: readonly RightItem[]): ReadItem[] {
   return out;
 }
 
-function contradictions(ruleId: string, items: readonly ReadItem[]): Contradiction[] {
+function contradictions(
+  ruleId: string,
+  items: readonly ReadItem[],
+  isRight: (textAndWritten: string) => boolean,
+): Contradiction[] {
   const out: Contradiction[] = [];
   for (const { item, problem } of items) {
     const writes = applyRule(ruleId, problem);
     if (writes.length === 0) continue;
-    const anyRight = writes.some((w) => {
-      const d = diagnose(problem.text, w);
-      return d.ok && d.correct;
-    });
+    const anyRight = writes.some((w) => isRight(`${problem.text}\u0000${w}`));
     if (!anyRight)
       out.push({
         occurredOn: item.occurredOn,
