@@ -1,9 +1,9 @@
-import { Button, Dialog, DialogBody, DialogFooter, Intent } from '@blueprintjs/core';
+import { Dialog } from '@blueprintjs/core';
 import { useState } from 'react';
 import { useController, useForm } from 'react-hook-form';
 
 import { applyFieldErrors } from '../../../components/form/apply-field-errors';
-import { FormError } from '../../../components/form/form-error';
+import { DialogForm } from '../../../components/form/dialog-form';
 import { TextAreaField } from '../../../components/form/text-area-field';
 import { TextField } from '../../../components/form/text-field';
 import { useToast } from '../../../components/toaster';
@@ -57,75 +57,67 @@ function EditMissForm({ miss, onClose }: { miss: Miss; onClose: () => void }) {
   });
 
   return (
-    <form onSubmit={(event) => void onSubmit(event)} noValidate aria-label="Edit the miss">
-      <DialogBody>
-        <FormError message={formError} />
-        <TextField
-          idPrefix="edit"
-          label="Date of the work"
-          type="date"
-          registration={register('occurredOn', {
-            required: 'Enter the day of the worksheet.',
-            validate: (value) => value <= today() || 'The day cannot be in the future.',
-          })}
-          error={errors.occurredOn?.message}
-        />
-        <TextField
-          idPrefix="edit"
-          label="The problem"
-          autoComplete="off"
-          help="Changing the problem or the answer runs the checkers again."
-          registration={register('problem', {
-            validate: (value) => value.trim().length > 0 || 'Type the problem as it was written.',
-          })}
-          error={errors.problem?.message}
-        />
-        <TextField
-          idPrefix="edit"
-          label="The child’s answer"
-          autoComplete="off"
-          registration={register('answer', {
-            validate: (value) => value.trim().length > 0 || 'Type the answer the child wrote.',
-          })}
-          error={errors.answer?.message}
-        />
-        <TextAreaField
-          idPrefix="edit"
-          label="What the child said"
-          registration={register('explanation', {
-            maxLength: { value: 2000, message: 'Keep it under 2000 characters.' },
-          })}
-          error={errors.explanation?.message}
-        />
-        <CausePicker
-          name="edit-cause"
-          value={cause.value}
-          onChange={cause.onChange}
-          suggestion={miss.diagnosis?.suggestedCause ?? null}
-        />
-        <TextAreaField
-          idPrefix="edit"
-          label="Your note"
-          rows={2}
-          registration={register('note', {
-            maxLength: { value: 2000, message: 'Keep it under 2000 characters.' },
-          })}
-          error={errors.note?.message}
-        />
-      </DialogBody>
-      <DialogFooter
-        actions={
-          <>
-            <Button variant="minimal" onClick={onClose}>
-              Cancel
-            </Button>
-            <Button type="submit" intent={Intent.PRIMARY} loading={isSubmitting}>
-              Save changes
-            </Button>
-          </>
-        }
+    <DialogForm
+      label="Edit the miss"
+      onSubmit={onSubmit}
+      error={formError}
+      onCancel={onClose}
+      submitText="Save changes"
+      submitting={isSubmitting}
+    >
+      <TextField
+        idPrefix="edit"
+        label="Date of the work"
+        type="date"
+        registration={register('occurredOn', {
+          required: 'Enter the day of the worksheet.',
+          validate: (value) => value <= today() || 'The day cannot be in the future.',
+        })}
+        error={errors.occurredOn?.message}
       />
-    </form>
+      <TextField
+        idPrefix="edit"
+        label="The problem"
+        autoComplete="off"
+        help="Changing the problem or the answer runs the checkers again."
+        registration={register('problem', {
+          validate: (value) => value.trim().length > 0 || 'Type the problem as it was written.',
+        })}
+        error={errors.problem?.message}
+      />
+      <TextField
+        idPrefix="edit"
+        label="The child’s answer"
+        autoComplete="off"
+        registration={register('answer', {
+          validate: (value) => value.trim().length > 0 || 'Type the answer the child wrote.',
+        })}
+        error={errors.answer?.message}
+      />
+      <TextAreaField
+        idPrefix="edit"
+        label="What the child said"
+        registration={register('explanation', {
+          maxLength: { value: 2000, message: 'Keep it under 2000 characters.' },
+        })}
+        error={errors.explanation?.message}
+      />
+      <CausePicker
+        name="edit-cause"
+        value={cause.value}
+        onChange={cause.onChange}
+        suggestion={miss.diagnosis?.suggestedCause ?? null}
+      />
+      <TextAreaField
+        idPrefix="edit"
+        label="Your note"
+        rows={2}
+        registration={register('note', {
+          maxLength: { value: 2000, message: 'Keep it under 2000 characters.' },
+        })}
+        error={errors.note?.message}
+      />
+    </DialogForm>
   );
 }
 
