@@ -1,10 +1,10 @@
-import { Button, Dialog, DialogBody, DialogFooter, Intent } from '@blueprintjs/core';
+import { Dialog, DialogBody } from '@blueprintjs/core';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 
 import { applyFieldErrors } from '../../../components/form/apply-field-errors';
 import { CheckboxGroupField } from '../../../components/form/checkbox-group-field';
-import { FormError } from '../../../components/form/form-error';
+import { DialogForm } from '../../../components/form/dialog-form';
 import { TextAreaField } from '../../../components/form/text-area-field';
 import { ErrorState, LoadingState } from '../../../components/states';
 import { useToast } from '../../../components/toaster';
@@ -66,47 +66,39 @@ function SendForm({ planId, onClose }: { planId: number; onClose: () => void }) 
   });
 
   return (
-    <form onSubmit={onSubmit} noValidate aria-label="Send the plan by e-mail">
-      <DialogBody>
-        <FormError message={formError} />
-        <CheckboxGroupField
-          idPrefix="send"
-          label="Send the PDF to"
-          options={recipients.data.items.map((m) => ({
-            value: m.id,
-            label: `${m.displayName}${m.isYou ? ' (you)' : ''} · ${ROLE_LABEL[m.role]} · ${m.email}`,
-          }))}
-          control={control}
-          name="memberIds"
-          rules={{ validate: (ids: number[]) => ids.length > 0 || 'Tick at least one person.' }}
-        />
-        <TextAreaField
-          idPrefix="send"
-          label="A line to go with it (optional)"
-          rows={2}
-          placeholder="For Thursday morning, after breakfast."
-          registration={register('message', {
-            maxLength: { value: 500, message: 'Keep it under 500 characters.' },
-          })}
-          error={errors.message?.message}
-        />
-        <p className="wb-muted">
-          The e-mail holds the child’s work: send it only to people who help with it.
-        </p>
-      </DialogBody>
-      <DialogFooter
-        actions={
-          <>
-            <Button variant="minimal" onClick={onClose}>
-              Cancel
-            </Button>
-            <Button type="submit" intent={Intent.PRIMARY} loading={isSubmitting}>
-              Send
-            </Button>
-          </>
-        }
+    <DialogForm
+      label="Send the plan by e-mail"
+      onSubmit={onSubmit}
+      error={formError}
+      onCancel={onClose}
+      submitText="Send"
+      submitting={isSubmitting}
+    >
+      <CheckboxGroupField
+        idPrefix="send"
+        label="Send the PDF to"
+        options={recipients.data.items.map((m) => ({
+          value: m.id,
+          label: `${m.displayName}${m.isYou ? ' (you)' : ''} · ${ROLE_LABEL[m.role]} · ${m.email}`,
+        }))}
+        control={control}
+        name="memberIds"
+        rules={{ validate: (ids: number[]) => ids.length > 0 || 'Tick at least one person.' }}
       />
-    </form>
+      <TextAreaField
+        idPrefix="send"
+        label="A line to go with it (optional)"
+        rows={2}
+        placeholder="For Thursday morning, after breakfast."
+        registration={register('message', {
+          maxLength: { value: 500, message: 'Keep it under 500 characters.' },
+        })}
+        error={errors.message?.message}
+      />
+      <p className="wb-muted">
+        The e-mail holds the child’s work: send it only to people who help with it.
+      </p>
+    </DialogForm>
   );
 }
 
