@@ -14,6 +14,7 @@ export function DialogForm({
   onCancel,
   submitText,
   submitting,
+  submitDisabled,
   children,
 }: {
   /** Names the form for screen readers. */
@@ -23,6 +24,8 @@ export function DialogForm({
   onCancel: () => void;
   submitText: string;
   submitting: boolean;
+  /** Holds the submit back while the form knows it would be refused. */
+  submitDisabled?: boolean;
   children: ReactNode;
 }) {
   return (
@@ -37,7 +40,12 @@ export function DialogForm({
             <Button variant="minimal" onClick={onCancel}>
               Cancel
             </Button>
-            <Button type="submit" intent={Intent.PRIMARY} loading={submitting}>
+            <Button
+              type="submit"
+              intent={Intent.PRIMARY}
+              loading={submitting}
+              disabled={submitDisabled}
+            >
               {submitText}
             </Button>
           </>

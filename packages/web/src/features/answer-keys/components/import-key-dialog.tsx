@@ -1,18 +1,10 @@
-import {
-  Button,
-  Dialog,
-  DialogBody,
-  DialogFooter,
-  FileInput,
-  FormGroup,
-  Intent,
-} from '@blueprintjs/core';
+import { Dialog, FileInput, FormGroup, Intent } from '@blueprintjs/core';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { useNavigate } from 'react-router-dom';
 
 import { applyFieldErrors } from '../../../components/form/apply-field-errors';
-import { FormError } from '../../../components/form/form-error';
+import { DialogForm } from '../../../components/form/dialog-form';
 import { useToast } from '../../../components/toaster';
 import { paths } from '../../../config/paths';
 import { isApiError } from '../../../lib/api-client';
@@ -128,94 +120,78 @@ function ImportKeyForm({
   const blocked = !chosen || 'unreadable' in chosen || localProblems.length > 0;
 
   return (
-    <form onSubmit={onSubmit} noValidate aria-label="Import a key from a CSV file">
-      <DialogBody>
-        <FormError message={formError} />
-        <p className="wb-muted wb-import-help">
-          One item per line under the header <code>number,prompt,answer,skills,revisit,facts</code>;
-          lists separated by <code>;</code>, lessons as <code>12; 31-33</code>. You see every row
-          here before anything is saved.
-        </p>
-        <FormGroup
-          label="CSV file"
-          labelFor="import-file"
-          intent={fileError ? Intent.DANGER : Intent.NONE}
-          helperText={
-            <span id="import-file-help">
-              {fileError ?? 'Saved from a spreadsheet as “CSV UTF-8”, at most 2 MiB.'}
-            </span>
-          }
-        >
-          <FileInput
-            fill
-            size="large"
-            text={chosen?.file.name ?? 'Choose a CSV file…'}
-            buttonText="Browse"
-            hasSelection={chosen !== null}
-            inputProps={{
-              id: 'import-file',
-              accept: '.csv,text/csv',
-              'aria-describedby': 'import-file-help',
-            }}
-            onInputChange={(event) => void choose(event.currentTarget.files?.[0])}
-          />
-        </FormGroup>
-        <KeyFields
-          idPrefix="import-key"
-          courses={courses}
-          register={register}
-          control={control}
-          errors={errors}
-        />
-        {chosen && 'unreadable' in chosen ? (
-          <CsvProblems
-            title="This file cannot be imported"
-            hint={chosen.unreadable}
-            problems={[]}
-          />
-        ) : null}
-        {serverProblems.length > 0 ? (
-          <CsvProblems
-            title="Nothing was imported"
-            hint="One bad row refuses the whole file. Fix these rows in the spreadsheet, save it as CSV again and choose it here:"
-            problems={serverProblems}
-          />
-        ) : null}
-        {localProblems.length > 0 ? (
-          <CsvProblems
-            title={`${new Set(localProblems.map((p) => p.line)).size} line(s) need fixing first`}
-            hint="Fix these in the spreadsheet, save it as CSV again and choose it here:"
-            problems={localProblems}
-          />
-        ) : null}
-        {preview && preview.rows.length > 0 ? (
-          <>
-            <p className="wb-import-count" role="status">
-              {preview.rows.length} item{preview.rows.length === 1 ? '' : 's'} read from{' '}
-              {chosen?.file.name}.
-            </p>
-            <CsvPreviewTable rows={preview.rows} problems={localProblems} />
-          </>
-        ) : null}
-      </DialogBody>
-      <DialogFooter
-        actions={
-          <>
-            <Button variant="minimal" onClick={onClose}>
-              Cancel
-            </Button>
-            <Button
-              type="submit"
-              intent={Intent.PRIMARY}
-              loading={isSubmitting}
-              disabled={chosen !== null && blocked}
-            >
-              {preview ? `Import ${preview.rows.length} items` : 'Import'}
-            </Button>
-          </>
+    <DialogForm
+      label="Import a key from a CSV file"
+      onSubmit={onSubmit}
+      error={formError}
+      onCancel={onClose}
+      submitText={preview ? `Import ${preview.rows.length} items` : 'Import'}
+      submitting={isSubmitting}
+      submitDisabled={chosen !== null && blocked}
+    >
+      <p className="wb-muted wb-import-help">
+        One item per line under the header <code>number,prompt,answer,skills,revisit,facts</code>;
+        lists separated by <code>;</code>, lessons as <code>12; 31-33</code>. You see every row here
+        before anything is saved.
+      </p>
+      <FormGroup
+        label="CSV file"
+        labelFor="import-file"
+        intent={fileError ? Intent.DANGER : Intent.NONE}
+        helperText={
+          <span id="import-file-help">
+            {fileError ?? 'Saved from a spreadsheet as “CSV UTF-8”, at most 2 MiB.'}
+          </span>
         }
+      >
+        <FileInput
+          fill
+          size="large"
+          text={chosen?.file.name ?? 'Choose a CSV file…'}
+          buttonText="Browse"
+          hasSelection={chosen !== null}
+          inputProps={{
+            id: 'import-file',
+            accept: '.csv,text/csv',
+            'aria-describedby': 'import-file-help',
+          }}
+          onInputChange={(event) => void choose(event.currentTarget.files?.[0])}
+        />
+      </FormGroup>
+      <KeyFields
+        idPrefix="import-key"
+        courses={courses}
+        register={register}
+        control={control}
+        errors={errors}
       />
-    </form>
+      {chosen && 'unreadable' in chosen ? (
+        <CsvProblems title="This file cannot be imported" hint={chosen.unreadable} problems={[]} />
+      ) : null}
+      {serverProblems.length > 0 ? (
+        <CsvProblems
+          title="Nothing was imported"
+          hint="One bad row refuses the whole file. Fix these rows in the spreadsheet, save it as CSV again and choose it here:"
+          problems={serverProblems}
+        />
+      ) : null}
+      {localProblems.length > 0 ? (
+        <CsvProblems
+          title={`${new Set(localProblems.map((p) => p.line)).size} line(s) need fixing first`}
+          hint="Fix these in the spreadsheet, save it as CSV again and choose it here:"
+          problems={localProblems}
+        />
+      ) : null}
+      {preview && preview.rows.length > 0 ? (
+        <>
+          <p className="wb-import-count" role="status">
+            {preview.rows.length} item{preview.rows.length === 1 ? '' : 's'} read from{' '}
+            {chosen?.file.name}.
+          </p>
+          <CsvPreviewTable rows={preview.rows} problems={localProblems} />
+        </>
+      ) : null}
+    </DialogForm>
   );
 }
 
