@@ -1,11 +1,11 @@
-import { Button, Callout, Dialog, DialogBody, DialogFooter, Intent } from '@blueprintjs/core';
+import { Callout, Dialog, Intent } from '@blueprintjs/core';
 import { Role } from '@workback/core';
 import { useState } from 'react';
 import { useForm, useWatch } from 'react-hook-form';
 
 import { applyFieldErrors } from '../../../components/form/apply-field-errors';
 import { CheckboxGroupField } from '../../../components/form/checkbox-group-field';
-import { FormError } from '../../../components/form/form-error';
+import { DialogForm } from '../../../components/form/dialog-form';
 import { SelectField } from '../../../components/form/select-field';
 import { TextField } from '../../../components/form/text-field';
 import { useToast } from '../../../components/toaster';
@@ -68,73 +68,61 @@ function InviteForm({
   });
 
   return (
-    <form onSubmit={onSubmit} noValidate aria-label="Invite someone">
-      <DialogBody>
-        <FormError message={formError} />
-        <TextField
-          idPrefix="invite"
-          label="Their e-mail"
-          type="email"
-          inputMode="email"
-          autoComplete="off"
-          autoFocus
-          help="We e-mail them a link to join. Nobody else sees the address."
-          registration={register('email', {
-            required: 'Enter the e-mail address to send the invitation to.',
-            pattern: {
-              value: /^\S+@\S+\.\S+$/,
-              message: 'That does not look like an e-mail address.',
-            },
-          })}
-          error={errors.email?.message}
-        />
-        <SelectField
-          idPrefix="invite"
-          label="They join as"
-          options={INVITE_ROLES}
-          control={control}
-          name="role"
-          rules={{ required: 'Choose how they join.' }}
-        />
-        {role === Role.tutor ? (
-          students.length > 0 ? (
-            <CheckboxGroupField
-              idPrefix="invite"
-              label="Children they may see"
-              help="A tutor sees only these children’s misses, photos and plans."
-              options={students.map((s) => ({ value: s.id, label: s.name }))}
-              control={control}
-              name="studentIds"
-              rules={{
-                validate: (ids: number[]) =>
-                  ids.length > 0 || 'Tick at least one child the tutor may see.',
-              }}
-            />
-          ) : (
-            <Callout intent={Intent.WARNING} className="wb-form-error">
-              Add a student first: a tutor needs at least one child to look over.
-            </Callout>
-          )
-        ) : null}
-      </DialogBody>
-      <DialogFooter
-        actions={
-          <>
-            <Button variant="minimal" onClick={onClose}>
-              Cancel
-            </Button>
-            <Button
-              type="submit"
-              intent={Intent.PRIMARY}
-              loading={isSubmitting}
-              disabled={role === Role.tutor && students.length === 0}
-            >
-              Send invitation
-            </Button>
-          </>
-        }
+    <DialogForm
+      label="Invite someone"
+      onSubmit={onSubmit}
+      error={formError}
+      onCancel={onClose}
+      submitText="Send invitation"
+      submitting={isSubmitting}
+      submitDisabled={role === Role.tutor && students.length === 0}
+    >
+      <TextField
+        idPrefix="invite"
+        label="Their e-mail"
+        type="email"
+        inputMode="email"
+        autoComplete="off"
+        autoFocus
+        help="We e-mail them a link to join. Nobody else sees the address."
+        registration={register('email', {
+          required: 'Enter the e-mail address to send the invitation to.',
+          pattern: {
+            value: /^\S+@\S+\.\S+$/,
+            message: 'That does not look like an e-mail address.',
+          },
+        })}
+        error={errors.email?.message}
       />
-    </form>
+      <SelectField
+        idPrefix="invite"
+        label="They join as"
+        options={INVITE_ROLES}
+        control={control}
+        name="role"
+        rules={{ required: 'Choose how they join.' }}
+      />
+      {role === Role.tutor ? (
+        students.length > 0 ? (
+          <CheckboxGroupField
+            idPrefix="invite"
+            label="Children they may see"
+            help="A tutor sees only these children’s misses, photos and plans."
+            options={students.map((s) => ({ value: s.id, label: s.name }))}
+            control={control}
+            name="studentIds"
+            rules={{
+              validate: (ids: number[]) =>
+                ids.length > 0 || 'Tick at least one child the tutor may see.',
+            }}
+          />
+        ) : (
+          <Callout intent={Intent.WARNING} className="wb-form-error">
+            Add a student first: a tutor needs at least one child to look over.
+          </Callout>
+        )
+      ) : null}
+    </DialogForm>
   );
 }
 
