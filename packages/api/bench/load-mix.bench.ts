@@ -279,8 +279,8 @@ export async function benchLoadMix(): Promise<void> {
           return {
             kind: KINDS[kind],
             share: `${((s.times.length / Math.max(1, mix.requests.total)) * 100).toFixed(0)}%`,
-            'p50 ms': percentile(sorted, 50),
-            'p99 ms': percentile(sorted, 99),
+            'p50 ms': Math.round(percentile(sorted, 50)),
+            'p99 ms': Math.round(percentile(sorted, 99)),
             'non-2xx': s.failed,
           };
         }),
@@ -327,9 +327,11 @@ export async function benchLoadMix(): Promise<void> {
         ...[...byKind].map(([kind, s]) => ({
           area: 'load',
           measure: `${KINDS[kind]} p99`,
-          value: `${percentile(
-            [...s.times].sort((a, b) => a - b),
-            99,
+          value: `${Math.round(
+            percentile(
+              [...s.times].sort((a, b) => a - b),
+              99,
+            ),
           )} ms`,
         })),
       ]);
