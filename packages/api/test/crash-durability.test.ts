@@ -27,7 +27,13 @@ class HttpClient {
       headers['content-type'] = 'application/json';
       payload = JSON.stringify(body);
     }
-    const res = await fetch(this.base + url, { method, headers, body: payload });
+    // Bounded, so a request caught by the kill can never wait on a reused port.
+    const res = await fetch(this.base + url, {
+      method,
+      headers,
+      body: payload,
+      signal: AbortSignal.timeout(60_000),
+    });
     const set = res.headers.getSetCookie().find((c) => c.startsWith('workback.sid='));
     if (set) this.cookie = set.split(';')[0]!;
     return res;
