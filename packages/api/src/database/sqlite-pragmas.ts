@@ -32,9 +32,9 @@ function exec(connection: RawConnection, sql: string): Promise<void> {
 export async function applyPragmas(connection: RawConnection): Promise<void> {
   if (prepared.has(connection)) return;
   // One statement at a time per connection. In node-sqlite3's default parallel mode every
-  // queued statement takes a libuv worker thread and waits there on the connection's mutex:
-  // under load the shared connection filled all four, and a transaction holding the write
-  // lock waited behind them until other writers gave up with SQLITE_BUSY.
+  // queued statement takes a libuv worker thread and waits there on the connection's mutex,
+  // so a busy shared connection can hold the workers other connections and file I/O need.
+  // (Writers waiting on each other are handled by the transaction queue, not by this.)
   connection.serialize();
   for (const pragma of CONNECTION_PRAGMAS) await exec(connection, pragma);
   prepared.add(connection);

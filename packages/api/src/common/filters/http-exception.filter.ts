@@ -144,7 +144,10 @@ function withRequestFault(body: ErrorBody, cause: unknown): ErrorBody {
   return body;
 }
 
-/** A full disk, a read-only data folder or a database held too long by others: the write was refused whole and can be retried later. */
+/**
+ * A full disk, a read-only data folder or a database held too long by another writer: the
+ * write was refused whole and can be retried later.
+ */
 function storageFault(exception: unknown): ErrorBody | undefined {
   const code = faultCode(exception);
   if (code === 'SQLITE_BUSY') {
