@@ -80,6 +80,8 @@ export type {
   FactError,
   FirstWrongStep,
   WrittenSteps,
+  WrittenStepCheck,
+  WrittenStepsReport,
   SuggestedCause,
 } from './diagnose/types.js';
 

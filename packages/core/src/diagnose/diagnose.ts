@@ -61,6 +61,7 @@ export function diagnose(
       child: childRule?.trace == null ? null : { ruleId: childRule.id, working: childRule.trace },
     },
     notes: findings.notes,
+    writtenSteps: findings.writtenSteps ?? null,
     engineVersion: ENGINE_VERSION,
   };
   return { ...partial, suggestedCause: suggestCause(partial) };

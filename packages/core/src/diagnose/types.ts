@@ -45,6 +45,47 @@ export interface WrittenSteps {
   readonly lines?: readonly string[];
 }
 
+/**
+ * One step the child wrote, beside the same step of the usual working.
+ * Partial products are labelled `'partial product 1'`, `'partial product 2'` … (ones digit of
+ * the multiplier first); long-division lines `'step 1 product'`, `'step 1 difference'` ….
+ * `{ label: 'partial product 2', work: '347 × 2, one place left', expected: '6940',
+ *    written: '6840', ok: false, finding: { ids: ['mul.no-carry'], oneOff: true, explanation: '…' } }`
+ */
+export interface WrittenStepCheck {
+  readonly label: string;
+  /** What the step works out, in plain symbols (`'347 × 6'`, `'4 × 7'`, `'30 − 28'`); `''` past the end of the working. */
+  readonly work: string;
+  /** The step in the usual working, digits only; `''` when the child wrote a step the working does not have. */
+  readonly expected: string;
+  /** The step as the child wrote it, digits only (commas and leading zeros removed); `''` when missing. */
+  readonly written: string;
+  readonly ok: boolean;
+  /**
+   * For a wrong step, what reproduces it when the step is worked on its own: the rule ids
+   * (or `['mul.fact']`), whether the child's other written steps show it was a one-off
+   * (`oneOff: true`: the same thing was done right elsewhere) and plain words for a parent.
+   * Null for a right step or when nothing reproduces it.
+   */
+  readonly finding: {
+    readonly ids: readonly string[];
+    readonly oneOff: boolean;
+    readonly explanation: string;
+  } | null;
+}
+
+/**
+ * The child's written steps compared with the usual working, for drawing them (web panel,
+ * stored diagnosis, plan, PDF). `firstDiffers` is the index in `steps` of the first step that
+ * differs (null when all agree).
+ * `{ kind: 'partials', steps: [{ label: 'partial product 1', ok: true, … }, { label: 'partial product 2', ok: false, … }], firstDiffers: 1 }`
+ */
+export interface WrittenStepsReport {
+  readonly kind: 'partials' | 'lines';
+  readonly steps: readonly WrittenStepCheck[];
+  readonly firstDiffers: number | null;
+}
+
 /** A likely cause to offer the parent, who decides; never a verdict. */
 export interface SuggestedCause {
   readonly cause: Extract<Cause, 'step' | 'fact' | 'copying'>;
@@ -72,6 +113,12 @@ export interface Diagnosis {
   readonly suggestedCause: SuggestedCause | null;
   /** Extra remarks for the parent (e.g. a right value not in simplest form). */
   readonly notes: readonly string[];
+  /**
+   * The written steps the parent entered (`options.steps`), each beside the usual working's
+   * step, and the first that differs; null when no steps were given (or the problem has none).
+   * Hypotheses that contradict a step written right are not in `rules`.
+   */
+  readonly writtenSteps: WrittenStepsReport | null;
   readonly engineVersion: string;
 }
 
@@ -100,4 +147,6 @@ export interface Findings {
   readonly matches: readonly Candidate[];
   readonly firstWrongStep: FirstWrongStep | null;
   readonly notes: readonly string[];
+  /** The written steps compared with the usual working (multiplication and division), when given. */
+  readonly writtenSteps?: WrittenStepsReport | null;
 }
