@@ -108,6 +108,7 @@ export { patternKeysOf } from './patterns/patternKeysOf.js';
 export { factFamiliesOf } from './patterns/factFamiliesOf.js';
 export { factFamilyLabel } from './patterns/factFamilyLabel.js';
 export { factText } from './patterns/factText.js';
+export { ruleName } from './patterns/ruleName.js';
 export { isoWeekOf } from './patterns/isoWeekOf.js';
 export type { IsoWeek } from './patterns/isoWeekOf.js';
 export type {
@@ -144,6 +145,9 @@ export { lessonRanges } from './plans/lessonRanges.js';
 export { formatLessonRanges } from './plans/formatLessonRanges.js';
 export { PRACTICE_ACTIVITIES } from './plans/practiceActivities.js';
 export { suggestActivity } from './plans/suggestActivity.js';
+export { activitiesFor } from './plans/activitiesFor.js';
+export { chooseFocus, difficultyOf } from './plans/chooseFocus.js';
+export { lessonTitle } from './plans/buildReviewPlan.js';
 export { seedOf } from './plans/seedOf.js';
 export type {
   PlanMiss,
@@ -154,4 +158,7 @@ export type {
   PlanItemKind,
   PlanItemDraft,
   ReviewPlanDraft,
+  PlanLesson,
+  FocusProblem,
+  PlanSummary,
 } from './plans/types.js';

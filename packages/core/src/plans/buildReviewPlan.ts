@@ -9,10 +9,12 @@ import { RULES, ruleInfo } from '../rules/catalog.js';
 import { formatLessonRanges } from './formatLessonRanges.js';
 import { lessonRanges } from './lessonRanges.js';
 import { seedOf } from './seedOf.js';
-import { suggestActivity } from './suggestActivity.js';
+import { activitiesFor } from './activitiesFor.js';
+import { chooseFocus } from './chooseFocus.js';
 import type {
   FactFamilyDrill,
   LessonRange,
+  PracticeActivity,
   PlanItemDraft,
   PlanMiss,
   PracticeBlock,
@@ -24,6 +26,8 @@ export interface ReviewPlanOptions {
   readonly planId: number;
   /** Practice problems per rule (default 4, at most 10). */
   readonly practicePerRule?: number;
+  /** Lesson titles from the curriculum, by lesson number. */
+  readonly lessonTitles?: Readonly<Record<number, string>>;
 }
 
 /**
@@ -38,19 +42,29 @@ export function buildReviewPlan(
   misses: readonly PlanMiss[],
   options: ReviewPlanOptions,
 ): ReviewPlanDraft {
-  const ordered = byDay(misses);
   const perRule = Math.min(Math.max(options.practicePerRule ?? 4, 1), 10);
   const notes: string[] = [];
+  // An answer the engine works out as right is nothing to re-work: it stays off the plan.
+  const leftOut = byDay(misses).filter((m) => m.engineSaysRight === true);
+  for (const m of leftOut)
+    notes.push(
+      `${m.problem} answered ${m.answer} is right by the checker, so it is not on this plan; if the key says otherwise, check the key.`,
+    );
+  const ordered = byDay(misses).filter((m) => m.engineSaysRight !== true);
+  const titles = options.lessonTitles ?? {};
+  const ranges: LessonRange[] = lessonRanges(ordered.flatMap((m) => m.lessons)).map((r) => {
+    const numbers = Array.from({ length: r.to - r.from + 1 }, (_, i) => r.from + i);
+    return {
+      ...r,
+      label: r.from === r.to ? `Lesson ${r.from}` : `Lessons ${r.from}–${r.to}`,
+      lessons: numbers.map((number) => ({ number, title: titles[number] ?? null })),
+      missIds: ordered
+        .filter((m) => m.lessons.some((n) => n >= r.from && n <= r.to))
+        .map((m) => m.id),
+    };
+  });
 
-  const ranges: LessonRange[] = lessonRanges(ordered.flatMap((m) => m.lessons)).map((r) => ({
-    ...r,
-    label: r.from === r.to ? `Lesson ${r.from}` : `Lessons ${r.from}–${r.to}`,
-    missIds: ordered
-      .filter((m) => m.lessons.some((n) => n >= r.from && n <= r.to))
-      .map((m) => m.id),
-  }));
-
-  const factFamilies = drillsFor(ordered);
+  const factFamilies = drillsFor(ordered, options.planId);
 
   const byRule = new Map<string, PlanMiss[]>();
   for (const m of ordered) {
@@ -94,7 +108,7 @@ export function buildReviewPlan(
     ...ranges.map((r) => ({
       kind: 'lesson' as const,
       key: `lesson:${r.from}-${r.to}`,
-      title: `Revisit ${r.label.toLowerCase()}`,
+      title: lessonTitle(r),
       payload: r,
       missIds: r.missIds,
     })),
@@ -128,11 +142,34 @@ export function buildReviewPlan(
     items,
     covers: [...new Set(ordered.flatMap((m) => patternKeysOf(m)))].sort(),
     notes,
+    summary: {
+      lessons: ranges.map(lessonTitle),
+      facts: factFamilies.map((f) => `${f.label}: ${f.facts.join(', ')}`),
+      focus: chooseFocus(ordered),
+    },
+    leftOut: leftOut.map((m) => m.id),
   };
 }
 
-/** As few fact families as cover every wrong fact: greedily the family covering most. */
-function drillsFor(misses: readonly PlanMiss[]): FactFamilyDrill[] {
+/**
+ * A lesson range as a reader names it, with the curriculum's titles:
+ * `'Revisit lesson 12 “Subtracting across zeros”'`, `'Revisit lessons 12–13: “A”, “B”'`.
+ */
+export function lessonTitle(r: LessonRange): string {
+  const named = (r.lessons ?? []).filter((l) => l.title !== null);
+  const head = `Revisit ${r.label.toLowerCase()}`;
+  if (named.length === 0) return head;
+  if (r.from === r.to) return `${head} “${named[0]!.title}”`;
+  return `${head}: ${named.map((l) => `${l.number} “${l.title}”`).join(', ')}`;
+}
+
+/**
+ * As few fact families as cover every wrong fact: greedily the family covering most. Each
+ * drill gets an activity written for its own table, varied across the plan's drills (and
+ * from one plan to the next by its id), with the other suitable activities beside it.
+ */
+function drillsFor(misses: readonly PlanMiss[], planId: number): FactFamilyDrill[] {
+  const used = new Set<PracticeActivity['id']>();
   const facts = new Map<string, { fact: BasicFact; missIds: number[]; families: string[] }>();
   for (const m of misses) {
     for (const f of m.diagnosis?.facts ?? []) {
@@ -157,14 +194,21 @@ function drillsFor(misses: readonly PlanMiss[]): FactFamilyDrill[] {
     )[0]!;
     for (const k of keys) left.delete(k);
     const chosen = keys.map((k) => facts.get(k)!);
+    const all = activitiesFor(
+      family,
+      chosen.map((c) => c.fact),
+    );
+    // The best fit first; the plan id turns the order so the same family gets a new game next time.
+    const turned = all.map((_, i) => all[(i + planId) % Math.min(all.length, 2)] ?? all[i]!);
+    const order = [...new Set([...turned, ...all])];
+    const activity = order.find((a) => !used.has(a.id)) ?? order[0]!;
+    used.add(activity.id);
     drills.push({
       family,
       label: factFamilyLabel(family),
       facts: chosen.map((c) => factText(c.fact)),
-      activity: suggestActivity(
-        family,
-        chosen.map((c) => c.fact),
-      ),
+      activity,
+      alternatives: all.filter((a) => a.id !== activity.id),
       missIds: [...new Set(chosen.flatMap((c) => c.missIds))].sort((a, b) => a - b),
     });
   }

@@ -8,6 +8,9 @@ import { formatLessonRanges } from './formatLessonRanges.js';
 import { lessonRanges } from './lessonRanges.js';
 import { seedOf } from './seedOf.js';
 import { suggestActivity } from './suggestActivity.js';
+import { activitiesFor } from './activitiesFor.js';
+import { chooseFocus } from './chooseFocus.js';
+import { ruleName } from '../patterns/ruleName.js';
 
 describe('lessonRanges', () => {
   it('dedupes, orders and merges runs', () => {
@@ -47,6 +50,38 @@ describe('suggestActivity', () => {
   });
 });
 
+describe('activitiesFor', () => {
+  it('speaks of the family’s own table: the 8s count 8, 16, 24 and stop on an 8s fact', () => {
+    const eights = activitiesFor('x8', [{ op: 'x', a: 7, b: 8 }]);
+    const skip = eights.find((a) => a.id === 'skip-counting')!;
+    expect(skip.how).toContain('Count up the 8s out loud together (8, 16, 24, …)');
+    expect(skip.how).toContain('56 is 7 × 8');
+    expect(skip.how).not.toMatch(/\b7, 14\b|42 is 6 × 7/);
+    for (const a of eights) expect(a.how).toMatch(/8/);
+    expect(eights.map((a) => a.id)).toEqual([
+      'skip-counting',
+      'draw-rows',
+      'flash-cards',
+      'timer-game',
+    ]);
+  });
+  it('hops through ten with one of the family’s own facts', () => {
+    const plus = activitiesFor('+8', [{ op: '+', a: 8, b: 7 }]);
+    expect(plus[0]!.id).toBe('through-ten');
+    // 8 + 7: 8 + 2 makes 10, then 10 + 5 makes 15 (common practice, no source).
+    expect(plus[0]!.how).toContain('8 + 2 makes 10, then 10 + 5 makes 15');
+    expect(plus.map((a) => a.id)).toContain('near-doubles');
+  });
+});
+
+describe('ruleName', () => {
+  it('adds the operation where two rules share a title', () => {
+    expect(ruleName('add.no-carry')).toBe('Carry dropped (addition)');
+    expect(ruleName('mul.no-carry')).toBe('Carry dropped (multiplication)');
+    expect(ruleName('sub.borrow-across-zero')).toBe('Zeros skipped when regrouping');
+  });
+});
+
 describe('buildReviewPlan', () => {
   const misses = [
     missOf('2026-03-02', '304 - 75', '139', { id: 1, lessons: [12, 13] }),
@@ -60,17 +95,75 @@ describe('buildReviewPlan', () => {
   it('merges the lessons to revisit into ordered ranges, each with its misses', () => {
     expect(plan.lessons.text).toBe('12–14, 20');
     expect(plan.lessons.ranges).toEqual([
-      { from: 12, to: 14, label: 'Lessons 12–14', missIds: [1, 2, 3] },
-      { from: 20, to: 20, label: 'Lesson 20', missIds: [2] },
+      {
+        from: 12,
+        to: 14,
+        label: 'Lessons 12–14',
+        lessons: [12, 13, 14].map((number) => ({ number, title: null })),
+        missIds: [1, 2, 3],
+      },
+      {
+        from: 20,
+        to: 20,
+        label: 'Lesson 20',
+        lessons: [{ number: 20, title: null }],
+        missIds: [2],
+      },
     ]);
   });
 
   it('drills as few fact families as cover the wrong facts, each with an activity', () => {
     // 7 × 8 and 6 × 7 share the sevens; 8 + 7 is in +7 and +8 (the larger is chosen).
     expect(plan.factFamilies.map((f) => [f.family, f.facts, f.activity.id, f.missIds])).toEqual([
-      ['x7', ['7 × 8', '6 × 7'], 'skip-counting', [3, 4]],
-      ['+8', ['8 + 7'], 'through-ten', [5]],
+      ['x7', ['7 × 8', '6 × 7'], 'draw-rows', [3, 4]],
+      ['+8', ['8 + 7'], 'near-doubles', [5]],
     ]);
+    expect(plan.factFamilies[0]!.activity.how).toContain('8 rows of 7 dots');
+    expect(plan.factFamilies[1]!.activity.how).toContain('7 + 7 is 14, and one more makes 15');
+    expect(plan.factFamilies[0]!.alternatives!.map((a) => a.id)).toContain('skip-counting');
+  });
+
+  it('varies the drills: two tables on one plan get different activities, and the next plan another', () => {
+    const two = [
+      missOf('2026-03-04', '7 x 8', '54', { id: 3 }),
+      missOf('2026-03-05', '6 x 9', '56', { id: 4 }),
+    ];
+    const p1 = buildReviewPlan(two, { planId: 2 });
+    expect(new Set(p1.factFamilies.map((f) => f.activity.id)).size).toBe(2);
+    const p2 = buildReviewPlan(two, { planId: 3 });
+    expect(p2.factFamilies[0]!.activity.id).not.toBe(p1.factFamilies[0]!.activity.id);
+  });
+
+  it('never asks to re-work an answer the engine finds right', () => {
+    const right = { ...missOf('2026-03-07', '304 - 75', '229', { id: 9 }), engineSaysRight: true };
+    const withRight = buildReviewPlan([...misses, right], { planId: 7 });
+    expect(withRight.items.map((i) => i.key)).not.toContain('miss:9');
+    expect(withRight.items.flatMap((i) => i.missIds)).not.toContain(9);
+    expect(withRight.leftOut).toEqual([9]);
+    expect(withRight.notes[0]).toMatch(/304 − 75 answered 229 is right by the checker/);
+  });
+
+  it('names lessons by their curriculum titles, merging only lessons that were asked for', () => {
+    const titled = buildReviewPlan(
+      [
+        missOf('2026-03-02', '304 - 75', '139', { id: 1, lessons: [12, 13] }),
+        missOf('2026-03-03', '605 - 48', '467', { id: 2, lessons: [15] }),
+      ],
+      {
+        planId: 7,
+        lessonTitles: {
+          12: 'Taking away with zeros',
+          13: 'Regrouping twice',
+          14: 'Not asked',
+          15: 'Checking',
+        },
+      },
+    );
+    expect(titled.items.filter((i) => i.kind === 'lesson').map((i) => i.title)).toEqual([
+      'Revisit lessons 12–13: 12 “Taking away with zeros”, 13 “Regrouping twice”',
+      'Revisit lesson 15 “Checking”',
+    ]);
+    expect(titled.summary.lessons).toHaveLength(2);
   });
 
   it('makes fresh practice on which each systematic rule gives a wrong answer', () => {
@@ -121,6 +214,27 @@ describe('buildReviewPlan', () => {
       expect.arrayContaining(['rule:sub.borrow-across-zero', 'fact:x7', 'fact:x6', 'fact:+8']),
     );
     expect(plan.notes).toEqual([]);
+  });
+
+  it('puts the problems most worth re-working first, by recurrence', () => {
+    const many = [
+      missOf('2026-03-02', '304 - 75', '139', { id: 1 }),
+      missOf('2026-03-03', '605 - 48', '467', { id: 2 }),
+      missOf('2026-03-04', '1300 - 522', '878', { id: 3 }),
+      missOf('2026-03-05', '7 x 8', '54', { id: 4 }),
+      missOf('2026-03-06', '58 + 67', '115', { id: 5 }),
+      missOf('2026-03-07', '700 - 24', '776', { id: 6 }),
+    ];
+    const focus = chooseFocus(many);
+    // Four misses share regrouping across zeros; the latest of them leads.
+    expect(focus[0]).toMatchObject({ missId: 6, recurs: 4 });
+    expect(focus[0]!.reason).toBe(
+      'The same difficulty as 3 other problems on this plan: regrouping across zeros.',
+    );
+    expect(focus.length).toBeGreaterThanOrEqual(3);
+    expect(focus.length).toBeLessThanOrEqual(5);
+    expect(new Set(focus.map((f) => f.missId)).size).toBe(focus.length);
+    expect(buildReviewPlan(many, { planId: 1 }).summary.focus).toEqual(focus);
   });
 
   it('makes an empty plan from no misses', () => {

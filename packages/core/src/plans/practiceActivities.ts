@@ -2,7 +2,8 @@ import type { PracticeActivity } from './types.js';
 
 /**
  * Workback's short list of generic practice activities for basic facts, in our own words.
- * `PRACTICE_ACTIVITIES['skip-counting'].title` → `'Skip-count and stop'`.
+ * The `how` here is the general version; `activitiesFor` writes it for one family's own
+ * numbers. `PRACTICE_ACTIVITIES['skip-counting'].title` → `'Skip-count and stop'`.
  */
 export const PRACTICE_ACTIVITIES: Readonly<Record<PracticeActivity['id'], PracticeActivity>> = {
   'flash-cards': {
@@ -18,11 +19,21 @@ export const PRACTICE_ACTIVITIES: Readonly<Record<PracticeActivity['id'], Practi
   'skip-counting': {
     id: 'skip-counting',
     title: 'Skip-count and stop',
-    how: 'Count up the table out loud together (7, 14, 21, …), clapping on each number. Then stop on a number and ask which fact it is: 42 is 6 × 7. Next time, start the count somewhere in the middle.',
+    how: 'Count up the table out loud together, clapping on each number. Then stop on a number and ask which fact it is. Next time, start the count somewhere in the middle.',
   },
   'through-ten': {
     id: 'through-ten',
     title: 'Hop through ten',
-    how: 'Work the fact in two hops with ten as the stepping stone: 8 + 6 is 8 + 2, then 10 + 4. Show the hops with two rows of ten counters, then say the fact without them.',
+    how: 'Work the fact in two hops with ten as the stepping stone. Show the hops with two rows of ten counters, then say the fact without them.',
+  },
+  'draw-rows': {
+    id: 'draw-rows',
+    title: 'Rows of dots',
+    how: 'Draw the fact as rows of dots, count them by rows, then turn the paper sideways: the same dots show the turnaround fact.',
+  },
+  'near-doubles': {
+    id: 'near-doubles',
+    title: 'Doubles and one more',
+    how: 'Start from a double the child knows, then add or take one.',
   },
 };
