@@ -76,6 +76,14 @@ export class Miss extends Model {
   @Column({ type: DataType.STRING(16), allowNull: true })
   declare suggestedCause: Cause | null;
 
+  /** The client's Idempotency-Key, unique per household (migration 0008). */
+  @Column({ type: DataType.STRING(100), allowNull: true })
+  declare idempotencyKey: string | null;
+
+  /** SHA-256 of the fields and photos sent with that key, to refuse the key reused for other content. */
+  @Column({ type: DataType.STRING(64), allowNull: true })
+  declare requestDigest: string | null;
+
   @ForeignKey(() => User)
   @Column({ type: DataType.INTEGER, allowNull: true })
   declare createdBy: number | null;
