@@ -94,6 +94,18 @@ export type { CheckResult, ResidueWorking } from './checks/types.js';
 export { practiceFor } from './practice/practiceFor.js';
 export type { PracticeProblem, PracticeSet } from './practice/practiceFor.js';
 
+// Check-ups: a few problems that tell the possible explanations apart
+export { planCheckUp } from './checkup/planCheckUp.js';
+export { readCheckUp } from './checkup/readCheckUp.js';
+export { RIGHT_WORKING } from './checkup/types.js';
+export type {
+  CheckUpPlan,
+  CheckUpProblem,
+  CheckUpReading,
+  HypothesisScore,
+  MergedCandidate,
+} from './checkup/types.js';
+
 // Patterns across a student's misses
 export { computePatterns } from './patterns/computePatterns.js';
 export { causeMixByWeek } from './patterns/causeMixByWeek.js';

@@ -100,3 +100,50 @@ describe('the workback CLI', () => {
     expect(out).toContain('workback diagnose');
   });
 });
+
+describe('workback checkup', () => {
+  it('--json lists each problem with the answer of every working (issue 17)', () => {
+    const { code, out, err } = run(
+      'checkup',
+      'sub.borrow-across-zero',
+      'sub.borrow-from-zero',
+      '--digits',
+      '4',
+      '--seed',
+      '3',
+      '--json',
+    );
+    expect(err).toBe('');
+    expect(code).toBe(0);
+    const sheet = JSON.parse(out) as {
+      problems: { problem: string; answers: Record<string, string> }[];
+    };
+    expect(sheet.problems.length).toBeGreaterThanOrEqual(4);
+    expect(sheet.problems.length).toBeLessThanOrEqual(6);
+    for (const p of sheet.problems) {
+      expect(Object.keys(p.answers).sort()).toEqual(
+        ['correct', 'sub.borrow-across-zero', 'sub.borrow-from-zero'].sort(),
+      );
+      // Right answers by plain arithmetic (common practice, no source).
+      const [top, bottom] = p.problem.split(' − ').map((n) => BigInt(n));
+      expect(p.answers.correct).toBe(String((top as bigint) - (bottom as bigint)));
+    }
+  });
+
+  it('prints a readable sheet with the parent’s answers by default', () => {
+    const { code, out } = run('checkup', 'add.no-carry');
+    expect(code).toBe(0);
+    expect(out).toContain('usual working:');
+    expect(out).toContain('add.no-carry:');
+  });
+
+  it('exits 2 naming what it could not use', () => {
+    expect(run('checkup').code).toBe(2);
+    const unknown = run('checkup', 'add.sideways');
+    expect(unknown.code).toBe(2);
+    expect(unknown.err).toContain('“add.sideways” is not a rule');
+    expect(run('checkup', 'add.no-carry', '--digits', 'four').err).toContain(
+      '--digits needs a whole number',
+    );
+  });
+});

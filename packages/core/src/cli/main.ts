@@ -5,6 +5,7 @@ import { diagnose } from '../diagnose/diagnose.js';
 import type { Diagnosis, WrittenSteps } from '../diagnose/types.js';
 import { parseAnswer } from '../parse/parseAnswer.js';
 import { parseProblem } from '../parse/parseProblem.js';
+import { planCheckUp } from '../checkup/planCheckUp.js';
 import { practiceFor } from '../practice/practiceFor.js';
 import { formatTrace } from './formatTrace.js';
 
@@ -19,6 +20,7 @@ Usage:
   workback diagnose "<problem>" "<answer>" [--steps JSON] [--json]
   workback nines "<problem>" "<answer>" [--json]
   workback practice <ruleId> [--count N] [--digits N] [--seed N] [--json]
+  workback checkup <ruleId> [<ruleId> …] [--digits N] [--seed N] [--json]
   workback --help
 
 Examples:
@@ -26,8 +28,9 @@ Examples:
   workback diagnose "34 x 12" "418" --steps '{"partials":["68","340"]}'
   workback nines "347 + 589" "936" --json
   workback practice sub.borrow-across-zero --count 5 --digits 4
+  workback checkup sub.borrow-across-zero sub.borrow-from-zero --digits 4
 
-Exit status: 0 when a diagnosis (or check, or practice set) was produced, 2 when the
+Exit status: 0 when a diagnosis (or check, practice set or check-up) was produced, 2 when the
 problem, the answer or the command could not be read.
 `;
 
@@ -126,26 +129,13 @@ export function main(argv: readonly string[], out: Output, err: Output): number 
     return 0;
   }
 
-  if (command === 'practice') {
+  if (command === 'practice' || command === 'checkup') {
+    const numbers = wholeNumberFlags(args.flags);
+    if (typeof numbers === 'string') return fail(numbers);
+    if (command === 'checkup') return checkUp(rest, numbers, json, out, fail);
     if (rest.length !== 1)
       return fail('practice needs one rule id, e.g. workback practice sub.borrow-across-zero.');
-    const numbers: Record<string, number> = {};
-    for (const [flag, key, fallback] of [
-      ['--count', 'count', 5],
-      ['--digits', 'digits', 3],
-      ['--seed', 'seed', 1],
-    ] as const) {
-      const value = args.flags.get(flag);
-      if (value === undefined) numbers[key] = fallback;
-      else if (typeof value !== 'string' || !/^\d+$/.test(value))
-        return fail(`${flag} needs a whole number.`);
-      else numbers[key] = Number(value);
-    }
-    const set = practiceFor(rest[0] as string, {
-      count: numbers.count as number,
-      digits: numbers.digits as number,
-      seed: numbers.seed as number,
-    });
+    const set = practiceFor(rest[0] as string, numbers);
     if (!set.ok) return fail(set.error.message);
     out.write(
       json
@@ -162,6 +152,52 @@ export function main(argv: readonly string[], out: Output, err: Output): number 
     return 0;
   }
   return fail(`unknown command “${command}”; try workback --help.`);
+}
+
+/** `--count`, `--digits` and `--seed` as whole numbers, with their defaults; a message when one is not. */
+function wholeNumberFlags(
+  flags: Map<string, string | true>,
+): { count: number; digits: number; seed: number } | string {
+  const numbers = { count: 5, digits: 3, seed: 1 };
+  for (const key of ['count', 'digits', 'seed'] as const) {
+    const value = flags.get(`--${key}`);
+    if (value === undefined) continue;
+    if (typeof value !== 'string' || !/^\d{1,9}$/.test(value))
+      return `--${key} needs a whole number.`;
+    numbers[key] = Number(value);
+  }
+  return numbers;
+}
+
+function checkUp(
+  ruleIds: readonly string[],
+  numbers: { digits: number; seed: number },
+  json: boolean,
+  out: Output,
+  fail: (message: string) => number,
+): number {
+  if (ruleIds.length === 0)
+    return fail(
+      'checkup needs one or more rule ids, e.g. workback checkup sub.borrow-across-zero sub.borrow-from-zero.',
+    );
+  const plan = planCheckUp(ruleIds, { digits: numbers.digits, seed: numbers.seed });
+  if (!plan.ok) return fail(plan.error.message);
+  if (json) {
+    out.write(
+      `${JSON.stringify({ problems: plan.problems, hypotheses: plan.hypotheses, merged: plan.merged }, null, 2)}\n`,
+    );
+    return 0;
+  }
+  const lines = [`Check-up for ${plan.hypotheses.slice(1).join(', ')} (and the usual working):`];
+  plan.problems.forEach((p, i) => {
+    lines.push(`${i + 1}. ${p.problem}`);
+    for (const h of plan.hypotheses)
+      lines.push(`     ${h === 'correct' ? 'usual working' : h}: ${p.answers[h]}`);
+  });
+  for (const m of plan.merged) lines.push(`Note: ${m.id} — ${m.reason}`);
+  lines.push('', 'The answers are an aid to your judgement, not a grade.', '');
+  out.write(lines.join('\n'));
+  return 0;
 }
 
 function describeCheck(title: string, check: CheckResult): string[] {
