@@ -2,17 +2,21 @@ import { randomUUID } from 'node:crypto';
 import { Module } from '@nestjs/common';
 import { ConfigModule, ConfigService } from '@nestjs/config';
 import { APP_FILTER, APP_GUARD } from '@nestjs/core';
+import { getConnectionToken } from '@nestjs/sequelize';
 import { ThrottlerModule } from '@nestjs/throttler';
 import type { Request } from 'express';
+import type { Sequelize } from 'sequelize-typescript';
 import { LoggerModule } from 'nestjs-pino';
 import { AnswerKeysModule } from './answer-keys/answer-keys.module.js';
 import { AuthModule } from './auth/auth.module.js';
+import { CheckUpsModule } from './check-ups/check-ups.module.js';
 import { HttpExceptionFilter } from './common/filters/http-exception.filter.js';
 import { AccessGuard } from './common/guards/access.guard.js';
 import { CsrfGuard } from './common/guards/csrf.guard.js';
 import { appConfig, type AppConfig } from './config/app.config.js';
 import { CurriculumModule } from './curriculum/curriculum.module.js';
 import { DatabaseModule } from './database/database.module.js';
+import { PostgresThrottlerStorage } from './database/postgres-throttler-storage.js';
 import { DiagnoseModule } from './diagnose/diagnose.module.js';
 import { HealthModule } from './health/health.module.js';
 import { HouseholdDataModule } from './household-data/household-data.module.js';
@@ -59,10 +63,13 @@ const emailOf = (req: Request) =>
       }),
     }),
     ThrottlerModule.forRootAsync({
-      inject: [ConfigService],
-      useFactory: (config: ConfigService) => {
-        const limit = config.getOrThrow<AppConfig>('app').signInLimitPerMinute;
+      inject: [ConfigService, getConnectionToken()],
+      useFactory: (config: ConfigService, sequelize: Sequelize) => {
+        const app = config.getOrThrow<AppConfig>('app');
+        const limit = app.signInLimitPerMinute;
         return {
+          // Every process counts in PostgreSQL when it is shared; one process counts in memory.
+          storage: app.databaseUrl ? new PostgresThrottlerStorage(sequelize) : undefined,
           errorMessage: 'Too many tries: please wait a minute and try again',
           throttlers: [
             {
@@ -88,6 +95,7 @@ const emailOf = (req: Request) =>
     CurriculumModule,
     AnswerKeysModule,
     SittingsModule,
+    CheckUpsModule,
     NotesModule,
     MailModule,
     InvitationsModule,

@@ -29,6 +29,18 @@ export interface AppConfig {
     secure: boolean;
   };
   mail: { smtpUrl: string | undefined; from: string };
+  /** Set: PostgreSQL holds the data, the sessions and the limits (shared by every process). */
+  databaseUrl: string | undefined;
+  /** Set: photos live in this S3-compatible bucket instead of `photosDir`. */
+  s3: S3Settings | undefined;
+}
+
+export interface S3Settings {
+  endpoint: string;
+  bucket: string;
+  region: string;
+  accessKeyId: string;
+  secretAccessKey: string;
 }
 
 const defaultWebDist = fileURLToPath(new URL('../../../web/dist', import.meta.url));
@@ -64,5 +76,15 @@ export const appConfig = registerAs('app', (): AppConfig => {
       secure: env.NODE_ENV === 'production' && env.TRUST_PROXY,
     },
     mail: { smtpUrl: env.SMTP_URL, from: env.MAIL_FROM },
+    databaseUrl: env.DATABASE_URL,
+    s3: env.S3_ENDPOINT
+      ? {
+          endpoint: env.S3_ENDPOINT,
+          bucket: env.S3_BUCKET!,
+          region: env.S3_REGION,
+          accessKeyId: env.S3_ACCESS_KEY_ID!,
+          secretAccessKey: env.S3_SECRET_ACCESS_KEY!,
+        }
+      : undefined,
   };
 });

@@ -13,16 +13,28 @@ import { MODELS } from './models.js';
       inject: [ConfigService],
       useFactory: (config: ConfigService) => {
         const app = config.getOrThrow<AppConfig>('app');
-        return {
-          dialect: 'sqlite' as const,
-          storage: app.databaseFile,
+        const common = {
           models: MODELS,
           logging: false,
+          retryAttempts: 0,
+          define: { underscored: true },
+        };
+        if (app.databaseUrl) {
+          // Several processes share the server: each keeps a small pool of connections.
+          return {
+            ...common,
+            dialect: 'postgres' as const,
+            uri: app.databaseUrl,
+            pool: { max: 10, min: 0, idle: 10_000 },
+          };
+        }
+        return {
+          ...common,
+          dialect: 'sqlite' as const,
+          storage: app.databaseFile,
           // IMMEDIATE takes the write lock up front, so two writers wait on
           // busy_timeout instead of failing on a read-to-write upgrade.
           transactionType: Transaction.TYPES.IMMEDIATE,
-          retryAttempts: 0,
-          define: { underscored: true },
         };
       },
     }),

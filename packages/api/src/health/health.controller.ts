@@ -22,7 +22,7 @@ export class HealthController {
   @Public()
   @Get()
   async check() {
-    await this.database.pragma('schema_version');
+    await this.database.ping();
     return { status: 'ok', demo: this.demo, version: API_VERSION };
   }
 }

@@ -1,10 +1,11 @@
 import { Module } from '@nestjs/common';
 import { HouseholdsModule } from '../households/households.module.js';
+import { StorageModule } from '../storage/storage.module.js';
 import { HouseholdDataController } from './household-data.controller.js';
 import { HouseholdDataService } from './household-data.service.js';
 
 @Module({
-  imports: [HouseholdsModule],
+  imports: [HouseholdsModule, StorageModule],
   controllers: [HouseholdDataController],
   providers: [HouseholdDataService],
 })

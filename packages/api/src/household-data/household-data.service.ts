@@ -1,7 +1,7 @@
 import { existsSync } from 'node:fs';
 import { readdir, rm, stat } from 'node:fs/promises';
 import path from 'node:path';
-import { Injectable, Logger } from '@nestjs/common';
+import { Inject, Injectable, Logger } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
 import { InjectConnection } from '@nestjs/sequelize';
 import { QueryTypes, type Transaction } from 'sequelize';
@@ -12,6 +12,8 @@ import { fieldsError } from '../common/pipes/validation.pipe.js';
 import type { AppConfig } from '../config/app.config.js';
 import { HouseholdsService } from '../households/households.service.js';
 import { SessionStoreService } from '../sessions/session-store.service.js';
+import { LocalPhotoStorage } from '../storage/local-photo-storage.js';
+import { isPhotoKey, PHOTO_STORAGE, type PhotoStorage } from '../storage/photo-storage.js';
 import {
   deletionOrder,
   type HouseholdTable,
@@ -32,6 +34,8 @@ export interface HouseholdSnapshot {
   tables: Map<string, Row[]>;
   /** Absolute path → path inside the archive. */
   files: Map<string, string>;
+  /** Photo storage key → path inside the archive, for storage that is not a local folder. */
+  objects: Map<string, string>;
 }
 
 export interface DeletionSummary {
@@ -53,6 +57,7 @@ export class HouseholdDataService {
     @InjectConnection() private readonly sequelize: Sequelize,
     private readonly households: HouseholdsService,
     private readonly sessions: SessionStoreService,
+    @Inject(PHOTO_STORAGE) private readonly storage: PhotoStorage,
     config: ConfigService,
   ) {
     const app = config.getOrThrow<AppConfig>('app');
@@ -67,7 +72,7 @@ export class HouseholdDataService {
       const tables = new Map<string, Row[]>();
       for (const table of await this.householdTables(transaction)) {
         const rows = await this.select<Row>(
-          `SELECT * FROM ${q(table.name)} WHERE ${table.where} ORDER BY rowid`,
+          `SELECT * FROM ${q(table.name)} WHERE ${table.where} ORDER BY ${this.rowOrder(table)}`,
           member.householdId,
           transaction,
         );
@@ -81,8 +86,10 @@ export class HouseholdDataService {
           transaction,
         ),
       );
-      const files = await this.filesOf(member.householdId, tables);
-      return { household: { id: household.id, name: household.name }, tables, files };
+      const local = this.storage instanceof LocalPhotoStorage;
+      const files = local ? await this.filesOf(member.householdId, tables) : new Map();
+      const objects = local ? new Map() : objectsOf(tables);
+      return { household: { id: household.id, name: household.name }, tables, files, objects };
     });
   }
 
@@ -97,7 +104,7 @@ export class HouseholdDataService {
       exportedAt: new Date().toISOString(),
       household: snap.household,
       tables: counts,
-      files: snap.files.size,
+      files: snap.files.size + snap.objects.size,
       notes: [
         'One JSON file per table under tables/, with this household’s rows only; column names as stored.',
         'users.json lists the members’ accounts (no passwords). Password hashes and link tokens are left out.',
@@ -109,6 +116,7 @@ export class HouseholdDataService {
       zip.addBuffer(Buffer.from(JSON.stringify(rows, null, 2)), `tables/${name}.json`);
     }
     for (const [file, inside] of snap.files) zip.addFile(file, inside);
+    for (const [key, inside] of snap.objects) zip.addBuffer(await this.storage.read(key), inside);
     zip.end();
     return zip;
   }
@@ -169,6 +177,16 @@ export class HouseholdDataService {
         );
       }
     }
+    for (const key of snap.objects.keys()) {
+      try {
+        await this.storage.remove(key);
+        files++;
+      } catch (err) {
+        this.logger.error(
+          `A deleted household's photo could not be removed (${(err as Error).name})`,
+        );
+      }
+    }
     await rm(path.join(this.photosDir, String(member.householdId)), {
       recursive: true,
       force: true,
@@ -182,7 +200,17 @@ export class HouseholdDataService {
     };
   }
 
+  /** SQLite keeps insertion order in rowid; PostgreSQL has none, so rows follow their key. */
+  private rowOrder(table: HouseholdTable): string {
+    if (this.sequelize.getDialect() === 'sqlite') return 'rowid';
+    const keys = this.primaryKeys.get(table.name);
+    return (keys?.length ? keys : table.columns.slice(0, 1)).map(q).join(', ');
+  }
+
+  private readonly primaryKeys = new Map<string, string[]>();
+
   private async householdTables(transaction: Transaction): Promise<HouseholdTable[]> {
+    if (this.sequelize.getDialect() === 'postgres') return this.postgresTables(transaction);
     const names = await this.sequelize.query<{ name: string }>(
       "SELECT name FROM sqlite_master WHERE type = 'table' AND name NOT LIKE 'sqlite_%' ORDER BY name",
       { type: QueryTypes.SELECT, transaction },
@@ -210,6 +238,64 @@ export class HouseholdDataService {
       });
     }
     return householdTables(infos);
+  }
+
+  /** The same table facts as the SQLite pragmas give, from PostgreSQL's information schema. */
+  private async postgresTables(transaction: Transaction): Promise<HouseholdTable[]> {
+    const columns = await this.sequelize.query<{ table: string; column: string; notnull: boolean }>(
+      `SELECT table_name AS "table", column_name AS "column", is_nullable = 'NO' AS notnull
+         FROM information_schema.columns
+        WHERE table_schema = current_schema()
+          AND table_name IN (SELECT table_name FROM information_schema.tables
+                              WHERE table_schema = current_schema() AND table_type = 'BASE TABLE')
+        ORDER BY table_name, ordinal_position`,
+      { type: QueryTypes.SELECT, transaction },
+    );
+    const constraints = await this.sequelize.query<{
+      table: string;
+      kind: string;
+      column: string;
+      ref_table: string | null;
+      ref_column: string | null;
+    }>(
+      `SELECT k.table_name AS "table", c.constraint_type AS kind, k.column_name AS "column",
+              r.table_name AS ref_table, r.column_name AS ref_column
+         FROM information_schema.table_constraints c
+         JOIN information_schema.key_column_usage k
+           ON k.constraint_schema = c.constraint_schema AND k.constraint_name = c.constraint_name
+         LEFT JOIN information_schema.referential_constraints rc
+           ON rc.constraint_schema = c.constraint_schema AND rc.constraint_name = c.constraint_name
+         LEFT JOIN information_schema.key_column_usage r
+           ON r.constraint_schema = rc.unique_constraint_schema
+          AND r.constraint_name = rc.unique_constraint_name
+          AND r.ordinal_position = k.position_in_unique_constraint
+        WHERE c.table_schema = current_schema()
+          AND c.constraint_type IN ('PRIMARY KEY', 'FOREIGN KEY')
+        ORDER BY k.table_name, k.ordinal_position`,
+      { type: QueryTypes.SELECT, transaction },
+    );
+    const infos = new Map<string, TableInfo>();
+    const notNull = new Map<string, boolean>();
+    for (const c of columns) {
+      const info = infos.get(c.table) ?? { name: c.table, columns: [], foreignKeys: [] };
+      info.columns.push(c.column);
+      infos.set(c.table, info);
+      notNull.set(`${c.table}.${c.column}`, c.notnull);
+    }
+    this.primaryKeys.clear();
+    for (const k of constraints) {
+      if (k.kind === 'PRIMARY KEY') {
+        this.primaryKeys.set(k.table, [...(this.primaryKeys.get(k.table) ?? []), k.column]);
+      } else if (k.ref_table) {
+        infos.get(k.table)?.foreignKeys.push({
+          column: k.column,
+          table: k.ref_table,
+          to: k.ref_column ?? 'id',
+          notNull: notNull.get(`${k.table}.${k.column}`) ?? false,
+        });
+      }
+    }
+    return householdTables([...infos.values()].sort((a, b) => (a.name < b.name ? -1 : 1)));
   }
 
   private select<T extends object>(sql: string, householdId: number, transaction: Transaction) {
@@ -248,6 +334,21 @@ export class HouseholdDataService {
     }
     return files;
   }
+}
+
+/** Photo keys named by the household's rows, each under photos/ in the archive. */
+function objectsOf(tables: Map<string, Row[]>): Map<string, string> {
+  const objects = new Map<string, string>();
+  for (const rows of tables.values()) {
+    for (const row of rows) {
+      for (const [column, value] of Object.entries(row)) {
+        if (typeof value === 'string' && FILE_COLUMNS.test(column) && isPhotoKey(value)) {
+          objects.set(value, `photos/${value}`);
+        }
+      }
+    }
+  }
+  return objects;
 }
 
 function withoutSecrets(row: Row): Row {

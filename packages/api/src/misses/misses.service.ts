@@ -464,15 +464,20 @@ export class MissesService {
         },
       });
     }
+    const postgres = this.sequelize.getDialect() === 'postgres';
     if (q.skill) {
+      // `skills` is a JSON array in a text column on both databases.
+      const elements = postgres
+        ? `jsonb_array_elements_text("Miss"."skills"::jsonb) AS skill(value)`
+        : `json_each("Miss"."skills") AS skill`;
       and.push(
         literal(
-          `EXISTS (SELECT 1 FROM json_each("Miss"."skills") WHERE json_each.value = ${esc(q.skill)})`,
+          `EXISTS (SELECT 1 FROM ${elements} WHERE skill.value = ${esc(q.skill)})`,
         ) as unknown as WhereOptions<Miss>,
       );
     }
     const text = q.q?.trim();
-    if (text) and.push(textCondition(text, esc));
+    if (text) and.push(postgres ? likeCondition('ILIKE', text, esc) : textCondition(text, esc));
     return { [Op.and]: and };
   }
 }
@@ -492,9 +497,21 @@ function textCondition(text: string, esc: (v: string) => string): WhereOptions<M
       },
     };
   }
-  const pattern = `%${text.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+  return likeCondition('LIKE', text, esc);
+}
+
+/**
+ * Problem or explanation containing `text` by (I)LIKE: SQLite's LIKE ignores ASCII case, and on
+ * PostgreSQL ILIKE uses the pg_trgm indexes of migration 0006 from three characters on.
+ */
+function likeCondition(
+  operator: 'LIKE' | 'ILIKE',
+  text: string,
+  esc: (v: string) => string,
+): WhereOptions<Miss> {
+  const pattern = esc(`%${text.replace(/[\\%_]/g, (c) => `\\${c}`)}%`);
   return literal(
-    `("Miss"."problem" LIKE ${esc(pattern)} ESCAPE '\\' OR "Miss"."explanation" LIKE ${esc(pattern)} ESCAPE '\\')`,
+    `("Miss"."problem" ${operator} ${pattern} ESCAPE '\\' OR "Miss"."explanation" ${operator} ${pattern} ESCAPE '\\')`,
   ) as unknown as WhereOptions<Miss>;
 }
 

@@ -6,6 +6,7 @@ import request from 'supertest';
 import { inject } from 'vitest';
 import type TestAgent from 'supertest/lib/agent.js';
 import { createApp } from '../../src/app.factory.js';
+import { createDatabase, databaseUrl, dropDatabase, newDatabaseName } from './pg.js';
 
 export const DEMO_PASSWORD = 'workback-demo';
 export const DEMO = {
@@ -22,18 +23,33 @@ export interface TestApp {
   close: () => Promise<void>;
 }
 
-/** The real app on a fresh temporary DATA_DIR (real SQLite files, real sessions). */
+/** Whether this project runs the API tests on PostgreSQL (api-pg) rather than SQLite (api). */
+export function onPostgres(): boolean {
+  return Boolean(inject('pgServerUrl'));
+}
+
+/**
+ * The real app on a fresh temporary DATA_DIR (real SQLite files, real sessions); in the api-pg
+ * project, on a PostgreSQL database of its own as well, dropped on close.
+ */
 export async function startTestApp(env: Record<string, string> = {}): Promise<TestApp> {
   const dataDir = mkdtempSync(path.join(tmpdir(), 'workback-test-'));
   // A copy of the once-seeded demo data stands in for seeding again (the seeder skips a
   // database that has users). A test that wants a fresh seed passes SEED_FRESH.
   const template = inject('demoTemplateDir');
-  if (template && (env.SEED_DEMO ?? 'true') === 'true' && !env.SEED_FRESH) {
+  const fromTemplate = (env.SEED_DEMO ?? 'true') === 'true' && !env.SEED_FRESH;
+  if (template && fromTemplate) {
     cpSync(template, dataDir, { recursive: true });
+  }
+  const pgServer = inject('pgServerUrl');
+  const database = pgServer ? newDatabaseName('workback_test') : undefined;
+  if (pgServer && database) {
+    await createDatabase(pgServer, database, fromTemplate ? inject('pgTemplate') : undefined);
   }
   Object.assign(process.env, {
     NODE_ENV: 'test',
     DATA_DIR: dataDir,
+    DATABASE_URL: pgServer && database ? databaseUrl(pgServer, database) : '',
     SEED_DEMO: 'true',
     ADMIN_EMAILS: '',
     SESSION_IDLE_MINUTES: '30',
@@ -52,6 +68,7 @@ export async function startTestApp(env: Record<string, string> = {}): Promise<Te
     close: async () => {
       await app.close();
       rmSync(dataDir, { recursive: true, force: true });
+      if (pgServer && database) await dropDatabase(pgServer, database);
     },
   };
 }

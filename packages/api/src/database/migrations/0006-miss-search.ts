@@ -28,11 +28,27 @@ const STATEMENTS = [
    END`,
 ];
 
+/**
+ * PostgreSQL: pg_trgm's GIN indexes on the two columns serve `ILIKE '%…%'` from three characters
+ * on, the same matches as FTS5's trigram tokenizer, kept in step by PostgreSQL itself.
+ */
+const POSTGRES_STATEMENTS = [
+  'CREATE EXTENSION IF NOT EXISTS pg_trgm',
+  'CREATE INDEX misses_search_problem ON misses USING gin (problem gin_trgm_ops)',
+  'CREATE INDEX misses_search_explanation ON misses USING gin (explanation gin_trgm_ops)',
+];
+
 export async function up({ context: qi }: { context: QueryInterface }): Promise<void> {
-  for (const sql of STATEMENTS) await qi.sequelize.query(sql);
+  const postgres = qi.sequelize.getDialect() === 'postgres';
+  for (const sql of postgres ? POSTGRES_STATEMENTS : STATEMENTS) await qi.sequelize.query(sql);
 }
 
 export async function down({ context: qi }: { context: QueryInterface }): Promise<void> {
+  if (qi.sequelize.getDialect() === 'postgres') {
+    await qi.sequelize.query('DROP INDEX IF EXISTS misses_search_problem');
+    await qi.sequelize.query('DROP INDEX IF EXISTS misses_search_explanation');
+    return;
+  }
   for (const trigger of ['insert', 'delete', 'update']) {
     await qi.sequelize.query(`DROP TRIGGER IF EXISTS misses_search_${trigger}`);
   }

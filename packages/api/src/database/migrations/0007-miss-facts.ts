@@ -12,9 +12,13 @@ export async function up({ context: qi }: { context: QueryInterface }): Promise<
     allowNull: false,
     defaultValue: '[]',
   });
+  const facts =
+    qi.sequelize.getDialect() === 'postgres'
+      ? `(d.diagnosis::jsonb -> 'facts')::text`
+      : `json_extract(d.diagnosis, '$.facts')`;
   await qi.sequelize.query(
     `UPDATE misses SET facts = COALESCE(
-       (SELECT json_extract(d.diagnosis, '$.facts') FROM miss_diagnoses d WHERE d.miss_id = misses.id),
+       (SELECT ${facts} FROM miss_diagnoses d WHERE d.miss_id = misses.id),
        '[]')`,
   );
 }
