@@ -2,8 +2,10 @@ import { existsSync } from 'node:fs';
 import path from 'node:path';
 import type { NestExpressApplication } from '@nestjs/platform-express';
 import { DocumentBuilder, SwaggerModule } from '@nestjs/swagger';
-import express, { type NextFunction, type Request, type Response } from 'express';
+import compression from 'compression';
+import type { NextFunction, Request, Response } from 'express';
 import session from 'express-session';
+import expressStaticGzip from 'express-static-gzip';
 import helmet from 'helmet';
 import { Logger } from 'nestjs-pino';
 import passport from 'passport';
@@ -35,19 +37,21 @@ export function configureApp(app: NestExpressApplication, config: AppConfig): vo
   app.disable('x-powered-by');
   app.useBodyParser('json', { limit: '256kb' });
 
-  const hsts = config.env === 'production' ? undefined : false;
+  // JSON and pages compressed on the fly; the web app's files come precompressed (serveWebApp).
+  // Images, PDFs and zips are not compressible types, so downloads stream as they are.
+  app.use(compression());
+
   // Swagger UI ships inline styles; only its own pages get them.
-  const base = { strictTransportSecurity: hsts, xFrameOptions: { action: 'deny' as const } };
-  const docsHeaders = helmet({
-    ...base,
-    contentSecurityPolicy: {
-      directives: { ...strictCsp, styleSrc: ["'self'", "'unsafe-inline'"] },
-    },
+  const headers = {
+    app: securityHeaders(config, strictCsp),
+    docs: securityHeaders(config, { ...strictCsp, styleSrc: ["'self'", "'unsafe-inline'"] }),
+  };
+  const httpsSite = config.publicUrl?.startsWith('https:') ?? false;
+  app.use((req: Request, res: Response, next: NextFunction) => {
+    const page = req.path.startsWith('/api/docs') ? headers.docs : headers.app;
+    // req.secure reads X-Forwarded-Proto only with TRUST_PROXY.
+    return (req.secure || httpsSite ? page.https : page.http)(req, res, next);
   });
-  const appHeaders = helmet({ ...base, contentSecurityPolicy: { directives: strictCsp } });
-  app.use((req: Request, res: Response, next: NextFunction) =>
-    (req.path.startsWith('/api/docs') ? docsHeaders : appHeaders)(req, res, next),
-  );
   const metrics = app.get(MetricsService);
   app.use('/api', (_req: Request, res: Response, next: NextFunction) => {
     res.setHeader('Cache-Control', 'no-store');
@@ -95,6 +99,28 @@ export function configureApp(app: NestExpressApplication, config: AppConfig): vo
   serveWebApp(app, config.webDist);
 }
 
+/**
+ * Helmet's headers in two sets. Over plain http (a phone on the home Wi-Fi opening
+ * http://workback.home:3000) the https-only ones would break the page: upgrade-insecure-requests
+ * rewrites every script and style to https, and browsers ignore HSTS and the opener policy there.
+ */
+function securityHeaders(config: AppConfig, directives: typeof strictCsp) {
+  const xFrameOptions = { action: 'deny' as const };
+  return {
+    https: helmet({
+      xFrameOptions,
+      strictTransportSecurity: config.env === 'production' ? undefined : false,
+      contentSecurityPolicy: { directives: { ...directives, upgradeInsecureRequests: [] } },
+    }),
+    http: helmet({
+      xFrameOptions,
+      strictTransportSecurity: false,
+      crossOriginOpenerPolicy: false,
+      contentSecurityPolicy: { directives: { ...directives, upgradeInsecureRequests: null } },
+    }),
+  };
+}
+
 /** A signed-in session ends 12 h after sign-in however active it is (the idle limit is the cookie's). */
 function absoluteLifetime(maxAgeMs: number) {
   return (req: Request, _res: Response, next: NextFunction) => {
@@ -111,7 +137,23 @@ function absoluteLifetime(maxAgeMs: number) {
 function serveWebApp(app: NestExpressApplication, webDist: string): void {
   const index = path.join(webDist, 'index.html');
   if (!existsSync(index)) return;
-  const assets = express.static(webDist, { index: false, maxAge: '1h', immutable: false });
+  const hashed = path.join(webDist, 'assets') + path.sep;
+  // Vite names every file under assets/ by its content's hash: cache those for a year; anything
+  // else (index.html, a service worker) is checked with the server on each use.
+  const assets = expressStaticGzip(webDist, {
+    index: false,
+    enableBrotli: true,
+    orderPreference: ['br', 'gzip'],
+    serveStatic: {
+      cacheControl: false,
+      setHeaders: (res, file) => {
+        res.setHeader(
+          'Cache-Control',
+          file.startsWith(hashed) ? 'public, max-age=31536000, immutable' : 'no-cache',
+        );
+      },
+    },
+  });
   // API paths never name a file of the web app: skip the disk lookup on every API request.
   app.use((req: Request, res: Response, next: NextFunction) =>
     req.path.startsWith('/api') ? next() : assets(req, res, next),
