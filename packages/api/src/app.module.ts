@@ -9,6 +9,7 @@ import type { Sequelize } from 'sequelize-typescript';
 import { LoggerModule } from 'nestjs-pino';
 import { AnswerKeysModule } from './answer-keys/answer-keys.module.js';
 import { AuthModule } from './auth/auth.module.js';
+import { CheckUpsModule } from './check-ups/check-ups.module.js';
 import { HttpExceptionFilter } from './common/filters/http-exception.filter.js';
 import { AccessGuard } from './common/guards/access.guard.js';
 import { CsrfGuard } from './common/guards/csrf.guard.js';
@@ -94,6 +95,7 @@ const emailOf = (req: Request) =>
     CurriculumModule,
     AnswerKeysModule,
     SittingsModule,
+    CheckUpsModule,
     NotesModule,
     MailModule,
     InvitationsModule,

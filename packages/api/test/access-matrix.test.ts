@@ -26,6 +26,9 @@ interface Ids {
   key: number;
   keyItem: number;
   sitting: number;
+  /** A check-up of the student not yet taken, and as many answers as it has problems. */
+  checkUp: number;
+  checkUpAnswers?: string[];
   /** A review plan and a pattern note of the student (made fresh by the cases that need them). */
   plan?: number;
   patternNote?: number;
@@ -269,6 +272,7 @@ describe('access matrix', () => {
         ...targets[student]!,
         ...keyTargets,
         sitting: keyTargets.sittings[student]!,
+        checkUp: keyTargets.checkUps[student]!,
       };
       if (c.destructive && c.fresh) {
         Object.assign(ids, await c.fresh(student));
@@ -407,13 +411,26 @@ async function freshKeyTargets() {
       .expect(201);
     sittings[student] = s.body.id as number;
   }
+  const checkUps: Record<number, number> = {};
+  for (const student of [granted, ungranted])
+    checkUps[student] = (await freshCheckUp(student)).checkUp!;
   return {
+    checkUps,
     course: course.id as number,
     lesson: lesson.id as number,
     key: key.id as number,
     keyItem: key.items[0].id as number,
     sittings,
   };
+}
+
+/** A check-up of the student, made by the owner, with a right answer for each of its problems. */
+async function freshCheckUp(student: number): Promise<Partial<Ids>> {
+  const res = await clients.owner
+    .post('/api/check-ups', { studentId: student, ruleIds: ['sub.smaller-from-larger'] })
+    .expect(201);
+  const problems = res.body.problems as { answers: { correct: string } }[];
+  return { checkUp: res.body.id as number, checkUpAnswers: problems.map((p) => p.answers.correct) };
 }
 
 let lessonNumber = 100;
@@ -641,6 +658,36 @@ function KEY_CASES(): Case[] {
       path: ({ sitting }) => `/api/sittings/${sitting}/marks`,
       body: ({ keyItem }) => ({ marks: [{ keyItemId: keyItem, correct: true }] }),
       expect: editors(200),
+    },
+    { route: 'GET /api/check-ups', path: () => '/api/check-ups', expect: members(200) },
+    {
+      route: 'POST /api/check-ups',
+      path: () => '/api/check-ups',
+      body: ({ student }) => ({ studentId: student, ruleIds: ['sub.smaller-from-larger'] }),
+      expect: scoped(201),
+    },
+    {
+      route: 'GET /api/check-ups/:id',
+      path: ({ checkUp }) => `/api/check-ups/${checkUp}`,
+      expect: scoped(200),
+    },
+    {
+      route: 'GET /api/check-ups/:id/sheet.pdf',
+      path: ({ checkUp }) => `/api/check-ups/${checkUp}/sheet.pdf`,
+      expect: scoped(200),
+    },
+    {
+      route: 'GET /api/check-ups/:id/answers.pdf',
+      path: ({ checkUp }) => `/api/check-ups/${checkUp}/answers.pdf`,
+      expect: scoped(200),
+    },
+    {
+      route: 'POST /api/check-ups/:id/answers',
+      path: ({ checkUp }) => `/api/check-ups/${checkUp}/answers`,
+      body: ({ checkUpAnswers }) => ({ startedAt: '2026-01-07T10:00', answers: checkUpAnswers }),
+      destructive: true,
+      fresh: freshCheckUp,
+      expect: editors(201),
     },
     {
       route: 'GET /api/students/:id/sittings/summary',

@@ -1,6 +1,7 @@
 import { AnswerKey } from '../answer-keys/models/answer-key.model.js';
 import { KeyCorrection } from '../answer-keys/models/key-correction.model.js';
 import { KeyItem } from '../answer-keys/models/key-item.model.js';
+import { CheckUp } from '../check-ups/models/check-up.model.js';
 import { Course } from '../curriculum/models/course.model.js';
 import { Lesson } from '../curriculum/models/lesson.model.js';
 import { Household } from '../households/models/household.model.js';
@@ -45,6 +46,7 @@ export const MODELS = [
   KeyCorrection,
   Sitting,
   SittingMark,
+  CheckUp,
   ReviewPlan,
   ReviewPlanItem,
   ReviewPlanItemMiss,

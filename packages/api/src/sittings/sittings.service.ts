@@ -152,6 +152,12 @@ export class SittingsService implements OnModuleInit {
     return this.findOne(member, sitting.id);
   }
 
+  /** Removes a sitting that has no marks yet: undoes a check-up's sitting when its marks could not be saved. */
+  async discardUnmarked(member: MemberContext, id: number): Promise<void> {
+    const sitting = await this.findModel(member, id);
+    if ((await this.markModel.count({ where: { sittingId: id } })) === 0) await sitting.destroy();
+  }
+
   /**
    * Saves every mark of a sitting in one transaction and keeps its misses in step: a wrong
    * item gets a miss, a wrong item turned right resolves it. Saving the same marks twice

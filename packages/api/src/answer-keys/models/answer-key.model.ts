@@ -2,7 +2,8 @@ import { Column, DataType, ForeignKey, Model, Table } from 'sequelize-typescript
 import { Course } from '../../curriculum/models/course.model.js';
 import { Household } from '../../households/models/household.model.js';
 
-export const KEY_KINDS = ['worksheet', 'review', 'assessment'] as const;
+/** `check-up`: a sheet Workback planned to tell a child's possible explanations apart. */
+export const KEY_KINDS = ['worksheet', 'review', 'assessment', 'check-up'] as const;
 export type KeyKind = (typeof KEY_KINDS)[number];
 
 @Table({ tableName: 'answer_keys', underscored: true })

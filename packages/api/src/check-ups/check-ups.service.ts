@@ -1,0 +1,183 @@
+import { Injectable, NotFoundException } from '@nestjs/common';
+import { InjectModel } from '@nestjs/sequelize';
+import { planCheckUp, readCheckUp, ruleName, type CheckUpReading } from '@workback/core';
+import { Op } from 'sequelize';
+import { AnswerKeysService } from '../answer-keys/answer-keys.service.js';
+import { sameAnswer } from '../answer-keys/same-answer.js';
+import type { MemberContext } from '../common/member-context.js';
+import { fieldsError } from '../common/pipes/validation.pipe.js';
+import { SittingsService } from '../sittings/sittings.service.js';
+import { StudentsService } from '../students/students.service.js';
+import { childSheetPdf, parentSheetPdf } from './check-up-sheets.js';
+import { hypothesisName, readingSentence } from './check-up-words.js';
+import type { AnswerCheckUpDto } from './dto/answer-check-up.dto.js';
+import type { CreateCheckUpDto } from './dto/create-check-up.dto.js';
+import type { ListCheckUpsQuery } from './dto/list-check-ups.query.js';
+import { CheckUp } from './models/check-up.model.js';
+
+@Injectable()
+export class CheckUpsService {
+  constructor(
+    @InjectModel(CheckUp) private readonly checkUpModel: typeof CheckUp,
+    private readonly students: StudentsService,
+    private readonly keys: AnswerKeysService,
+    private readonly sittings: SittingsService,
+  ) {}
+
+  /** The check-ups a member may see: the household's, and for a tutor the granted students'. */
+  private scope(member: MemberContext) {
+    return member.studentIds === null
+      ? { householdId: member.householdId }
+      : { householdId: member.householdId, studentId: { [Op.in]: member.studentIds } };
+  }
+
+  async findAll(member: MemberContext, query: ListCheckUpsQuery) {
+    if (query.studentId !== undefined) await this.students.findModel(member, query.studentId);
+    const rows = await this.checkUpModel.findAll({
+      where: {
+        [Op.and]: [
+          this.scope(member),
+          ...(query.studentId === undefined ? [] : [{ studentId: query.studentId }]),
+        ],
+      },
+      order: [['id', 'DESC']],
+    });
+    const items = rows.map((r) => this.toJson(r));
+    return { items, total: items.length };
+  }
+
+  async findOne(member: MemberContext, id: number) {
+    return this.toJson(await this.findModel(member, id));
+  }
+
+  /**
+   * Plans the sheet for the student and keeps it as an answer key of kind `check-up`. The seed
+   * counts the student's check-ups, so a second check-up on the same rules brings new problems.
+   */
+  async create(member: MemberContext, dto: CreateCheckUpDto) {
+    const student = await this.students.findModel(member, dto.studentId);
+    const earlier = await this.checkUpModel.count({
+      where: { householdId: member.householdId, studentId: student.id },
+    });
+    const plan = planCheckUp(dto.ruleIds, { digits: dto.digits ?? 3, seed: earlier + 1 });
+    if (!plan.ok) throw fieldsError({ ruleIds: plan.error.message });
+    const title = `Check-up ${earlier + 1} for ${student.name}: ${[...new Set(plan.hypotheses.slice(1).map(ruleName))].join(', ')}`;
+    const key = await this.keys.create(member, {
+      title: title.length > 120 ? `${title.slice(0, 119)}…` : title,
+      kind: 'check-up',
+      courseId: null,
+      lessonNumber: null,
+      items: plan.problems.map((p, i) => ({
+        number: i + 1,
+        prompt: p.problem,
+        answer: p.answers.correct as string,
+        skills: [],
+        revisit: [],
+        facts: [],
+      })),
+    });
+    try {
+      const row = await this.checkUpModel.create({
+        householdId: member.householdId,
+        studentId: student.id,
+        answerKeyId: key.id,
+        sittingId: null,
+        ruleIds: dto.ruleIds,
+        sheet: {
+          operation: plan.operation,
+          hypotheses: plan.hypotheses,
+          problems: plan.problems,
+          merged: plan.merged,
+        },
+        reading: null,
+      });
+      return this.toJson(row);
+    } catch (err) {
+      await this.keys.remove(member, key.id);
+      throw err;
+    }
+  }
+
+  /**
+   * Takes the check-up: a sitting of its key with the child's answers as marks (so wrong
+   * answers become misses and right ones count against the rules in patterns), then reads
+   * the answers against every hypothesis.
+   */
+  async answer(member: MemberContext, id: number, dto: AnswerCheckUpDto) {
+    const row = await this.findModel(member, id);
+    if (row.sittingId !== null)
+      throw fieldsError({
+        answers: 'this check-up was already taken; make a new one to ask again',
+      });
+    const problems = row.sheet.problems;
+    if (dto.answers.length !== problems.length)
+      throw fieldsError({
+        answers: `answers must hold ${problems.length} answers, one for each problem (null for a blank)`,
+      });
+    const answers = dto.answers.map((a) => (a === null || a.trim() === '' ? null : a.trim()));
+    if (answers.every((a) => a === null))
+      throw fieldsError({ answers: 'enter at least one of the child’s answers' });
+    const reading = readCheckUp(row.sheet, answers);
+    const items = await this.keys.itemsOf(row.answerKeyId);
+    const sitting = await this.sittings.create(member, {
+      studentId: row.studentId,
+      answerKeyId: row.answerKeyId,
+      startedAt: dto.startedAt,
+      minutes: dto.minutes,
+      conditions: dto.conditions,
+    });
+    try {
+      const marked = await this.sittings.putMarks(member, sitting.id, {
+        marks: items.flatMap((item, i) => {
+          const written = answers[i] ?? null;
+          if (written === null) return [];
+          return [
+            { keyItemId: item.id, correct: sameAnswer(written, item.answer), answer: written },
+          ];
+        }),
+      });
+      await row.update({ sittingId: sitting.id, reading });
+      return { ...this.toJson(row), misses: marked.misses };
+    } catch (err) {
+      await this.sittings.discardUnmarked(member, sitting.id);
+      throw err;
+    }
+  }
+
+  async pdf(member: MemberContext, id: number, which: 'sheet' | 'answers') {
+    const row = await this.findModel(member, id);
+    const student = await this.students.findModel(member, row.studentId);
+    const header = { studentName: student.name, createdOn: row.createdAt.toISOString() };
+    const body =
+      which === 'sheet'
+        ? await childSheetPdf(row.sheet, header)
+        : await parentSheetPdf(row.sheet, header);
+    return { filename: `check-up-${row.id}-${which}.pdf`, body };
+  }
+
+  private async findModel(member: MemberContext, id: number): Promise<CheckUp> {
+    const row = await this.checkUpModel.findOne({
+      where: { [Op.and]: [this.scope(member), { id }] },
+    });
+    if (!row) throw new NotFoundException(`No check-up ${id} in this household`);
+    return row;
+  }
+
+  private toJson(row: CheckUp) {
+    const reading: CheckUpReading | null = row.reading;
+    return {
+      id: row.id,
+      studentId: row.studentId,
+      answerKeyId: row.answerKeyId,
+      sittingId: row.sittingId,
+      ruleIds: row.ruleIds,
+      operation: row.sheet.operation,
+      hypotheses: row.sheet.hypotheses.map((h) => ({ id: h, name: hypothesisName(h) })),
+      problems: row.sheet.problems,
+      merged: row.sheet.merged,
+      status: reading === null ? 'not taken' : reading.verdict,
+      reading: reading === null ? null : { ...reading, sentence: readingSentence(reading) },
+      createdAt: row.createdAt,
+    };
+  }
+}
