@@ -119,6 +119,35 @@ export class AnswerKeysService {
     return { items: list, total: list.length };
   }
 
+  /** For review plans: the courses of the household's keys these items belong to, most used first. */
+  async coursesOfItems(
+    member: MemberContext,
+    itemIds: readonly number[],
+    transaction?: Transaction,
+  ): Promise<number[]> {
+    if (itemIds.length === 0) return [];
+    const items = await this.itemModel.findAll({
+      where: { id: { [Op.in]: [...itemIds] } },
+      attributes: ['answerKeyId'],
+      transaction,
+    });
+    const keys = await this.keyModel.findAll({
+      where: {
+        householdId: member.householdId,
+        id: { [Op.in]: [...new Set(items.map((i) => i.answerKeyId))] },
+      },
+      attributes: ['id', 'courseId'],
+      transaction,
+    });
+    const count = new Map<number, number>();
+    const courseOf = new Map(keys.map((k) => [k.id, k.courseId]));
+    for (const i of items) {
+      const c = courseOf.get(i.answerKeyId);
+      if (c != null) count.set(c, (count.get(c) ?? 0) + 1);
+    }
+    return [...count].sort((a, b) => b[1] - a[1] || a[0] - b[0]).map(([id]) => id);
+  }
+
   async findOne(member: MemberContext, id: number, transaction?: Transaction) {
     const key = await this.findKeyModel(member, id, transaction);
     return this.toKeyJson(key, transaction);
