@@ -88,7 +88,7 @@ describe('CSV import', () => {
     expect(res.body.items[6]).toMatchObject({
       number: 7,
       answer: '1,128',
-      revisitLessons: [10, 11],
+      revisitLessons: [19],
     });
     expect(res.body.items[11].prompt).toBe(
       'Nell has 3 bags of 8 shells, then finds 5 more. How many shells?',

@@ -328,9 +328,10 @@ describe('exports', () => {
       'done',
       'miss_ids',
     ]);
+    // Lessons carry their titles from the demo course (seeds/demo-curriculum.json).
     expect(rows.filter((r) => r.section === 'lessons').map((r) => r.item)).toEqual([
-      'Revisit lessons 12–14',
-      'Revisit lesson 20',
+      'Revisit lessons 12–14: 12 “Facts: sevens”, 13 “Facts: eights and nines”, 14 “Regrouping across a zero”',
+      'Revisit lesson 20 “Division facts”',
     ]);
     expect(rows.find((r) => r.section === 're-work' && r.problem === '304 - 75')).toMatchObject({
       child_answer: '139',

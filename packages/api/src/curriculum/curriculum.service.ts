@@ -101,6 +101,38 @@ export class CurriculumService {
     return { items, total: items.length };
   }
 
+  /**
+   * Lesson titles by number for a review plan: from the given courses (the first that has
+   * the number wins), or from the household's only course when none is given.
+   */
+  async lessonTitles(
+    member: MemberContext,
+    courseIds: readonly number[],
+    transaction?: Transaction,
+  ): Promise<Record<number, string>> {
+    let ids = [...courseIds];
+    if (ids.length === 0) {
+      const all = await this.courseModel.findAll({
+        where: { householdId: member.householdId },
+        attributes: ['id'],
+        transaction,
+      });
+      if (all.length !== 1) return {};
+      ids = [all[0]!.id];
+    }
+    const courses = await this.courseModel.findAll({
+      where: { householdId: member.householdId, id: ids },
+      attributes: ['id'],
+      transaction,
+    });
+    const mine = new Set(courses.map((c) => c.id));
+    const titles: Record<number, string> = {};
+    for (const courseId of ids.filter((id) => mine.has(id)))
+      for (const l of await this.lessonModel.findAll({ where: { courseId }, transaction }))
+        titles[l.number] ??= l.title;
+    return titles;
+  }
+
   /** The lesson numbers of a course, for checking lessons to revisit. */
   async lessonNumbers(courseId: number, transaction?: Transaction): Promise<Set<number>> {
     const lessons = await this.lessonModel.findAll({

@@ -7,5 +7,10 @@ export type MissWithDiagnosis = Awaited<ReturnType<MissesService['withDiagnoses'
 
 /** A stored miss as the core plan maths reads it: the pattern fields and its lessons. */
 export function toPlanMiss(m: MissWithDiagnosis): PlanMiss {
-  return { ...toPatternMiss(m, m.diagnosis), lessons: revisitLessons(m.revisit) };
+  return {
+    ...toPatternMiss(m, m.diagnosis),
+    lessons: revisitLessons(m.revisit),
+    engineSaysRight: m.correct === true,
+    expected: m.expected,
+  };
 }

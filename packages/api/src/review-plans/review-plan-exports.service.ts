@@ -5,6 +5,7 @@ import { fieldsError } from '../common/pipes/validation.pipe.js';
 import { HouseholdsService } from '../households/households.service.js';
 import { MembersService } from '../households/members.service.js';
 import { MailService } from '../mail/mail.service.js';
+import { writtenDate } from '../common/pdf/written-date.js';
 import { UsersService } from '../users/users.service.js';
 import type { SendReviewPlanDto } from './dto/send-review-plan.dto.js';
 import { renderReviewPlanCsv } from './review-plan-csv.js';
@@ -36,7 +37,7 @@ export class ReviewPlanExportsService {
    * E-mails the PDF to each chosen member. Every recipient is checked first (a member of
    * this household, and a tutor only when given this student), so a bad id sends nothing.
    */
-  async send(member: MemberContext, id: number, dto: SendReviewPlanDto) {
+  async send(member: MemberContext, id: number, dto: SendReviewPlanDto, origin: string) {
     const plan = await this.plans.findOne(member, id);
     const recipients = [];
     const errors: Record<string, string> = {};
@@ -55,14 +56,21 @@ export class ReviewPlanExportsService {
     for (const r of recipients) {
       await this.mail.send({
         to: r.email,
-        subject: `Review plan for ${plan.student.name}, ${plan.scheduledFor}`,
+        subject: `Review plan for ${plan.student.name}, ${writtenDate(plan.scheduledFor)}`,
         paragraphs: [
           `Hello ${r.displayName},`,
-          `${sender} sent you the review plan for ${plan.student.name} for ${plan.scheduledFor}: ` +
-            `${plan.progress.total} items to work through, attached as a PDF to print.`,
+          `${sender} sent you the review plan for ${plan.student.name} for ${writtenDate(plan.scheduledFor)}: ` +
+            `${plan.progress.total} items to work through, attached as a PDF to print. ` +
+            'Its first page is a summary: the lessons, the facts and the problems most worth re-working.',
+          ...(plan.summary.lessons.length > 0
+            ? [
+                `Lessons to revisit: ${plan.summary.lessons.map((l) => l.replace(/^Revisit l/, 'L')).join('; ')}.`,
+              ]
+            : []),
           ...(dto.message ? [`${sender} adds: ${dto.message}`] : []),
-          'The answers are on the last page; keep it apart while the problems are worked.',
+          `Where the answers are: on the last page of the PDF, headed “Answers”. Keep that page apart while the problems are worked.`,
         ],
+        action: { label: 'Open the plan in Workback', url: `${origin}/review-plans/${plan.id}` },
         sentBy: `${sender}, of ${household.name}`,
         reason: `because ${sender} chose to send this plan to you as a member of ${household.name}`,
         attachments: [{ filename, content: pdf, contentType: 'application/pdf' }],

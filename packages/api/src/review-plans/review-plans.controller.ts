@@ -7,12 +7,16 @@ import {
   Patch,
   Post,
   Query,
+  Req,
   Res,
   StreamableFile,
 } from '@nestjs/common';
 import { ApiTags } from '@nestjs/swagger';
 import { Role } from '@workback/core';
-import type { Response } from 'express';
+import { ConfigService } from '@nestjs/config';
+import type { Request, Response } from 'express';
+import type { AppConfig } from '../config/app.config.js';
+import { publicOrigin } from '../mail/public-url.js';
 import { CurrentMember } from '../common/decorators/current-member.decorator.js';
 import { IdParam } from '../common/decorators/id-param.decorator.js';
 import { Roles } from '../common/decorators/roles.decorator.js';
@@ -28,10 +32,15 @@ import { ReviewPlansService } from './review-plans.service.js';
 @ApiTags('review-plans')
 @Controller('review-plans')
 export class ReviewPlansController {
+  private readonly publicUrl: string | undefined;
+
   constructor(
     private readonly plans: ReviewPlansService,
     private readonly exports: ReviewPlanExportsService,
-  ) {}
+    config: ConfigService,
+  ) {
+    this.publicUrl = config.getOrThrow<AppConfig>('app').publicUrl;
+  }
 
   @Get()
   findAll(@CurrentMember() member: MemberContext, @Query() query: ListReviewPlansQuery) {
@@ -85,7 +94,8 @@ export class ReviewPlansController {
     @CurrentMember() member: MemberContext,
     @IdParam() id: number,
     @Body() dto: SendReviewPlanDto,
+    @Req() req: Request,
   ) {
-    return this.exports.send(member, id, dto);
+    return this.exports.send(member, id, dto, publicOrigin(this.publicUrl, req));
   }
 }

@@ -1,5 +1,7 @@
 import { Module } from '@nestjs/common';
 import { SequelizeModule } from '@nestjs/sequelize';
+import { AnswerKeysModule } from '../answer-keys/answer-keys.module.js';
+import { CurriculumModule } from '../curriculum/curriculum.module.js';
 import { HouseholdsModule } from '../households/households.module.js';
 import { MailModule } from '../mail/mail.module.js';
 import { MissesModule } from '../misses/misses.module.js';
@@ -17,6 +19,8 @@ import { ReviewPlansService } from './review-plans.service.js';
     SequelizeModule.forFeature([ReviewPlan, ReviewPlanItem, ReviewPlanItemMiss]),
     StudentsModule,
     MissesModule,
+    AnswerKeysModule,
+    CurriculumModule,
     HouseholdsModule,
     UsersModule,
     MailModule,

@@ -2,7 +2,10 @@ import { Injectable, NotFoundException, UnprocessableEntityException } from '@ne
 import { InjectConnection, InjectModel } from '@nestjs/sequelize';
 import {
   buildReviewPlan,
+  chooseFocus,
   formatTrace,
+  lessonTitle,
+  ruleName,
   MissStatus,
   type FactFamilyDrill,
   type LessonRange,
@@ -13,6 +16,8 @@ import { Op, type Transaction, type WhereOptions } from 'sequelize';
 import type { Sequelize } from 'sequelize-typescript';
 import type { MemberContext } from '../common/member-context.js';
 import { fieldsError } from '../common/pipes/validation.pipe.js';
+import { AnswerKeysService } from '../answer-keys/answer-keys.service.js';
+import { CurriculumService } from '../curriculum/curriculum.service.js';
 import { MissesService } from '../misses/misses.service.js';
 import { StudentsService } from '../students/students.service.js';
 import type { CreateReviewPlanDto } from './dto/create-review-plan.dto.js';
@@ -37,7 +42,20 @@ export class ReviewPlansService {
     @InjectConnection() private readonly sequelize: Sequelize,
     private readonly students: StudentsService,
     private readonly misses: MissesService,
+    private readonly keys: AnswerKeysService,
+    private readonly curriculum: CurriculumService,
   ) {}
+
+  /** Lesson titles from the courses of the misses' keys (or the household's only course). */
+  private async lessonTitlesFor(
+    member: MemberContext,
+    misses: readonly { keyItemId: number | null }[],
+    transaction?: Transaction,
+  ) {
+    const itemIds = misses.flatMap((m) => (m.keyItemId === null ? [] : [m.keyItemId]));
+    const courses = await this.keys.coursesOfItems(member, itemIds, transaction);
+    return this.curriculum.lessonTitles(member, courses, transaction);
+  }
 
   /** The plans a member may see: the household's, and for a tutor the granted students'. */
   scope(member: MemberContext): WhereOptions<ReviewPlan> {
@@ -67,7 +85,14 @@ export class ReviewPlansService {
         },
         { transaction },
       );
-      const draft = buildReviewPlan(chosen.map(toPlanMiss), { planId: plan.id });
+      const draft = buildReviewPlan(chosen.map(toPlanMiss), {
+        planId: plan.id,
+        lessonTitles: await this.lessonTitlesFor(member, chosen, transaction),
+      });
+      if (draft.items.length === 0)
+        throw fieldsError({
+          missIds: 'every chosen miss is right by the checker: there is nothing to re-work',
+        });
       await plan.update(
         { covers: draft.covers, lessonsText: draft.lessons.text, notes: draft.notes },
         { transaction },
@@ -90,9 +115,10 @@ export class ReviewPlansService {
         ),
         { transaction },
       );
+      const leftOut = new Set(draft.leftOut);
       await this.misses.setStatus(
         member,
-        chosen.map((m) => m.id),
+        chosen.filter((m) => !leftOut.has(m.id)).map((m) => m.id),
         MissStatus.planned,
         transaction,
       );
@@ -153,23 +179,43 @@ export class ReviewPlansService {
       missIds.length === 0
         ? []
         : await this.misses.withDiagnoses(member, { studentId: plan.studentId, ids: missIds });
+    // Lessons carry the curriculum's current titles (a renamed lesson reads as renamed).
+    const titles = await this.lessonTitlesFor(member, misses);
+    const titled = new Map<number, { title: string; payload: LessonRange }>();
+    for (const i of items.filter((x) => x.kind === 'lesson')) {
+      const r = i.payload as unknown as LessonRange;
+      const payload: LessonRange = {
+        ...r,
+        lessons: Array.from({ length: r.to - r.from + 1 }, (_, k) => ({
+          number: r.from + k,
+          title: titles[r.from + k] ?? null,
+        })),
+      };
+      titled.set(i.id, { title: lessonTitle(payload), payload });
+    }
     const payloads = <T>(kind: string) =>
       items.filter((i) => i.kind === kind).map((i) => i.payload as unknown as T);
-    const ranges = payloads<LessonRange>('lesson');
+    const ranges = items.flatMap((i) => titled.get(i.id)?.payload ?? []);
+    const factFamilies = payloads<FactFamilyDrill>('fact-family');
     return {
       ...toPlanSummary(plan),
       student: { id: student.id, name: student.name, gradeLevel: student.gradeLevel },
       lessons: { text: plan.lessonsText, ranges },
-      factFamilies: payloads<FactFamilyDrill>('fact-family'),
+      factFamilies,
       practice: payloads<PracticeBlock>('practice'),
       misses: misses.map(toPlanMissJson),
+      summary: {
+        lessons: [...titled.values()].map((t) => t.title),
+        facts: factFamilies.map((f) => `${f.label}: ${f.facts.join(', ')}`),
+        focus: chooseFocus(misses.map(toPlanMiss)),
+      },
       items: items.map((i) => ({
         id: i.id,
         position: i.position,
         kind: i.kind,
         key: i.key,
-        title: i.title,
-        payload: i.payload,
+        title: titled.get(i.id)?.title ?? i.title,
+        payload: titled.get(i.id)?.payload ?? i.payload,
         done: i.done,
         doneAt: i.doneAt,
         doneBy: i.doneBy,
@@ -375,6 +421,10 @@ function toPlanMissJson(m: MissWithDiagnosis) {
     ruleIds: m.ruleIds,
     firstWrongStep: d?.firstWrongStep ?? null,
     ruleExplanation: d?.rules[0]?.explanation ?? null,
+    ruleName: d?.rules[0] ? ruleName(d.rules[0].id) : null,
+    steps: m.steps,
+    writtenSteps: d?.writtenSteps ?? null,
+    trace: d ? { expected: d.trace.expected, child: d.trace.child?.working ?? null } : null,
     working: d
       ? {
           expected: formatTrace(d.trace.expected),

@@ -20,7 +20,7 @@ export function activitiesFor(family: string, facts: readonly BasicFact[]): Prac
   });
   const first = own[0];
   const list = own.map((o) => o.text).join(', ');
-  const name = times ? `${n}s` : `facts with ${n}`;
+  const name = times ? `${n}s` : `+ and − with ${n}`;
   const out: PracticeActivity[] = [];
   const push = (id: PracticeActivity['id'], how: string) =>
     out.push({ ...PRACTICE_ACTIVITIES[id], how });
@@ -76,7 +76,7 @@ export function activitiesFor(family: string, facts: readonly BasicFact[]): Prac
   }
   push(
     'flash-cards',
-    `Write each missed ${name} fact (${list}) on a card with the answer on the back, with a few ${name} facts the child knows. A fact answered quickly and right goes on the “got it” pile; the others go back for one more round. Five minutes is plenty.`,
+    `Write each missed fact (${list}) on a card with the answer on the back, with a few other ${name} facts the child knows. A fact answered quickly and right goes on the “got it” pile; the others go back for one more round. Five minutes is plenty.`,
   );
   push(
     'timer-game',

@@ -5,6 +5,7 @@ import { patternKeysOf } from '../patterns/patternKeysOf.js';
 import { byDay } from '../patterns/seenTally.js';
 import type { BasicFact } from '../patterns/types.js';
 import { practiceFor } from '../practice/practiceFor.js';
+import { ruleName } from '../patterns/ruleName.js';
 import { RULES, ruleInfo } from '../rules/catalog.js';
 import { formatLessonRanges } from './formatLessonRanges.js';
 import { lessonRanges } from './lessonRanges.js';
@@ -90,7 +91,7 @@ export function buildReviewPlan(
       if (!set.ok) continue;
       made = {
         ruleId,
-        title: ruleInfo(ruleId)?.title ?? ruleId,
+        title: ruleName(ruleId),
         digits,
         problems: set.problems.map((p) => ({
           number: (number += 1),

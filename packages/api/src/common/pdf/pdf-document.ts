@@ -181,7 +181,7 @@ export function working(
         .rect(x, top - 2, cols * cell, lineHeight)
         .fill()
         .restore();
-    monoText(doc, line.slice(0, cols - 1), x + cell * 0.5, top, {
+    monoText(doc, line.slice(0, cols - 1), x, top, {
       size,
       color: options.color ?? INK,
     });
