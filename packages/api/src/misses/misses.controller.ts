@@ -3,23 +3,30 @@ import {
   Controller,
   Delete,
   Get,
+  Headers,
   HttpCode,
   Patch,
   Post,
   Query,
+  Res,
   UploadedFiles,
 } from '@nestjs/common';
-import { ApiTags } from '@nestjs/swagger';
+import { ApiHeader, ApiTags } from '@nestjs/swagger';
 import { Role } from '@workback/core';
+import type { Response } from 'express';
 import { CurrentMember } from '../common/decorators/current-member.decorator.js';
 import { IdParam } from '../common/decorators/id-param.decorator.js';
 import { Roles } from '../common/decorators/roles.decorator.js';
 import type { MemberContext } from '../common/member-context.js';
+import { fieldsError } from '../common/pipes/validation.pipe.js';
 import { PhotoUpload } from '../photos/photo-upload.js';
 import { CreateMissDto } from './dto/create-miss.dto.js';
 import { ListMissesQuery } from './dto/list-misses.query.js';
 import { UpdateMissDto } from './dto/update-miss.dto.js';
 import { MissesService } from './misses.service.js';
+
+/** A client-made key, e.g. a UUID: long enough not to be guessed, short enough to index. */
+const IDEMPOTENCY_KEY = /^[A-Za-z0-9_-]{16,100}$/;
 
 @ApiTags('misses')
 @Controller('misses')
@@ -34,12 +41,28 @@ export class MissesController {
   @Roles(Role.owner, Role.parent)
   @Post()
   @PhotoUpload()
-  create(
+  @ApiHeader({
+    name: 'Idempotency-Key',
+    required: false,
+    description:
+      'Makes the request safe to send again: the same key in this household answers the first miss (200); the key with other content is a 409.',
+  })
+  async create(
     @CurrentMember() member: MemberContext,
     @Body() dto: CreateMissDto,
     @UploadedFiles() files: Express.Multer.File[] | undefined,
+    @Headers('idempotency-key') key: string | undefined,
+    @Res({ passthrough: true }) res: Response,
   ) {
-    return this.misses.create(member, dto, files ?? []);
+    if (key === undefined) return this.misses.create(member, dto, files ?? []);
+    if (!IDEMPOTENCY_KEY.test(key)) {
+      throw fieldsError({
+        'idempotency-key': 'must be 16 to 100 letters, digits, "-" or "_"',
+      });
+    }
+    const { miss, replayed } = await this.misses.createOnce(member, dto, files ?? [], key);
+    if (replayed) res.status(200);
+    return miss;
   }
 
   @Get(':id')

@@ -1,4 +1,5 @@
-import { Injectable, NotFoundException } from '@nestjs/common';
+import { createHash } from 'node:crypto';
+import { ConflictException, Injectable, NotFoundException } from '@nestjs/common';
 import { InjectConnection, InjectModel } from '@nestjs/sequelize';
 import {
   Cause,
@@ -7,7 +8,14 @@ import {
   type PatternMiss,
   type WrittenSteps,
 } from '@workback/core';
-import { literal, Op, type Order, type Transaction, type WhereOptions } from 'sequelize';
+import {
+  literal,
+  Op,
+  UniqueConstraintError,
+  type Order,
+  type Transaction,
+  type WhereOptions,
+} from 'sequelize';
 import type { Sequelize } from 'sequelize-typescript';
 import type { MemberContext } from '../common/member-context.js';
 import { fieldsError } from '../common/pipes/validation.pipe.js';
@@ -35,6 +43,12 @@ export interface MissLinks {
   keyItemId?: number | null;
 }
 
+/** A client's Idempotency-Key with the digest of the request it came with. */
+interface SentOnce {
+  key: string;
+  digest: string;
+}
+
 @Injectable()
 export class MissesService {
   constructor(
@@ -57,6 +71,7 @@ export class MissesService {
     dto: CreateMissDto,
     files: readonly UploadedPhoto[] = [],
     links: MissLinks = {},
+    once: SentOnce | null = null,
   ) {
     await this.students.findModel(member, dto.studentId);
     if (files.length > MAX_PHOTOS_PER_MISS) {
@@ -84,6 +99,8 @@ export class MissesService {
             skills: dedupe(dto.skills ?? []),
             revisit: dedupe(dto.revisit ?? []),
             ...diagnosisColumns(checked),
+            idempotencyKey: once?.key ?? null,
+            requestDigest: once?.digest ?? null,
             createdBy: member.userId,
             updatedBy: member.userId,
           },
@@ -98,6 +115,46 @@ export class MissesService {
       await this.photos.discard(staged);
       throw err;
     }
+  }
+
+  /**
+   * `create` for a request the client may send again (an offline draft, a retry after a lost
+   * answer): the same key in this household answers the miss it made (`replayed`); the key
+   * sent with other fields or photos is a 409. Two copies racing meet at the unique index.
+   */
+  async createOnce(
+    member: MemberContext,
+    dto: CreateMissDto,
+    files: readonly UploadedPhoto[],
+    key: string,
+  ): Promise<{ miss: Awaited<ReturnType<MissesService['findOne']>>; replayed: boolean }> {
+    const once = { key, digest: requestDigest(dto, files) };
+    const earlier = await this.findSentOnce(member, once);
+    if (earlier) return { miss: earlier, replayed: true };
+    try {
+      return { miss: await this.create(member, dto, files, {}, once), replayed: false };
+    } catch (err) {
+      if (!(err instanceof UniqueConstraintError)) throw err;
+      const raced = await this.findSentOnce(member, once);
+      if (!raced) throw err;
+      return { miss: raced, replayed: true };
+    }
+  }
+
+  private async findSentOnce(member: MemberContext, once: SentOnce) {
+    const miss = await this.missModel.findOne({
+      attributes: ['id', 'requestDigest'],
+      where: { householdId: member.householdId, idempotencyKey: once.key },
+    });
+    if (!miss) return null;
+    if (miss.requestDigest !== once.digest) {
+      throw new ConflictException({
+        message:
+          'This Idempotency-Key was already used for a different miss; send a new key for new content.',
+        fields: { 'idempotency-key': 'already used for a different miss' },
+      });
+    }
+    return this.findOne(member, miss.id);
   }
 
   async addPhotos(member: MemberContext, id: number, files: readonly UploadedPhoto[]) {
@@ -513,6 +570,31 @@ function likeCondition(
   return literal(
     `("Miss"."problem" ${operator} ${pattern} ESCAPE '\\' OR "Miss"."explanation" ${operator} ${pattern} ESCAPE '\\')`,
   ) as unknown as WhereOptions<Miss>;
+}
+
+/** SHA-256 over the validated fields (in a fixed order) and every photo's bytes. */
+function requestDigest(dto: CreateMissDto, files: readonly UploadedPhoto[]): string {
+  const hash = createHash('sha256');
+  hash.update(
+    JSON.stringify([
+      dto.studentId,
+      dto.occurredOn,
+      dto.problem,
+      dto.answer,
+      dto.steps ?? null,
+      dto.explanation ?? '',
+      dto.cause ?? null,
+      dto.note ?? '',
+      dto.status ?? null,
+      dto.skills ?? [],
+      dto.revisit ?? [],
+    ]),
+  );
+  for (const file of files) {
+    hash.update(`\0${file.buffer.length}\0`);
+    hash.update(file.buffer);
+  }
+  return hash.digest('hex');
 }
 
 function diagnosisColumns(checked: Checked) {
