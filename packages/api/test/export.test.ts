@@ -120,7 +120,7 @@ describe('GET /api/export', () => {
           name,
         ).toBe(true);
         const [{ n } = { n: -1 }] = await db.query<{ n: number }>(
-          `SELECT COUNT(*) AS n FROM "${name.slice(7, -5)}" WHERE household_id = ?`,
+          `SELECT CAST(COUNT(*) AS INTEGER) AS n FROM "${name.slice(7, -5)}" WHERE household_id = ?`,
           { replacements: [householdId], type: QueryTypes.SELECT },
         );
         expect(rows.length, name).toBe(n);
@@ -210,7 +210,7 @@ describe('DELETE /api/households/current', () => {
     // The tutor also belongs to another household: their account must survive.
     const tutorBoth = await registered(t, 'both-ways@example.test', 'The Both household');
     await db.query(
-      "INSERT INTO memberships (household_id, user_id, role, created_at, updated_at) SELECT ?, id, 'parent', datetime('now'), datetime('now') FROM users WHERE email = 'both-ways@example.test'",
+      "INSERT INTO memberships (household_id, user_id, role, created_at, updated_at) SELECT ?, id, 'parent', CURRENT_TIMESTAMP, CURRENT_TIMESTAMP FROM users WHERE email = 'both-ways@example.test'",
       { replacements: [otherHouseholdId] },
     );
 
@@ -234,7 +234,7 @@ describe('DELETE /api/households/current', () => {
 
     for (const table of ['households', 'students', 'memberships', 'invitations', 'misses']) {
       const [{ n } = { n: -1 }] = await db.query<{ n: number }>(
-        `SELECT COUNT(*) AS n FROM "${table}" WHERE ${table === 'households' ? 'id' : 'household_id'} = ?`,
+        `SELECT CAST(COUNT(*) AS INTEGER) AS n FROM "${table}" WHERE ${table === 'households' ? 'id' : 'household_id'} = ?`,
         { replacements: [otherHouseholdId], type: QueryTypes.SELECT },
       );
       expect(n, table).toBe(0);

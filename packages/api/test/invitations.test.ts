@@ -207,9 +207,9 @@ describe('accepting', () => {
 
   it('answers 410 for an expired link and 404 for an unknown one', async () => {
     const path = await invite(owner, { email: 'late@example.test', role: 'parent' });
-    await db().query(
-      "UPDATE invitations SET expires_at = datetime('now', '-1 minute') WHERE email = 'late@example.test'",
-    );
+    await db().query("UPDATE invitations SET expires_at = ? WHERE email = 'late@example.test'", {
+      replacements: [new Date(Date.now() - 60_000)],
+    });
     const visitor = await anonymous();
     const late = await visitor.post(`/api${path}/accept`, {
       displayName: 'Late',

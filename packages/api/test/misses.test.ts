@@ -381,9 +381,20 @@ describe('POST /api/misses', () => {
       'rolls back the rows and removes the files when inserting into %s fails',
       async (table) => {
         const sequelize = db(t);
-        await sequelize.query(
-          `CREATE TRIGGER fail_insert BEFORE INSERT ON ${table} BEGIN SELECT RAISE(ABORT, 'test failure'); END`,
-        );
+        const postgres = sequelize.getDialect() === 'postgres';
+        if (postgres) {
+          await sequelize.query(
+            `CREATE FUNCTION fail_insert() RETURNS trigger LANGUAGE plpgsql AS $$
+             BEGIN RAISE EXCEPTION 'test failure'; END $$`,
+          );
+          await sequelize.query(
+            `CREATE TRIGGER fail_insert BEFORE INSERT ON ${table} FOR EACH ROW EXECUTE FUNCTION fail_insert()`,
+          );
+        } else {
+          await sequelize.query(
+            `CREATE TRIGGER fail_insert BEFORE INSERT ON ${table} BEGIN SELECT RAISE(ABORT, 'test failure'); END`,
+          );
+        }
         try {
           const before = await footprint(t);
           const res = await postMultipart(owner, '/api/misses', fields(), [jpeg(), jpeg()]);
@@ -391,7 +402,10 @@ describe('POST /api/misses', () => {
           expect(res.status).toBeGreaterThanOrEqual(409);
           expect(await footprint(t)).toEqual(before);
         } finally {
-          await sequelize.query('DROP TRIGGER fail_insert');
+          await sequelize.query(
+            postgres ? `DROP TRIGGER fail_insert ON ${table}` : 'DROP TRIGGER fail_insert',
+          );
+          if (postgres) await sequelize.query('DROP FUNCTION fail_insert');
         }
       },
     );

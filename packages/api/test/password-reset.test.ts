@@ -107,9 +107,9 @@ describe('setting the new password', () => {
       ).status,
     ).toBe(404);
 
-    await t.app
-      .get(Sequelize)
-      .query("UPDATE password_reset_tokens SET expires_at = datetime('now', '-1 second')");
+    await t.app.get(Sequelize).query('UPDATE password_reset_tokens SET expires_at = ?', {
+      replacements: [new Date(Date.now() - 1000)],
+    });
     const late = await c.post('/api/auth/password-reset/confirm', {
       token: second,
       password: 'too-late-password',
