@@ -1,8 +1,11 @@
 // `npm run dev`: the API with reload on :3000 and Vite's dev server (proxying /api) side by side.
 import { spawn } from 'node:child_process';
 
-const run = (args, name) => {
-  const child = spawn('npm', args, { stdio: 'inherit', env: { ...process.env, FORCE_COLOR: '1' } });
+const run = (args, name, env = {}) => {
+  const child = spawn('npm', args, {
+    stdio: 'inherit',
+    env: { ...process.env, FORCE_COLOR: '1', ...env },
+  });
   child.on('exit', (code) => {
     console.log(`${name} exited with ${code}`);
     process.exit(code ?? 1);
@@ -11,7 +14,10 @@ const run = (args, name) => {
 };
 
 const children = [
-  run(['run', 'start:dev', '-w', 'packages/api'], 'api'),
+  // Mailed links open the Vite server the developer is using, not the API's own port.
+  run(['run', 'start:dev', '-w', 'packages/api'], 'api', {
+    PUBLIC_URL: process.env.PUBLIC_URL ?? 'http://localhost:5173',
+  }),
   run(['run', 'dev', '-w', 'packages/web'], 'web'),
 ];
 for (const signal of ['SIGINT', 'SIGTERM']) {

@@ -240,7 +240,11 @@ export async function benchLoadMix(): Promise<void> {
   const dataDir = mkdtempSync(path.join(tmpdir(), 'workback-bench-'));
   const env = {
     NODE_ENV: 'production',
+    // Production needs a relay and a public address to start; the mix sends no mail.
+    SMTP_URL: 'smtp://127.0.0.1:9',
+    PUBLIC_URL: 'http://localhost',
     DATA_DIR: dataDir,
+    // Seeded on purpose: the mix signs in as the demo's owner and admin.
     SEED_DEMO: 'true',
     LOG_LEVEL: 'silent',
     ADMIN_EMAILS: 'admin@workback.test',

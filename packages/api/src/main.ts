@@ -38,6 +38,12 @@ async function bootstrap(): Promise<void> {
     console.log('  tutor@workback.test     tutor, sees one child');
     console.log('  admin@workback.test     site admin, sees no children’s data');
   }
+  if (!config.mail.smtpUrl) {
+    console.log(`Mail is caught for development and shown at ${url}/dev/outbox to anyone who`);
+    console.log(
+      'can reach this server. A real server runs with NODE_ENV=production, SMTP_URL and PUBLIC_URL.',
+    );
+  }
 }
 
 bootstrap().catch((err: unknown) => {

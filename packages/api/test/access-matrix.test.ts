@@ -142,6 +142,18 @@ function memberMailCases(): Case[] {
       expect: same(400),
     },
     {
+      // The demo's accounts are confirmed (409); the newly registered stranger is not yet (202).
+      route: 'POST /api/auth/email-verification',
+      path: () => '/api/auth/email-verification',
+      expect: { ...members(409, 409), stranger: 202 },
+    },
+    {
+      route: 'POST /api/auth/email-verification/confirm',
+      path: () => '/api/auth/email-verification/confirm',
+      body: {},
+      expect: same(400),
+    },
+    {
       route: 'POST /api/households/current',
       path: () => '/api/households/current',
       body: { householdId: 1 },
@@ -159,7 +171,8 @@ function memberMailCases(): Case[] {
       route: 'POST /api/invitations',
       path: () => '/api/invitations',
       body: { email: 'matrix@example.test', role: 'parent' },
-      expect: editors(201),
+      // The stranger's new account has not confirmed its address yet.
+      expect: editors(201, 403),
     },
     {
       route: 'DELETE /api/invitations/:id',

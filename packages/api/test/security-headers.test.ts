@@ -96,9 +96,6 @@ describe('security headers', () => {
   it('adds HSTS and Secure cookies in production behind a TLS proxy', async () => {
     const t = await startTestApp({
       NODE_ENV: 'production',
-      // Production refuses to start without these; no mail is sent here.
-      SMTP_URL: 'smtp://127.0.0.1:9',
-      PUBLIC_URL: 'https://workback.example.test',
       TRUST_PROXY: 'true',
       PUBLIC_URL: 'https://workback.example',
       // Production wants a relay; nothing here sends mail.

@@ -7,6 +7,8 @@ import { CurrentUser } from '../common/decorators/current-member.decorator.js';
 import { AllowNoHousehold, Public } from '../common/decorators/public.decorator.js';
 import type { SessionUser } from '../common/member-context.js';
 import type { AppConfig } from '../config/app.config.js';
+import { EmailVerificationsService } from '../email-verifications/email-verifications.service.js';
+import { publicOrigin } from '../mail/public-url.js';
 import { AuthService } from './auth.service.js';
 import { LoginDto } from './dto/login.dto.js';
 import { RegisterDto } from './dto/register.dto.js';
@@ -23,12 +25,15 @@ import {
 @Controller('auth')
 export class AuthController {
   private readonly cookieName: string;
+  private readonly publicUrl: string | undefined;
 
   constructor(
     private readonly auth: AuthService,
+    private readonly verifications: EmailVerificationsService,
     config: ConfigService,
   ) {
     this.cookieName = config.getOrThrow<AppConfig>('app').session.cookieName;
+    this.publicUrl = config.getOrThrow<AppConfig>('app').publicUrl;
   }
 
   @Public()
@@ -44,6 +49,7 @@ export class AuthController {
   @Post('register')
   async register(@Body() dto: RegisterDto, @Req() req: Request) {
     const user = await this.auth.register(dto);
+    await this.verifications.sendQuietly(user, publicOrigin(this.publicUrl, req));
     await logIn(req, user);
     startSignedInSession(req);
     return this.auth.describe(user, undefined);

@@ -1,5 +1,6 @@
 import { Module } from '@nestjs/common';
 import { PassportModule } from '@nestjs/passport';
+import { EmailVerificationsModule } from '../email-verifications/email-verifications.module.js';
 import { HouseholdsModule } from '../households/households.module.js';
 import { UsersModule } from '../users/users.module.js';
 import { AuthController } from './auth.controller.js';
@@ -9,9 +10,15 @@ import { PasswordService } from './password.service.js';
 import { SessionSerializer } from './session.serializer.js';
 
 @Module({
-  imports: [PassportModule.register({ session: true }), UsersModule, HouseholdsModule],
+  imports: [
+    PassportModule.register({ session: true }),
+    UsersModule,
+    HouseholdsModule,
+    EmailVerificationsModule,
+  ],
   controllers: [AuthController],
   providers: [AuthService, PasswordService, LocalStrategy, SessionSerializer],
-  exports: [AuthService, PasswordService],
+  // Sign-up and invitations both mail the address-confirmation link.
+  exports: [AuthService, PasswordService, EmailVerificationsModule],
 })
 export class AuthModule {}

@@ -62,11 +62,14 @@ export class AuthService {
   }
 
   toSessionUser(user: User): SessionUser {
+    const emailVerified = Boolean(user.emailVerifiedAt);
     return {
       id: user.id,
       email: user.email,
       displayName: user.displayName,
-      isAdmin: this.adminEmails.includes(user.email),
+      emailVerified,
+      // Whoever registers an admin address first must not become admin: it takes the mailbox.
+      isAdmin: emailVerified && this.adminEmails.includes(user.email),
     };
   }
 }

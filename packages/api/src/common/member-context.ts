@@ -4,6 +4,8 @@ export interface SessionUser {
   id: number;
   email: string;
   displayName: string;
+  /** The owner opened the link mailed to the address (needed to invite, and for admin rights). */
+  emailVerified: boolean;
   isAdmin: boolean;
 }
 

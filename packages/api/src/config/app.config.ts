@@ -1,7 +1,7 @@
 import { registerAs } from '@nestjs/config';
 import { fileURLToPath } from 'node:url';
 import path from 'node:path';
-import { validateEnv } from './env.validation.js';
+import { assertProductionReady, validateEnv } from './env.validation.js';
 import { loadOrCreateSecret } from './session-secret.js';
 
 export const DEMO_ADMIN_EMAIL = 'admin@workback.test';
@@ -47,12 +47,15 @@ const defaultWebDist = fileURLToPath(new URL('../../../web/dist', import.meta.ur
 
 export const appConfig = registerAs('app', (): AppConfig => {
   const env = validateEnv(process.env);
+  assertProductionReady(env);
+  // The demo (with its published password) is never seeded in production unless asked for.
+  const seedDemo = env.SEED_DEMO ?? env.NODE_ENV !== 'production';
   const dataDir = path.resolve(env.DATA_DIR);
   const admins = env.ADMIN_EMAILS.split(',')
     .map((e) => e.trim().toLowerCase())
     .filter(Boolean);
   // The demo's site-admin sign-in only exists when the demo household is seeded.
-  if (env.SEED_DEMO && !admins.includes(DEMO_ADMIN_EMAIL)) admins.push(DEMO_ADMIN_EMAIL);
+  if (seedDemo && !admins.includes(DEMO_ADMIN_EMAIL)) admins.push(DEMO_ADMIN_EMAIL);
   return {
     env: env.NODE_ENV,
     port: env.PORT,
@@ -65,7 +68,7 @@ export const appConfig = registerAs('app', (): AppConfig => {
     publicUrl: env.PUBLIC_URL,
     trustProxy: env.TRUST_PROXY,
     logLevel: env.NODE_ENV === 'test' && !process.env.LOG_LEVEL ? 'silent' : env.LOG_LEVEL,
-    seedDemo: env.SEED_DEMO,
+    seedDemo,
     adminEmails: admins,
     signInLimitPerMinute: env.SIGN_IN_LIMIT_PER_MINUTE,
     session: {

@@ -3,6 +3,7 @@ import { KeyCorrection } from '../answer-keys/models/key-correction.model.js';
 import { KeyItem } from '../answer-keys/models/key-item.model.js';
 import { CheckUp } from '../check-ups/models/check-up.model.js';
 import { Course } from '../curriculum/models/course.model.js';
+import { EmailVerificationToken } from '../email-verifications/models/email-verification-token.model.js';
 import { Lesson } from '../curriculum/models/lesson.model.js';
 import { Household } from '../households/models/household.model.js';
 import { Membership } from '../households/models/membership.model.js';
@@ -33,6 +34,7 @@ export const MODELS = [
   Student,
   Invitation,
   PasswordResetToken,
+  EmailVerificationToken,
   Miss,
   MissRule,
   MissDiagnosis,

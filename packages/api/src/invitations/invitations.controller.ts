@@ -2,6 +2,7 @@ import {
   Body,
   Controller,
   Delete,
+  ForbiddenException,
   Get,
   HttpCode,
   Param,
@@ -22,6 +23,10 @@ import { Public } from '../common/decorators/public.decorator.js';
 import { Roles } from '../common/decorators/roles.decorator.js';
 import type { MemberContext, SessionUser } from '../common/member-context.js';
 import type { AppConfig } from '../config/app.config.js';
+import {
+  EmailVerificationsService,
+  VERIFY_BEFORE_INVITING,
+} from '../email-verifications/email-verifications.service.js';
 import { publicOrigin } from '../mail/public-url.js';
 import { AcceptInvitationDto } from './dto/accept-invitation.dto.js';
 import { CreateInvitationDto } from './dto/create-invitation.dto.js';
@@ -35,6 +40,7 @@ export class InvitationsController {
   constructor(
     private readonly invitations: InvitationsService,
     private readonly auth: AuthService,
+    private readonly verifications: EmailVerificationsService,
     config: ConfigService,
   ) {
     this.publicUrl = config.getOrThrow<AppConfig>('app').publicUrl;
@@ -55,6 +61,7 @@ export class InvitationsController {
     @Body() dto: CreateInvitationDto,
     @Req() req: Request,
   ) {
+    if (!user.emailVerified) throw new ForbiddenException(VERIFY_BEFORE_INVITING);
     return this.invitations.create(member, user, dto, publicOrigin(this.publicUrl, req));
   }
 
@@ -89,7 +96,10 @@ export class InvitationsController {
     const current = req.isAuthenticated() ? req.user : undefined;
     const result = await this.invitations.accept(token, dto, current);
     const user = current ?? (await this.auth.findSessionUser(result.userId))!;
-    if (result.created) {
+    if (result.unverified) {
+      await this.verifications.sendQuietly(result.unverified, publicOrigin(this.publicUrl, req));
+    }
+    if (result.signIn) {
       await logIn(req, user);
       startSignedInSession(req);
     }

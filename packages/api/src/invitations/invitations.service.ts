@@ -1,4 +1,10 @@
-import { ConflictException, GoneException, Injectable, NotFoundException } from '@nestjs/common';
+import {
+  ConflictException,
+  GoneException,
+  Injectable,
+  NotFoundException,
+  UnauthorizedException,
+} from '@nestjs/common';
 import { InjectConnection, InjectModel } from '@nestjs/sequelize';
 import { Role } from '@workback/core';
 import { Op } from 'sequelize';
@@ -27,6 +33,22 @@ export const USED_INVITATION = 'This invitation has already been used: ask for a
 export const EXPIRED_INVITATION = 'This invitation has expired: ask for a new one';
 
 export type InvitationStatus = 'pending' | 'expired' | 'accepted';
+
+export const SIGN_IN_TO_JOIN =
+  'To join with this e-mail, sign in first, then open this link again; or choose another e-mail for a new account';
+const SIGN_IN_FIELDS = {
+  email: 'to join with this e-mail, sign in with its password first',
+  password: 'to join with this e-mail, sign in with its password first',
+};
+
+export interface AcceptResult {
+  userId: number;
+  householdId: number;
+  /** The session is to be signed in as this user (a new account, or an account's password). */
+  signIn: boolean;
+  /** A new account whose address is still to be confirmed by a mailed link. */
+  unverified?: { id: number; email: string; displayName: string };
+}
 
 @Injectable()
 export class InvitationsService {
@@ -139,15 +161,17 @@ export class InvitationsService {
   }
 
   /**
-   * Adds the signed-in user, or a new account made from the body, to the
-   * invitation's household. Single use even under a race: the claim is a
-   * conditional update inside the same transaction as the membership.
+   * Adds the signed-in user, or the person the body describes, to the invitation's household.
+   * Single use even under a race: the claim is a conditional update inside the same
+   * transaction as the membership. An e-mail that already has an account is never said to
+   * have one and never uses the invitation up: with that account's password it joins, as if
+   * signed in first; without it the answer is the one any acceptance that needs a sign-in gets.
    */
   async accept(
     token: string,
     dto: AcceptInvitationDto,
     current: SessionUser | undefined,
-  ): Promise<{ userId: number; householdId: number; created: boolean }> {
+  ): Promise<AcceptResult> {
     const invitation = await this.findUsable(token);
     const studentIds = await this.stillPresentStudents(invitation);
     if (current) {
@@ -156,20 +180,8 @@ export class InvitationsService {
           password: `you are signed in as ${current.email}: accept without a new account, or sign out first`,
         });
       }
-      if (await this.members.isMember(invitation.householdId, current.email)) {
-        throw new ConflictException('You are already a member of this household');
-      }
-      await this.sequelize.transaction(async (transaction) => {
-        await this.claim(invitation, current.id, transaction);
-        await this.households.addMember(
-          invitation.householdId,
-          current.id,
-          invitation.role,
-          studentIds,
-          transaction,
-        );
-      });
-      return { userId: current.id, householdId: invitation.householdId, created: false };
+      await this.join(invitation, current, studentIds);
+      return { userId: current.id, householdId: invitation.householdId, signIn: false };
     }
 
     const missing: Record<string, string> = {};
@@ -178,16 +190,25 @@ export class InvitationsService {
     if (dto.password === undefined) missing.password = 'password must be 8 to 128 characters';
     if (Object.keys(missing).length > 0) throw fieldsError(missing);
     const email = normalizeEmail(dto.email ?? invitation.email);
-    if (await this.users.findByEmail(email)) {
-      throw new ConflictException({
-        message: 'An account with this e-mail already exists: sign in, then open the link again',
-        fields: { email: 'already has an account: sign in first' },
-      });
+    const existing = await this.users.findByEmail(email);
+    if (existing) {
+      if (!(await this.passwords.verify(existing.passwordHash, dto.password!))) {
+        throw new UnauthorizedException({ message: SIGN_IN_TO_JOIN, fields: SIGN_IN_FIELDS });
+      }
+      await this.join(invitation, existing, studentIds);
+      return { userId: existing.id, householdId: invitation.householdId, signIn: true };
     }
+    // The link was mailed to the invitation's address: an account made with it has proved it.
+    const proved = email === invitation.email;
     const passwordHash = await this.passwords.hash(dto.password!);
     const user = await this.sequelize.transaction(async (transaction) => {
       const created = await this.users.create(
-        { email, displayName: dto.displayName!, passwordHash },
+        {
+          email,
+          displayName: dto.displayName!,
+          passwordHash,
+          ...(proved ? { emailVerifiedAt: new Date() } : {}),
+        },
         transaction,
       );
       await this.claim(invitation, created.id, transaction);
@@ -200,7 +221,33 @@ export class InvitationsService {
       );
       return created;
     });
-    return { userId: user.id, householdId: invitation.householdId, created: true };
+    return {
+      userId: user.id,
+      householdId: invitation.householdId,
+      signIn: true,
+      ...(proved ? {} : { unverified: user }),
+    };
+  }
+
+  private async join(
+    invitation: Invitation,
+    user: { id: number; email: string },
+    studentIds: number[],
+  ): Promise<void> {
+    const userId = user.id;
+    if (await this.members.isMember(invitation.householdId, user.email)) {
+      throw new ConflictException('You are already a member of this household');
+    }
+    await this.sequelize.transaction(async (transaction) => {
+      await this.claim(invitation, userId, transaction);
+      await this.households.addMember(
+        invitation.householdId,
+        userId,
+        invitation.role,
+        studentIds,
+        transaction,
+      );
+    });
   }
 
   private async findUsable(token: string): Promise<Invitation> {

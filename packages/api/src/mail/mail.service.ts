@@ -29,7 +29,8 @@ export class MailService implements OnModuleInit, OnApplicationShutdown {
 
   constructor(config: ConfigService) {
     this.config = config.getOrThrow<AppConfig>('app');
-    if (!this.config.mail.smtpUrl)
+    // Never in production: the outbox holds reset and invitation links and answers anyone.
+    if (!this.config.mail.smtpUrl && this.config.env !== 'production')
       this.outbox = new OutboxStore(path.join(this.config.dataDir, 'outbox'));
   }
 
@@ -39,7 +40,8 @@ export class MailService implements OnModuleInit, OnApplicationShutdown {
       this.mailer = new SmtpMailer(smtpUrl, from);
       return;
     }
-    const outbox = this.outbox!;
+    const outbox = this.outbox;
+    if (!outbox) throw new Error('SMTP_URL must be set in production');
     this.fake = new FakeSmtpServer(async (raw, recipients) => {
       await outbox.save(raw, recipients);
     });

@@ -50,6 +50,8 @@ export class DemoSeeder {
       householdName: demo.household.name,
       adultConfirmed: true,
     });
+    // The demo's addresses are invented: its accounts start out confirmed.
+    await this.users.markEmailVerified(owner.id);
     const ownerMember = await this.households.resolveMember(owner.id);
     if (!ownerMember) throw new Error('Demo owner has no household');
     const byName = new Map<string, number>();
@@ -57,13 +59,14 @@ export class DemoSeeder {
       byName.set(s.name, (await this.students.create(ownerMember, s)).id);
     }
     const passwordHash = await this.passwords.hash(demo.password);
+    const emailVerifiedAt = new Date();
     await this.sequelize.transaction(async (transaction) => {
       for (const m of demo.members) {
-        const user = await this.users.create({ ...m, passwordHash }, transaction);
+        const user = await this.users.create({ ...m, passwordHash, emailVerifiedAt }, transaction);
         const ids = m.students.map((name) => byName.get(name)!);
         await this.households.addMember(ownerMember.householdId, user.id, m.role, ids, transaction);
       }
-      await this.users.create({ ...demo.admin, passwordHash }, transaction);
+      await this.users.create({ ...demo.admin, passwordHash, emailVerifiedAt }, transaction);
     });
     await this.demoMisses.seed(ownerMember.householdId);
     await this.demoCurriculum.seed(ownerMember);

@@ -16,7 +16,7 @@ export class UsersService {
   }
 
   create(
-    input: { email: string; displayName: string; passwordHash: string },
+    input: { email: string; displayName: string; passwordHash: string; emailVerifiedAt?: Date },
     transaction?: Transaction,
   ): Promise<User> {
     return this.userModel.create({ ...input, email: normalizeEmail(input.email) }, { transaction });
@@ -28,6 +28,14 @@ export class UsersService {
     transaction?: Transaction,
   ): Promise<void> {
     await this.userModel.update({ passwordHash }, { where: { id }, transaction });
+  }
+
+  /** Marks the address as verified (once: a later call keeps the first time). */
+  async markEmailVerified(id: number, transaction?: Transaction): Promise<void> {
+    await this.userModel.update(
+      { emailVerifiedAt: new Date() },
+      { where: { id, emailVerifiedAt: null }, transaction },
+    );
   }
 }
 

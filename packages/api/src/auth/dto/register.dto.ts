@@ -1,6 +1,7 @@
 import { ApiProperty } from '@nestjs/swagger';
 import { Equals, IsEmail, IsString, Length, Matches } from 'class-validator';
 import { Trim } from '../../common/decorators/trim.decorator.js';
+import { IsNewPassword, NEW_PASSWORD_RULES } from '../password-policy.js';
 
 export class RegisterDto {
   @ApiProperty({ example: 'robin@example.test' })
@@ -8,9 +9,8 @@ export class RegisterDto {
   @Length(3, 254)
   email: string;
 
-  @ApiProperty({ description: '8 to 128 characters; no composition rules', minLength: 8 })
-  @IsString()
-  @Length(8, 128, { message: 'password must be 8 to 128 characters' })
+  @ApiProperty({ description: NEW_PASSWORD_RULES, minLength: 8, maxLength: 128 })
+  @IsNewPassword()
   password: string;
 
   @ApiProperty({ example: 'Robin' })

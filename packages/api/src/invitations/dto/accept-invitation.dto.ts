@@ -2,6 +2,7 @@ import { ApiPropertyOptional } from '@nestjs/swagger';
 import { IsEmail, IsString, Length, Matches } from 'class-validator';
 import { Trim } from '../../common/decorators/trim.decorator.js';
 import { IfPresent } from '../../common/decorators/if-present.decorator.js';
+import { IsNewPassword, NEW_PASSWORD_RULES } from '../../auth/password-policy.js';
 
 /** Empty when signed in; a new person sends displayName and password (and may choose the e-mail). */
 export class AcceptInvitationDto {
@@ -13,10 +14,9 @@ export class AcceptInvitationDto {
   @Matches(/\S/, { message: 'displayName must not be blank' })
   displayName?: string;
 
-  @ApiPropertyOptional({ description: '8 to 128 characters', minLength: 8 })
+  @ApiPropertyOptional({ description: NEW_PASSWORD_RULES, minLength: 8, maxLength: 128 })
   @IfPresent()
-  @IsString()
-  @Length(8, 128, { message: 'password must be 8 to 128 characters' })
+  @IsNewPassword()
   password?: string;
 
   @ApiPropertyOptional({ description: 'Defaults to the address the invitation was sent to' })

@@ -1,5 +1,6 @@
 import { ApiProperty } from '@nestjs/swagger';
 import { IsString, Length } from 'class-validator';
+import { IsNewPassword, NEW_PASSWORD_RULES } from '../../auth/password-policy.js';
 
 export class ConfirmPasswordResetDto {
   @ApiProperty({ description: 'The token from the link in the e-mail' })
@@ -7,8 +8,7 @@ export class ConfirmPasswordResetDto {
   @Length(1, 200, { message: 'token must be the code from the link in the e-mail' })
   token: string;
 
-  @ApiProperty({ description: '8 to 128 characters; no composition rules', minLength: 8 })
-  @IsString()
-  @Length(8, 128, { message: 'password must be 8 to 128 characters' })
+  @ApiProperty({ description: NEW_PASSWORD_RULES, minLength: 8, maxLength: 128 })
+  @IsNewPassword()
   password: string;
 }

@@ -13,6 +13,10 @@ export class User extends Model {
   @Column({ type: DataType.STRING, allowNull: false })
   declare passwordHash: string;
 
+  /** When the owner of the address opened the link mailed to it; null until then. */
+  @Column({ type: DataType.DATE, allowNull: true })
+  declare emailVerifiedAt: Date | null;
+
   declare createdAt: Date;
   declare updatedAt: Date;
 }
