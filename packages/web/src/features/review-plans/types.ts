@@ -2,6 +2,7 @@ import type {
   Cause,
   FactFamilyDrill,
   FirstWrongStep,
+  FocusProblem,
   LessonRange,
   MissStatus,
   PlanItemKind,
@@ -58,6 +59,14 @@ export type PlanMiss = {
   firstWrongStep: FirstWrongStep | null;
   ruleExplanation: string | null;
   working: { expected: string; child: string | null } | null;
+  ruleName?: string | null;
+};
+
+/** The plan's first page: lessons, facts and the problems most worth re-working. */
+export type PlanSummaryJson = {
+  lessons: string[];
+  facts: string[];
+  focus: FocusProblem[];
 };
 
 /** `GET /review-plans/:id`: the plan with its checklist and the misses it reviews. */
@@ -70,6 +79,7 @@ export type ReviewPlan = Omit<PlanSummary, 'missCount'> & {
   items: PlanItem[];
   covers: string[];
   notes: string[];
+  summary: PlanSummaryJson;
   warning: { code: 'same-day'; message: string; dates: string[] } | null;
 };
 

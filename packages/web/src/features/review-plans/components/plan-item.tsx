@@ -48,6 +48,16 @@ function ItemBody({ item, missById }: { item: PlanItem; missById: Map<number, Pl
           <p className="wb-activity">
             <strong>{drill.activity.title}.</strong> {drill.activity.how}
           </p>
+          {drill.alternatives?.length ? (
+            <details className="wb-plan-alternatives">
+              <summary>Other ways to practise on other days</summary>
+              {drill.alternatives.map((a) => (
+                <p key={a.id} className="wb-activity">
+                  <strong>{a.title}.</strong> {a.how}
+                </p>
+              ))}
+            </details>
+          ) : null}
         </div>
       );
     }

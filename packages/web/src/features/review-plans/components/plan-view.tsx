@@ -12,6 +12,7 @@ import { useDownloadReviewPlan, type PlanFormat } from '../api/download-review-p
 import { useReviewPlan } from '../api/get-review-plan';
 import { longDay, type PlanItem } from '../types';
 import { PlanItemRow } from './plan-item';
+import { PlanSummary } from './plan-summary';
 import { SendPlanDialog } from './send-plan-dialog';
 
 import '../review-plans.css';
@@ -30,7 +31,8 @@ const SECTIONS: readonly { kind: PlanItemKind; title: string; intro: string }[] 
   {
     kind: 'practice',
     title: 'Fresh practice problems',
-    intro: 'New problems that need the same steps. The answers are on the last page of the PDF.',
+    intro:
+      'New problems that need the same steps. The answers are on the last page of the PDF, headed “Answers”.',
   },
   {
     kind: 'miss',
@@ -129,6 +131,14 @@ export function PlanView({ planId, canSend }: { planId: number; canSend: boolean
         </div>
       </div>
       {p.warning ? <CalmDayCallout what="This review" /> : null}
+      {p.notes.length > 0 ? (
+        <Callout className="wb-callout" title="About this plan">
+          {p.notes.map((note) => (
+            <p key={note}>{note}</p>
+          ))}
+        </Callout>
+      ) : null}
+      <PlanSummary summary={p.summary} />
       <div className="wb-plan-progress wb-plan-progress-wide">
         <span>
           {p.progress.done} of {p.progress.total} done
@@ -141,6 +151,7 @@ export function PlanView({ planId, canSend }: { planId: number; canSend: boolean
           aria-label={`${p.progress.done} of ${p.progress.total} items done`}
         />
       </div>
+      <h2 className="wb-section-title">The whole plan</h2>
       <p className="wb-muted">
         Tick each item when it is done. A miss counts as resolved once every item for it is ticked.
       </p>
@@ -171,13 +182,6 @@ export function PlanView({ planId, canSend }: { planId: number; canSend: boolean
           </section>
         );
       })}
-      {p.notes.length > 0 ? (
-        <Callout className="wb-callout">
-          {p.notes.map((note) => (
-            <p key={note}>{note}</p>
-          ))}
-        </Callout>
-      ) : null}
       <SendPlanDialog planId={p.id} open={sending} onClose={() => setSending(false)} />
     </>
   );

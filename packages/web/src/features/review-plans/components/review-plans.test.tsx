@@ -35,6 +35,23 @@ const plan = {
   misses: [],
   covers: [],
   notes: [],
+  summary: {
+    lessons: [
+      'Revisit lessons 12–14: 12 “Taking away across a zero”, 13 “Two zeros”, 14 “Checking”',
+    ],
+    facts: ['× and ÷ facts with 8: 7 × 8'],
+    focus: [
+      {
+        missId: 41,
+        problem: '304 - 75',
+        answer: '139',
+        expected: '229',
+        occurredOn: '2026-03-09',
+        recurs: 1,
+        reason: 'Seen once on this plan: regrouping across zeros.',
+      },
+    ],
+  },
   warning: null,
   items: [
     {
@@ -117,6 +134,15 @@ describe('review plans', () => {
     const user = userEvent.setup();
     renderApp('/review-plans/5');
     expect(await screen.findByText('Re-work 304 - 75')).toBeInTheDocument();
+    // The summary comes first: lessons by title, facts, and the problems most worth re-working.
+    const start = screen.getByRole('region', { name: 'Start here' });
+    expect(
+      within(start).getByText(/Lessons 12–14: 12 “Taking away across a zero”/),
+    ).toBeInTheDocument();
+    expect(within(start).getByText('× and ÷ facts with 8: 7 × 8')).toBeInTheDocument();
+    expect(
+      within(start).getByText('Seen once on this plan: regrouping across zeros.'),
+    ).toBeInTheDocument();
     await user.click(screen.getByRole('checkbox', { name: 'Lessons 12–14' }));
     expect(await screen.findByText('1 of 2 done')).toBeInTheDocument();
     expect(requests.find((r) => r.method === 'PATCH')?.body).toEqual({
