@@ -30,6 +30,7 @@ interface CheckUpJson {
     ruledOut: string[];
     open: string[];
     sentence: string;
+    answers: (string | null)[];
   } | null;
 }
 
@@ -156,6 +157,7 @@ describe('taking a check-up', () => {
     expect(taken.reading!.confirmed).toBe('sub.borrow-across-zero');
     expect(taken.reading!.ruledOut).toContain('correct');
     expect(taken.reading!.sentence).toContain('Zeros skipped when regrouping');
+    expect(taken.reading!.answers).toEqual(answers);
     const wrong = checkUp.problems.filter(
       (p) => p.answers['sub.borrow-across-zero'] !== p.answers.correct,
     );

@@ -1,6 +1,6 @@
 import { Injectable, NotFoundException } from '@nestjs/common';
 import { InjectModel } from '@nestjs/sequelize';
-import { planCheckUp, readCheckUp, ruleName, type CheckUpReading } from '@workback/core';
+import { planCheckUp, readCheckUp, ruleName } from '@workback/core';
 import { Op } from 'sequelize';
 import { AnswerKeysService } from '../answer-keys/answer-keys.service.js';
 import { sameAnswer } from '../answer-keys/same-answer.js';
@@ -136,7 +136,7 @@ export class CheckUpsService {
           ];
         }),
       });
-      await row.update({ sittingId: sitting.id, reading });
+      await row.update({ sittingId: sitting.id, reading: { ...reading, answers } });
       return { ...this.toJson(row), misses: marked.misses };
     } catch (err) {
       await this.sittings.discardUnmarked(member, sitting.id);
@@ -164,7 +164,7 @@ export class CheckUpsService {
   }
 
   private toJson(row: CheckUp) {
-    const reading: CheckUpReading | null = row.reading;
+    const reading = row.reading;
     return {
       id: row.id,
       studentId: row.studentId,

@@ -111,6 +111,10 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
               lazy: lazyRoute(queryClient, () => import('./routes/patterns')),
             },
             {
+              path: paths.app.checkUp.path,
+              lazy: lazyRoute(queryClient, () => import('./routes/check-up')),
+            },
+            {
               path: paths.app.reviewPlans.path,
               lazy: lazyRoute(queryClient, () => import('./routes/review-plans')),
             },

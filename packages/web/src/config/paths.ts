@@ -51,6 +51,7 @@ export const paths = {
     },
     miss: { path: '/misses/:missId', getHref: (id: number) => `/misses/${id}` },
     patterns: { path: '/patterns', getHref: () => '/patterns' },
+    checkUp: { path: '/check-ups/:checkUpId', getHref: (id: number) => `/check-ups/${id}` },
     reviewPlans: {
       path: '/review-plans',
       getHref: (studentId?: number) =>

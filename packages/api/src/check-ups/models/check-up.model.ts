@@ -41,9 +41,9 @@ export class CheckUp extends Model {
   @Column(jsonColumn('sheet', null))
   declare sheet: StoredSheet;
 
-  /** What the child's answers said; null until the check-up is taken. */
+  /** What the child's answers said, and the answers; null until the check-up is taken. */
   @Column(jsonColumn('reading', null, true))
-  declare reading: CheckUpReading | null;
+  declare reading: (CheckUpReading & { answers: (string | null)[] }) | null;
 
   @BelongsTo(() => Student)
   declare student?: Student;
