@@ -13,6 +13,8 @@ export type CarryHabit = 'regroup' | 'drop' | 'write-sum' | 'reverse' | 'write-c
 export interface AdditionMethod {
   readonly align?: 'right' | 'left';
   readonly carry?: CarryHabit;
+  /** A basic-fact slip: the sum in this column (digits plus carry) taken as `sum`; its effect carries on to the left. */
+  readonly slip?: { readonly column: number; readonly sum: number };
 }
 
 /** The outcome of running a column-addition method. */
@@ -20,7 +22,10 @@ export interface AdditionRun {
   readonly result: string;
   readonly trace: ColumnAdditionTrace;
   /** Columns where the method did something the correct method would not, and which part of it. */
-  readonly fired: readonly { readonly column: number; readonly part: keyof AdditionMethod }[];
+  readonly fired: readonly {
+    readonly column: number;
+    readonly part: Exclude<keyof AdditionMethod, 'slip'>;
+  }[];
 }
 
 /**
@@ -39,7 +44,7 @@ export function addColumns(addends: readonly string[], method: AdditionMethod = 
   }));
   const rowDigits = addends.map((a) => digitsOf(a));
   const columns: AdditionColumn[] = [];
-  const fired: { column: number; part: keyof AdditionMethod }[] = [];
+  const fired: { column: number; part: Exclude<keyof AdditionMethod, 'slip'> }[] = [];
   const parts: string[] = [];
   let carryIn = 0;
   for (let k = 0; k < width; k += 1) {
@@ -54,7 +59,8 @@ export function addColumns(addends: readonly string[], method: AdditionMethod = 
       digits.push(d);
       if (d !== null) s += d;
     }
-    const sum = s + carryIn;
+    const sum =
+      method.slip !== undefined && method.slip.column === k ? method.slip.sum : s + carryIn;
     const leftmost = k === width - 1;
     let written: string;
     let carryOut = 0;

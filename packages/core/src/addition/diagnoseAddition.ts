@@ -2,8 +2,9 @@ import type { Answer, Problem } from '../parse/types.js';
 import type { AdditionColumn } from '../trace/types.js';
 import { placeColumn, placeName } from '../numbers/digits.js';
 import { describeOutcome } from '../diagnose/describeOutcome.js';
-import { digitSlipBesideRule } from '../diagnose/digitSlipBesideRule.js';
-import { findFactSlip, nearSlip, type FactCell } from '../diagnose/findFactSlip.js';
+import { findFactSlip, type FactCell } from '../diagnose/findFactSlip.js';
+import { slipsInRule, type SlipSite } from '../diagnose/slipsInRule.js';
+import { wrongFacts } from '../diagnose/wrongFacts.js';
 import { diagnoseWholeAnswer } from '../diagnose/diagnoseWholeAnswer.js';
 import type { Candidate, FactError, Findings } from '../diagnose/types.js';
 import { addColumns, type AdditionMethod, type AdditionRun } from './addColumns.js';
@@ -96,6 +97,27 @@ function factError(col: AdditionColumn, written: number): FactError | null {
 const factSentence = (f: FactError): string =>
   `In the ${f.where} ${f.a} + ${f.b} was taken as ${f.written} instead of ${f.expected}.`;
 
+/** Every column fact of a run where a slip could sit, at the place its digits are written. */
+function slipSites(
+  run: AdditionRun,
+): (SlipSite<NonNullable<AdditionMethod['slip']>> & { column: number })[] {
+  const sites: (SlipSite<NonNullable<AdditionMethod['slip']>> & { column: number })[] = [];
+  let position = 0;
+  for (const col of run.trace.columns) {
+    const fact = columnFact(col);
+    if (fact !== null) {
+      sites.push({
+        column: col.index,
+        position,
+        wrong: wrongFacts('+', fact.a, fact.b),
+        slip: (sum) => ({ column: col.index, sum }),
+      });
+    }
+    position += col.written.length;
+  }
+  return sites;
+}
+
 /**
  * Diagnoses a column addition: the correct working, every rule (and pair) that
  * reproduces the answer, and the first column that differs.
@@ -119,7 +141,7 @@ function searchAddition(
 ): Candidate[] {
   const expected = correct.result;
   const matches: Candidate[] = [];
-  const outcome = describeOutcome(problem.text, written, expected);
+  const outcome = describeOutcome(problem.text, written);
   const singles = ADDITION_RULES.map((rule) => ({
     rule,
     run: addColumns(problem.addends, rule.method),
@@ -139,7 +161,10 @@ function searchAddition(
   for (const col of correct.trace.columns) {
     if (columnFact(col) !== null) cells.push({ position: col.index, value: col.sum, data: col });
   }
-  const slip = findFactSlip(BigInt(written) - BigInt(expected), cells);
+  const slip = findFactSlip(BigInt(written) - BigInt(expected), cells, (cell, w) => {
+    const fact = columnFact(cell.data);
+    return fact !== null && wrongFacts('+', fact.a, fact.b).includes(w);
+  });
   if (slip !== null) {
     const fact = factError(slip.cell.data, slip.written);
     if (fact !== null) {
@@ -171,22 +196,25 @@ function searchAddition(
   }
   for (const { rule, run } of singles) {
     if (run.result === expected || run.result === written) continue;
-    const widths = run.trace.columns.map((c) => c.written.length);
-    const beside = digitSlipBesideRule(
+    const method = rule.method;
+    const found = slipsInRule(
       run.result,
       written,
-      run.fired.map((f) => f.column),
-      widths,
+      slipSites(run),
+      (slip) => addColumns(problem.addends, { ...method, slip }).result,
     );
-    if (beside === null) continue;
-    const col = run.trace.columns[beside.column] as AdditionColumn;
-    const fact = factError(col, col.sum + beside.childDigit - beside.ruleDigit);
-    if (fact === null || !nearSlip(fact.expected, fact.written)) continue;
+    const best = found[0];
+    if (best === undefined) continue;
+    const slipped = addColumns(problem.addends, { ...method, slip: best.site.slip(best.written) });
+    const col = run.trace.columns[best.site.column] as AdditionColumn;
+    const fact = factError(col, best.written);
+    if (fact === null) continue;
     matches.push({
       ids: [rule.id, 'add.fact'],
       explanation: `Two things happened together. ${rule.explain(problem, run)} ${factSentence(fact)} ${outcome}`,
-      trace: run.trace,
+      trace: slipped.trace,
       facts: [fact],
+      rank: best.rank,
     });
   }
   return matches;

@@ -246,10 +246,12 @@ function describeDiagnosis(d: Diagnosis): string {
       `The child's working as ${d.trace.child.ruleId} does it:`,
       ...formatTrace(d.trace.child.working).map((l) => `  ${l}`),
     );
+  const { nines, elevens } = d.checks;
   lines.push(
     '',
-    ...describeCheck('Casting out nines', d.checks.nines),
-    ...describeCheck('Elevens check', d.checks.elevens),
+    ...(!nines.applies && !elevens.applies && nines.reason === elevens.reason
+      ? [`Casting out nines and the elevens check: do not apply — ${nines.reason}`]
+      : [...describeCheck('Casting out nines', nines), ...describeCheck('Elevens check', elevens)]),
   );
   if (d.suggestedCause !== null)
     lines.push(
@@ -257,5 +259,21 @@ function describeDiagnosis(d: Diagnosis): string {
       `Suggested cause, for you to confirm: ${d.suggestedCause.cause}. ${d.suggestedCause.because}`,
     );
   lines.push('', 'These checks are an aid to your judgement, not a grade.', '');
-  return lines.join('\n');
+  return withoutRepeats(lines).join('\n');
+}
+
+/**
+ * Drops a sentence line that says again what an earlier line already says (a working's rule
+ * line after the explanation that quotes it), so no line on the screen repeats another.
+ * Drawing lines (digits, column labels, `= 2400`) are kept.
+ */
+function withoutRepeats(lines: readonly string[]): string[] {
+  const out: string[] = [];
+  for (const line of lines) {
+    const text = line.trim();
+    const sentence = /[a-z]{3}/i.test(text) && text.length >= 24 && text.endsWith('.');
+    if (sentence && out.some((earlier) => earlier.includes(text))) continue;
+    out.push(line);
+  }
+  return out;
 }

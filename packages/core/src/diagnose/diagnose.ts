@@ -10,6 +10,7 @@ import { diagnoseDivision } from '../division/diagnoseDivision.js';
 import { diagnoseRounding } from '../rounding/diagnoseRounding.js';
 import { diagnoseMissing } from '../missing/diagnoseMissing.js';
 import { diagnoseFractions } from '../fractions/diagnoseFractions.js';
+import { adjacentSwap } from './adjacentSwap.js';
 import { ENGINE_VERSION } from './engineVersion.js';
 import { rankMatches } from './rankMatches.js';
 import { suggestCause } from './suggestCause.js';
@@ -41,8 +42,20 @@ export function diagnose(
   const problem = parsed.problem;
   const answer = read.answer;
   const findings = findingsFor(problem, answer, steps);
-  const ranked = rankMatches(findings.matches);
-  const rules = ranked.map(({ facts: _facts, ...match }) => match);
+  // Two neighbouring digits swapped is one careless slip: simpler than a rule and a slip, or
+  // two rules, that happen to give the same digits. Only a single rule that writes exactly
+  // this answer is still offered.
+  const swap =
+    !findings.correct && answer.kind === 'whole'
+      ? adjacentSwap(findings.expected, answer.value)
+      : null;
+  const ranked = rankMatches(
+    swap === null ? findings.matches : findings.matches.filter((m) => m.ids.length === 1),
+  );
+  // The closing "Worked that way, … gives …" is said once, on the first explanation.
+  const rules = ranked.map(({ facts: _facts, rank: _rank, ...match }, i) =>
+    i === 0 ? match : { ...match, explanation: match.explanation.replace(CLOSING, '') },
+  );
   const facts = ranked[0]?.facts ?? [];
   const childRule = ranked.find((m) => m.trace !== null);
   const partial: Omit<Diagnosis, 'suggestedCause'> = {
@@ -66,6 +79,8 @@ export function diagnose(
   };
   return { ...partial, suggestedCause: suggestCause(partial) };
 }
+
+const CLOSING = /\s*Worked that way, .* gives .*\.$/;
 
 function findingsFor(problem: Problem, answer: Answer, steps: WrittenSteps | undefined): Findings {
   switch (problem.kind) {

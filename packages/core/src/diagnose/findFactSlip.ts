@@ -7,26 +7,17 @@ export interface FactCell<T> {
 }
 
 /**
- * Whether a slip is a plausible basic-fact error: off by one or two (a counting slip), the
- * usual size of a fact error in addition and subtraction (common practice, no source).
- * `nearSlip(15, 14)` → `true`; `nearSlip(2, 7)` → `false`.
- */
-export function nearSlip(expected: number, written: number): boolean {
-  return written >= 0 && written !== expected && Math.abs(written - expected) <= 2;
-}
-
-/**
  * Finds the one basic fact that, written wrongly with the rest of the (correct, exact)
  * working unchanged, turns the right result into the child's. Column methods are exact
  * sums of their facts shifted by powers of ten, so one fact off by δ changes the result by
- * δ × 10^position. Prefers the smallest slip, then the rightmost fact.
+ * δ × 10^position. `plausible` says which wrong results count (see `wrongFacts`). Prefers
+ * the smallest slip, then the rightmost fact.
  * `findFactSlip(-2n * 10n ** 0n, cells)` → the ones-column cell with `written: value − 2`.
  */
 export function findFactSlip<T>(
   difference: bigint,
   cells: readonly FactCell<T>[],
-  plausible: (cell: FactCell<T>, written: number) => boolean = (cell, written) =>
-    nearSlip(cell.value, written),
+  plausible: (cell: FactCell<T>, written: number) => boolean,
 ): { cell: FactCell<T>; written: number } | null {
   if (difference === 0n) return null;
   let best: { cell: FactCell<T>; written: number; size: number } | null = null;

@@ -13,15 +13,16 @@ function scoreOf(ids: readonly string[]): number {
 
 /**
  * Ranks candidates best first: single systematic rules, then single fact rules, then pairs
- * (two systematic rules before a rule with a fact slip); ties keep catalog order.
+ * (two systematic rules before a rule with a fact slip); ties go by the candidates' own
+ * `rank` (e.g. the smaller slip first), then catalog order.
  * Duplicates (the same ids) keep their first explanation.
  * `rankMatches([factCandidate, ruleCandidate])[0].id` → the systematic rule's id.
  */
 export function rankMatches(
   candidates: readonly Candidate[],
-): (RuleMatch & { facts: Candidate['facts'] })[] {
+): (RuleMatch & { facts: Candidate['facts']; rank: number })[] {
   const seen = new Set<string>();
-  const out: (RuleMatch & { facts: Candidate['facts'] })[] = [];
+  const out: (RuleMatch & { facts: Candidate['facts']; rank: number })[] = [];
   for (const c of candidates) {
     const id = c.ids.join('+');
     if (seen.has(id)) continue;
@@ -33,10 +34,12 @@ export function rankMatches(
       explanation: c.explanation,
       trace: c.trace,
       facts: c.facts,
+      rank: c.rank ?? 0,
     });
   }
   out.sort((a, b) => {
     if (a.score !== b.score) return b.score - a.score;
+    if (a.rank !== b.rank) return a.rank - b.rank;
     for (let k = 0; k < 2; k += 1) {
       const d = ruleOrder(a.ids[k] ?? '') - ruleOrder(b.ids[k] ?? '');
       if (d !== 0) return d;

@@ -1,12 +1,13 @@
 import { compareWhole } from '../numbers/digits.js';
 import { ruleInfo } from '../rules/catalog.js';
+import { adjacentSwap } from './adjacentSwap.js';
 import type { Diagnosis, SuggestedCause } from './types.js';
 
 /**
  * Offers the likely cause for the parent to confirm: `step` when a systematic rule
  * reproduces the answer, `fact` when only basic-fact slips explain it, `copying` when the
- * answer is the right digits shifted a column (or the right working on a number copied a
- * column off); otherwise `null`. A suggestion, never a verdict.
+ * answer is the right digits shifted a column or two neighbouring digits swapped (or the
+ * right working on a number copied a column off); otherwise `null`. A suggestion, never a verdict.
  * `suggestCause(diagnose('81 - 38', '57'))` → `{ cause: 'step', ruleIds: ['sub.smaller-from-larger'], … }`.
  */
 export function suggestCause(diagnosis: Omit<Diagnosis, 'suggestedCause'>): SuggestedCause | null {
@@ -37,6 +38,10 @@ function copyShift(d: Omit<Diagnosis, 'suggestedCause'>): string | null {
   if (d.parsedAnswer.kind !== 'whole' || !/^\d+$/.test(d.expected)) return null;
   const written = d.parsedAnswer.value;
   const expected = d.expected;
+  const swap = adjacentSwap(expected, written);
+  if (swap !== null) {
+    return `The answer has the right digits with two neighbours swapped (${swap.written} for ${swap.expected}), which often happens when writing the answer down.`;
+  }
   if (written === `${expected}0` || `${written}0` === expected) {
     return `The answer has the right digits moved one column (${written} for ${expected}), which often comes from lining up or copying.`;
   }

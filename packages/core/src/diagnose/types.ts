@@ -137,6 +137,8 @@ export interface Candidate {
   readonly explanation: string;
   readonly trace: WorkingTrace | null;
   readonly facts: readonly FactError[];
+  /** Breaks ties between candidates of the same score before catalog order (lower first; default 0). */
+  readonly rank?: number;
 }
 
 /** What one operation's diagnoser hands back to `diagnose`. */

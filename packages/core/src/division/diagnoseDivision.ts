@@ -68,7 +68,7 @@ export function diagnoseDivision(
   if (written === expected)
     return { ...base, correct: true, matches: [], firstWrongStep: null, notes };
 
-  const outcome = describeOutcome(problem.text, written, expected);
+  const outcome = describeOutcome(problem.text, written);
   const matches: Candidate[] = [];
   const fits = (
     run: { result: string; trace: LongDivisionTrace } | null,

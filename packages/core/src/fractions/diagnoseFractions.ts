@@ -60,7 +60,7 @@ export function diagnoseFractions(problem: FractionProblem, answer: Answer): Fin
     }
     return { ...base, correct: true, matches: [], firstWrongStep: null, notes };
   }
-  const outcome = describeOutcome(problem.text, answer.text, expected);
+  const outcome = describeOutcome(problem.text, answer.text);
   const matches: Candidate[] = [];
   // A rule's fraction matches as written or in simplest form.
   const writes = (t: FractionSumTrace | null): t is FractionSumTrace =>

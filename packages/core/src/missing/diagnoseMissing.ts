@@ -28,8 +28,7 @@ function searchMissing(
   correct: MissingNumberTrace,
   written: string,
 ): Candidate[] {
-  const expected = correct.result;
-  const outcome = describeOutcome(problem.text, written, expected);
+  const outcome = describeOutcome(problem.text, written);
   const matches: Candidate[] = [];
   const wrong = solveMissing(problem, 'wrong-operation');
   if (wrong !== null && wrong.result === written) {

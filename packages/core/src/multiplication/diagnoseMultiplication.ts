@@ -1,6 +1,7 @@
 import { describeOutcome } from '../diagnose/describeOutcome.js';
-import { digitSlipBesideRule } from '../diagnose/digitSlipBesideRule.js';
 import { findFactSlip, type FactCell } from '../diagnose/findFactSlip.js';
+import { slipsInRule, type SlipSite } from '../diagnose/slipsInRule.js';
+import { wrongFacts } from '../diagnose/wrongFacts.js';
 import { firstWrongColumn } from '../diagnose/firstWrongColumn.js';
 import type {
   Candidate,
@@ -51,7 +52,7 @@ export const MULTIPLICATION_METHOD_RULES: readonly MethodRule[] = [
     method: { carry: 'before' },
     explain: (run) => {
       const { c } = firstCell(run, 'carry');
-      const t = c.topDigit - c.carryIn;
+      const t = c.topDigit;
       return `At ${where(c)} the carried ${c.carryIn} was added to the ${t} before multiplying, making (${t} + ${c.carryIn}) × ${c.multiplierDigit} = ${c.product}, instead of ${t} × ${c.multiplierDigit} = ${t * c.multiplierDigit} and then adding the ${c.carryIn}.`;
     },
   },
@@ -103,20 +104,67 @@ export const MULTIPLICATION_METHOD_RULES: readonly MethodRule[] = [
 const conflict = (a: MultiplicationMethod, b: MultiplicationMethod): boolean =>
   Object.keys(a).some((key) => key in b);
 
-/**
- * A plausible wrong multiplication fact: off by one or two (7 × 8 → 54), or the product of
- * a neighbouring fact (7 × 8 → 48 or 63) (common practice, no source).
- */
-function plausibleProduct(t: number, d: number, written: number): boolean {
-  const right = t * d;
-  if (written === right || written < 0 || written > 81) return false;
-  if (Math.abs(written - right) <= 2) return true;
-  return (
-    written === t * (d + 1) ||
-    written === t * (d - 1) ||
-    written === (t + 1) * d ||
-    written === (t - 1) * d
-  );
+/** The fact worked out in a cell (`factor` is the top digit, or top digit plus carry when added first), written as `written`. */
+function cellFact(
+  c: ProductCell,
+  factor: number,
+  written: number,
+  top: string,
+  bottom: string,
+  p: PartialProduct,
+): FactError {
+  return {
+    op: 'x',
+    a: factor,
+    b: c.multiplierDigit,
+    expected: factor * c.multiplierDigit,
+    written,
+    where: `${
+      top.length === 1 && bottom.length === 1
+        ? 'the basic fact'
+        : bottom.length === 1
+          ? `${placeName(c.index)} digit of ${top}`
+          : `${placeName(c.index)} digit of ${top} times the ${placeName(p.multiplierIndex)} digit of ${bottom}`
+    }${factor === c.topDigit ? '' : `, the ${c.topDigit} with the carried ${factor - c.topDigit} added first`}`,
+  };
+}
+
+/** Every product a run works out where a slip could sit, at the place its digits are written. */
+function slipSites(
+  run: MultiplicationRun,
+  method: MultiplicationMethod,
+): (SlipSite<NonNullable<MultiplicationMethod['slip']>> & {
+  partial: number;
+  column: number;
+  factor: number;
+})[] {
+  const sites: (SlipSite<NonNullable<MultiplicationMethod['slip']>> & {
+    partial: number;
+    column: number;
+    factor: number;
+  })[] = [];
+  run.trace.partials.forEach((p, j) => {
+    let position = p.shift;
+    p.cells.forEach((c, i) => {
+      const rote = run.fired.some(
+        (f) => f.partial === j && f.column === i && f.part === 'zeroDigit',
+      );
+      const factor = method.carry === 'before' ? c.topDigit + c.carryIn : c.topDigit;
+      // A top digit made 10 or more by adding the carry first is no longer a basic fact.
+      if (!rote && factor <= 9) {
+        sites.push({
+          partial: j,
+          column: i,
+          factor,
+          position,
+          wrong: wrongFacts('x', factor, c.multiplierDigit),
+          slip: (product) => ({ partial: j, column: i, product }),
+        });
+      }
+      position += c.written.length;
+    });
+  });
+  return sites;
 }
 
 const factSentence = (f: FactError): string =>
@@ -171,7 +219,7 @@ export function diagnoseMultiplication(
   if (written === expected)
     return { ...base, correct: true, matches: [], firstWrongStep: null, notes };
 
-  const outcome = describeOutcome(problem.text, written, expected);
+  const outcome = describeOutcome(problem.text, written);
   const matches: Candidate[] = [];
   const singles = MULTIPLICATION_METHOD_RULES.map((rule) => ({
     rule,
@@ -236,37 +284,29 @@ export function diagnoseMultiplication(
     for (const c of p.cells)
       cells.push({ position: c.index + p.multiplierIndex, value: c.product, data: { p, c } });
   }
-  const slip = findFactSlip(BigInt(written) - BigInt(expected), cells, (cell, w) =>
-    plausibleProduct(cell.data.c.topDigit, cell.data.c.multiplierDigit, w),
+  // With written partial products, the slip must sit in the partial product that shows it.
+  const slip = findFactSlip(
+    BigInt(written) - BigInt(expected),
+    cells,
+    (cell, w) =>
+      wrongFacts('x', cell.data.c.topDigit, cell.data.c.multiplierDigit).includes(w) &&
+      (partials === undefined ||
+        partialsAgree(
+          multiplyLong(top, bottom, {
+            slip: { partial: cell.data.p.multiplierIndex, column: cell.data.c.index, product: w },
+          }).trace,
+          partials,
+        )),
   );
   if (slip !== null) {
     const { p, c } = slip.cell.data;
-    const fact: FactError = {
-      op: 'x',
-      a: c.topDigit,
-      b: c.multiplierDigit,
-      expected: c.product,
-      written: slip.written,
-      where:
-        top.length === 1 && bottom.length === 1
-          ? 'the basic fact'
-          : bottom.length === 1
-            ? `${placeName(c.index)} digit of ${top}`
-            : `${placeName(c.index)} digit of ${top} times the ${placeName(p.multiplierIndex)} digit of ${bottom}`,
-    };
-    const slipped =
-      partials === undefined
-        ? true
-        : partials.some(
-            (w, i) => !sameNumber(w, (correct.trace.partials[i] as PartialProduct).value),
-          );
-    if (slipped)
-      matches.push({
-        ids: ['mul.fact'],
-        explanation: `${factSentence(fact)} The rest of the working is right, which gives ${written}.`,
-        trace: null,
-        facts: [fact],
-      });
+    const fact = cellFact(c, c.topDigit, slip.written, top, bottom, p);
+    matches.push({
+      ids: ['mul.fact'],
+      explanation: `${factSentence(fact)} The rest of the working is right, which gives ${written}.`,
+      trace: null,
+      facts: [fact],
+    });
   }
 
   for (let i = 0; i < singles.length; i += 1) {
@@ -291,35 +331,26 @@ export function diagnoseMultiplication(
       });
     }
   }
-  if (correct.trace.partials.length === 1 && partials === undefined) {
-    for (const { rule, run } of singles) {
-      if (run.result === expected || run.result === written) continue;
-      const cellsRun = (run.trace.partials[0] as PartialProduct).cells;
-      const beside = digitSlipBesideRule(
-        run.result,
-        written,
-        run.fired.map((f) => f.column),
-        cellsRun.map((c) => c.written.length),
-      );
-      if (beside === null) continue;
-      const c = cellsRun[beside.column] as ProductCell;
-      const w = c.product + beside.childDigit - beside.ruleDigit;
-      if (!plausibleProduct(c.topDigit, c.multiplierDigit, w)) continue;
-      const fact: FactError = {
-        op: 'x',
-        a: c.topDigit,
-        b: c.multiplierDigit,
-        expected: c.product,
-        written: w,
-        where: `${placeName(c.index)} digit`,
-      };
-      matches.push({
-        ids: [rule.id, 'mul.fact'],
-        explanation: `Two things happened together. ${rule.explain(run)} ${factSentence(fact)} ${outcome}`,
-        trace: run.trace,
-        facts: [fact],
-      });
-    }
+  for (const { rule, run } of singles) {
+    if (run.result === expected || run.result === written) continue;
+    const method = rule.method;
+    const found = slipsInRule(run.result, written, slipSites(run, method), (slip) => {
+      const r = multiplyLong(top, bottom, { ...method, slip });
+      return stepsFit(r.trace) ? r.result : null;
+    });
+    const best = found[0];
+    if (best === undefined) continue;
+    const slipped = multiplyLong(top, bottom, { ...method, slip: best.site.slip(best.written) });
+    const p = run.trace.partials[best.site.partial] as PartialProduct;
+    const c = p.cells[best.site.column] as ProductCell;
+    const fact = cellFact(c, best.site.factor, best.written, top, bottom, p);
+    matches.push({
+      ids: [rule.id, 'mul.fact'],
+      explanation: `Two things happened together. ${rule.explain(run)} ${factSentence(fact)} ${outcome}`,
+      trace: slipped.trace,
+      facts: [fact],
+      rank: best.rank,
+    });
   }
   return { ...base, correct: false, matches, firstWrongStep: firstWrong, notes };
 }

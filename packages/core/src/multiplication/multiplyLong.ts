@@ -16,6 +16,8 @@ export interface MultiplicationMethod {
   readonly zeroDigit?: 'zero' | 'n';
   /** `shift` (correct: move each partial product one more place left) or `none`. */
   readonly placeholder?: 'shift' | 'none';
+  /** A basic-fact slip: the product of this cell (partial product, top-digit column) taken as `product`; its effect carries on. */
+  readonly slip?: { readonly partial: number; readonly column: number; readonly product: number };
 }
 
 export interface MultiplicationRun {
@@ -25,7 +27,7 @@ export interface MultiplicationRun {
   readonly fired: readonly {
     readonly partial: number;
     readonly column: number;
-    readonly part: keyof MultiplicationMethod;
+    readonly part: Exclude<keyof MultiplicationMethod, 'slip'>;
   }[];
 }
 
@@ -45,7 +47,12 @@ export function multiplyLong(
   const placeholder = method.placeholder ?? 'shift';
   const t = digitsOf(top);
   const b = digitsOf(bottom);
-  const fired: { partial: number; column: number; part: keyof MultiplicationMethod }[] = [];
+  const fired: {
+    partial: number;
+    column: number;
+    part: Exclude<keyof MultiplicationMethod, 'slip'>;
+  }[] = [];
+  const slip = method.slip;
   const partials: PartialProduct[] = [];
   for (let j = 0; j < b.length; j += 1) {
     const d = b[j] as number;
@@ -66,6 +73,7 @@ export function multiplyLong(
         product = factor === 0 ? d : factor;
         fired.push({ partial: j, column: i, part: 'zeroDigit' });
       }
+      if (slip !== undefined && slip.partial === j && slip.column === i) product = slip.product;
       const total = carryHabit === 'add' || carryHabit === 'reverse' ? product + carryIn : product;
       let written: string;
       carry = 0;

@@ -44,8 +44,11 @@ export function diagnoseRounding(problem: RoundingProblem, answer: Answer): Find
   const written = answer.value;
   if (written === expected)
     return { ...base, correct: true, matches: [], firstWrongStep: null, notes: [] };
-  const outcome = describeOutcome(problem.text, written, expected);
+  const outcome = describeOutcome(problem.text, written);
   const matches: Candidate[] = [];
+  // When the dropped digits are exactly 5 then zeros, truncating and rounding a bare 5 down
+  // write the same answer; the more particular habit, half-down, is named first.
+  const bareFive = roundToPlace(problem.value, problem.place.exponent, 'half-down') !== null;
   for (const rule of ROUNDING_RULES) {
     const trace = roundToPlace(problem.value, problem.place.exponent, rule.habit);
     if (trace !== null && trace.result === written && trace.result !== expected) {
@@ -54,6 +57,7 @@ export function diagnoseRounding(problem: RoundingProblem, answer: Answer): Find
         explanation: `${explain(trace, correct)} ${outcome}`,
         trace,
         facts: [],
+        rank: bareFive && rule.habit === 'truncate' ? 1 : 0,
       });
     }
   }
@@ -69,7 +73,7 @@ export function diagnoseRounding(problem: RoundingProblem, answer: Answer): Find
       place,
       expected: (e[i] ?? ' ').trim(),
       written: (w[i] ?? ' ').trim(),
-      note: `In the ${place} place the rounded number has ${(e[i] ?? ' ').trim() || 'no digit'}; the answer has ${(w[i] ?? ' ').trim() || 'no digit'}. ${correct.rule}`,
+      note: `In the ${place} place the rounded number has ${(e[i] ?? ' ').trim() || 'no digit'}; the answer has ${(w[i] ?? ' ').trim() || 'no digit'}.`,
     };
     break;
   }

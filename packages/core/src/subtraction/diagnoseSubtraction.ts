@@ -2,8 +2,9 @@ import type { Answer, Problem } from '../parse/types.js';
 import type { SubtractionColumn } from '../trace/types.js';
 import { placeColumn, placeName } from '../numbers/digits.js';
 import { describeOutcome } from '../diagnose/describeOutcome.js';
-import { digitSlipBesideRule } from '../diagnose/digitSlipBesideRule.js';
-import { findFactSlip, nearSlip, type FactCell } from '../diagnose/findFactSlip.js';
+import { findFactSlip, type FactCell } from '../diagnose/findFactSlip.js';
+import { slipsInRule, type SlipSite } from '../diagnose/slipsInRule.js';
+import { wrongFacts } from '../diagnose/wrongFacts.js';
 import { diagnoseWholeAnswer } from '../diagnose/diagnoseWholeAnswer.js';
 import type { Candidate, FactError, Findings } from '../diagnose/types.js';
 import { runSubtraction } from './runSubtraction.js';
@@ -44,7 +45,9 @@ export const SUBTRACTION_RULES: readonly SubtractionRule[] = [
       const lender =
         left === undefined
           ? ''
-          : ` (it stayed ${left.marks[0] ?? 0} instead of becoming ${(left.marks[0] ?? 0) - 1})`;
+          : (left.marks[0] ?? 0) === 0
+            ? ' (it stayed 0; the usual working takes one from the digit to its left, and the 0 becomes 9)'
+            : ` (it stayed ${left.marks[0] ?? 0} instead of becoming ${(left.marks[0] ?? 0) - 1})`;
       return `In the ${placeColumn(c.index)} ten was added to make ${c.used} − ${c.bottom ?? 0} = ${c.written}, but nothing was taken from the ${placeName(c.index + 1)} digit${lender}.`;
     },
   },
@@ -123,6 +126,35 @@ function factError(c: SubtractionColumn, written: number): FactError | null {
   };
 }
 
+/** Whether a column's digit was written by rote (0 − N or N − 0 by a rule), not worked out. */
+const byRote = (run: SubtractionRun, k: number): boolean =>
+  run.fired.some((f) => f.column === k && (f.part === 'zeroTop' || f.part === 'minusZero'));
+
+/** The fact a run works out in column `k` (smaller from larger reverses it), written as `written`. */
+function factOf(run: SubtractionRun, k: number, written: number): FactError {
+  const c = col(run, k);
+  const reversed = run.fired.some((f) => f.column === k && f.part === 'compare');
+  const [a, b] = reversed ? [c.bottom ?? 0, c.used] : [c.used, c.bottom ?? 0];
+  return { op: '-', a, b, expected: a - b, written, where: placeColumn(k) };
+}
+
+/** Every column fact of a run where a slip could sit. */
+function slipSites(
+  run: SubtractionRun,
+): (SlipSite<NonNullable<SubtractionMethod['slip']>> & { column: number })[] {
+  return run.trace.columns
+    .filter((c) => c.bottom !== null && !byRote(run, c.index))
+    .map((c) => {
+      const f = factOf(run, c.index, c.written);
+      return {
+        column: c.index,
+        position: c.index,
+        wrong: wrongFacts('-', f.a, f.b),
+        slip: (difference: number) => ({ column: c.index, difference }),
+      };
+    });
+}
+
 /**
  * Diagnoses a column subtraction: the correct working, every rule (and pair) that
  * reproduces the answer, and the first column that differs.
@@ -146,7 +178,7 @@ function searchSubtraction(
 ): Candidate[] {
   const expected = correct.result;
   const matches: Candidate[] = [];
-  const outcome = describeOutcome(problem.text, written, expected);
+  const outcome = describeOutcome(problem.text, written);
   const { minuend, subtrahend } = problem;
   // Trial runs skip the trace; the working is drawn again only for the methods that match.
   const traced = (method: SubtractionMethod): SubtractionRun =>
@@ -172,10 +204,8 @@ function searchSubtraction(
   const cells: FactCell<SubtractionColumn>[] = [];
   for (const c of correct.trace.columns)
     if (c.bottom !== null) cells.push({ position: c.index, value: c.written, data: c });
-  const slip = findFactSlip(
-    BigInt(written) - BigInt(expected),
-    cells,
-    (cell, w) => w <= 9 && nearSlip(cell.value, w),
+  const slip = findFactSlip(BigInt(written) - BigInt(expected), cells, (cell, w) =>
+    wrongFacts('-', cell.data.used, cell.data.bottom ?? 0).includes(w),
   );
   if (slip !== null) {
     const fact = factError(slip.cell.data, slip.written);
@@ -214,20 +244,26 @@ function searchSubtraction(
       });
     }
   }
-  const oneDigitEach = correct.trace.columns.map(() => 1);
   for (const { rule, run: trial } of singles) {
     if (trial === null || trial.result === expected || trial.result === written) continue;
-    const fired = trial.fired.map((f) => f.column);
-    const beside = digitSlipBesideRule(trial.result, written, fired, oneDigitEach);
-    if (beside === null) continue;
     const run = traced(rule.method);
-    const fact = factError(col(run, beside.column), beside.childDigit);
-    if (fact === null || !nearSlip(fact.expected, fact.written)) continue;
+    const found = slipsInRule(
+      trial.result,
+      written,
+      slipSites(run),
+      (slip) =>
+        runSubtraction(minuend, subtrahend, { ...rule.method, slip }, false)?.result ?? null,
+    );
+    const best = found[0];
+    if (best === undefined) continue;
+    const slipped = traced({ ...rule.method, slip: best.site.slip(best.written) });
+    const fact = factOf(run, best.site.column, best.written);
     matches.push({
       ids: [rule.id, 'sub.fact'],
       explanation: `Two things happened together. ${rule.explain(problem, run)} ${factSentence(fact)} ${outcome}`,
-      trace: run.trace,
+      trace: slipped.trace,
       facts: [fact],
+      rank: best.rank,
     });
   }
   return matches;

@@ -28,8 +28,12 @@ export function runSubtraction(
   const bottomAt = (k: number): number | null =>
     k - shift >= 0 ? (bottomDigits[k - shift] ?? null) : null;
   const regroupings: Regrouping[] = [];
-  const fired: { column: number; part: keyof SubtractionMethod }[] = [];
+  const fired: { column: number; part: Exclude<keyof SubtractionMethod, 'slip'> }[] = [];
   const written: number[] = [];
+  const slip = method.slip;
+  // A slip only replaces a difference actually worked out (not a 0 − N or N − 0 written by rote).
+  const differ = (k: number, value: number): number =>
+    slip !== undefined && slip.column === k ? slip.difference : value;
   const lend = (from: number, to: number): void => {
     cur[from] = (cur[from] as number) - 1;
     if (record) (marks[from] as number[]).push(cur[from] as number);
@@ -43,21 +47,23 @@ export function runSubtraction(
     const bv = b ?? 0;
     if (shift > 0 && b !== (bottomDigits[k] ?? null)) fired.push({ column: k, part: 'align' });
     if (zeroTop !== 'regroup' && t === 0 && b !== null && b > 0) {
+      if (slip !== undefined && slip.column === k) return null;
       written.push(zeroTop === 'n' ? b : 0);
       fired.push({ column: k, part: 'zeroTop' });
       continue;
     }
     if (minusZero === 'zero' && b === 0 && t > 0) {
+      if (slip !== undefined && slip.column === k) return null;
       written.push(0);
       fired.push({ column: k, part: 'minusZero' });
       continue;
     }
     if (t >= bv) {
-      written.push(t - bv);
+      written.push(differ(k, t - bv));
       continue;
     }
     if (compare === 'smaller-from-larger') {
-      written.push(bv - t);
+      written.push(differ(k, bv - t));
       fired.push({ column: k, part: 'compare' });
       continue;
     }
@@ -65,7 +71,7 @@ export function runSubtraction(
       cur[k] = t + 10;
       if (record) (marks[k] as number[]).push(t + 10);
       regroupings.push({ from: null, to: k, kind: 'no-decrement' });
-      written.push(t + 10 - bv);
+      written.push(differ(k, t + 10 - bv));
       fired.push({ column: k, part: 'decrement' });
       continue;
     }
@@ -98,7 +104,7 @@ export function runSubtraction(
         }
       }
     }
-    written.push((cur[k] as number) - bv);
+    written.push(differ(k, (cur[k] as number) - bv));
   }
 
   let text = '';

@@ -14,13 +14,18 @@ export interface SubtractionMethod {
   readonly zeroTop?: 'regroup' | 'n' | 'zero';
   /** A column N − 0: `n` (correct) or written as `zero`. */
   readonly minusZero?: 'n' | 'zero';
+  /** A basic-fact slip: the difference worked out in this column written as `difference` (0–9). */
+  readonly slip?: { readonly column: number; readonly difference: number };
 }
 
 export interface SubtractionRun {
   readonly result: string;
   readonly trace: ColumnSubtractionTrace;
   /** Columns where the method did something the correct method would not, and which part of it. */
-  readonly fired: readonly { readonly column: number; readonly part: keyof SubtractionMethod }[];
+  readonly fired: readonly {
+    readonly column: number;
+    readonly part: Exclude<keyof SubtractionMethod, 'slip'>;
+  }[];
 }
 
 /**
