@@ -121,6 +121,7 @@ export { factFamiliesOf } from './patterns/factFamiliesOf.js';
 export { factFamilyLabel } from './patterns/factFamilyLabel.js';
 export { factText } from './patterns/factText.js';
 export { ruleName } from './patterns/ruleName.js';
+export { groupDifficulties } from './patterns/groupDifficulties.js';
 export { isoWeekOf } from './patterns/isoWeekOf.js';
 export type { IsoWeek } from './patterns/isoWeekOf.js';
 export type {
@@ -144,6 +145,7 @@ export type {
   RuleFinding,
   FindingGroup,
   Findings,
+  Difficulty,
   Patterns,
 } from './patterns/types.js';
 

@@ -3,6 +3,7 @@ import { countRules } from './countRules.js';
 import { countSkills } from './countSkills.js';
 import { factGaps } from './factGaps.js';
 import { findRecurring, type RecurringOptions } from './findRecurring.js';
+import { groupDifficulties } from './groupDifficulties.js';
 import { rankFindings } from './rankFindings.js';
 import type { PatternMiss, Patterns, RightItem } from './types.js';
 
@@ -21,12 +22,15 @@ export function computePatterns(
     readonly to?: string;
   } = {},
 ): Patterns {
+  const recurring = findRecurring(misses, options);
+  const findings = rankFindings(misses, options.rightItems ?? []);
   return {
     causeMix: causeMixByWeek(misses, { from: options.from, to: options.to }),
     rules: countRules(misses),
     skills: countSkills(misses),
     facts: factGaps(misses),
-    recurring: findRecurring(misses, options),
-    findings: rankFindings(misses, options.rightItems ?? []),
+    recurring,
+    findings,
+    difficulties: groupDifficulties(misses, { findings, recurring }),
   };
 }

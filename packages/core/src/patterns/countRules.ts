@@ -1,4 +1,5 @@
 import { RULES, ruleInfo } from '../rules/catalog.js';
+import { ruleName } from './ruleName.js';
 import { bySeen, seenTally } from './seenTally.js';
 import type { PatternMiss, RuleCount } from './types.js';
 
@@ -16,7 +17,7 @@ export function countRules(misses: readonly PatternMiss[]): RuleCount[] {
       const info = ruleInfo(ruleId);
       return {
         ruleId,
-        title: info?.title ?? ruleId,
+        title: ruleName(ruleId),
         kind: info?.kind ?? 'systematic',
         ...seen,
       } satisfies RuleCount;

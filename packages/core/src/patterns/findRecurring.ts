@@ -1,4 +1,4 @@
-import { ruleInfo } from '../rules/catalog.js';
+import { ruleName } from './ruleName.js';
 import { dateOfDay, dayNumber } from './dayNumber.js';
 import { factFamiliesOf } from './factFamiliesOf.js';
 import { factFamilyLabel } from './factFamilyLabel.js';
@@ -124,7 +124,7 @@ function lastPlanCovering(plans: readonly ReviewedPlan[], key: string): Reviewed
 }
 
 function labelOf(kind: PatternKind, id: string): string {
-  if (kind === 'rule') return ruleInfo(id)?.title ?? id;
+  if (kind === 'rule') return ruleName(id);
   if (kind === 'fact') return factFamilyLabel(id);
   return id;
 }

@@ -168,8 +168,63 @@ describe('computePatterns', () => {
       'facts',
       'recurring',
       'findings',
+      'difficulties',
     ]);
     expect(p.rules[0]!.ruleId).toBe('sub.borrow-across-zero');
     expect(p.recurring).toEqual([]);
+  });
+});
+
+describe('groupDifficulties', () => {
+  // DESIGN.md's catalog: 304 − 75 → 139 and 605 − 48 → 467 skip zeros (sub.borrow-across-zero);
+  // 1300 − 522 → 878 and 700 − 24 → 776 change a 0 to 9 only (sub.borrow-from-zero).
+  const zeros = 'regrouping across zeros';
+  const misses = [
+    missOf('2026-03-02', '304 - 75', '139', { id: 1, skills: [zeros] }),
+    missOf('2026-03-05', '605 - 48', '467', { id: 2, skills: [zeros] }),
+    missOf('2026-03-10', '1300 - 522', '878', { id: 3, skills: [zeros] }),
+    missOf('2026-03-17', '700 - 24', '776', { id: 4, skills: [zeros] }),
+    missOf('2026-03-18', '58 + 67', '115', { id: 5, skills: ['adding with regrouping'] }),
+  ];
+  const p = computePatterns(misses, { asOf: '2026-03-31' });
+
+  it('makes one card of a rule, its skill and its family group', () => {
+    const zero = p.difficulties.filter((d) => d.ruleIds.some((id) => id.startsWith('sub.')));
+    expect(zero).toHaveLength(1);
+    expect(zero[0]).toMatchObject({
+      key: 'group:zero-regrouping',
+      title: 'Regrouping across zeros',
+      skills: [zeros],
+      count: 4,
+    });
+    expect(zero[0]!.ruleIds).toEqual(
+      expect.arrayContaining(['sub.borrow-across-zero', 'sub.borrow-from-zero']),
+    );
+    expect(zero[0]!.patternKeys).toContain(`skill:${zeros}`);
+    // No separate card for the skill, nor for either rule.
+    expect(p.difficulties.map((d) => d.key)).not.toContain(`skill:${zeros}`);
+    expect(p.difficulties.map((d) => d.key)).not.toContain('rule:sub.borrow-across-zero');
+  });
+
+  it('lists the problems themselves, latest first', () => {
+    const zero = p.difficulties[0]!;
+    expect(zero.evidence.map((e) => [e.problem, e.answer, e.occurredOn])[0]).toEqual([
+      '700 − 24',
+      '776',
+      '2026-03-17',
+    ]);
+  });
+
+  it('calls a card a finding only when one of its rules meets the definition', () => {
+    for (const d of p.difficulties) {
+      const rules = p.findings.rules.filter((r) => d.ruleIds.includes(r.ruleId));
+      const meets = rules.some((r) => r.explains >= 2 && r.contradictions.length === 0);
+      expect(d.status === 'finding', d.key).toBe(meets);
+    }
+    expect(p.difficulties[0]!.status).toBe('finding');
+    expect(p.difficulties.find((d) => d.key === 'rule:add.no-carry')).toMatchObject({
+      status: 'possible',
+      title: 'Carry dropped (addition)',
+    });
   });
 });

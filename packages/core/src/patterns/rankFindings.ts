@@ -1,4 +1,5 @@
 import { diagnose } from '../diagnose/diagnose.js';
+import { ruleName } from './ruleName.js';
 import type { Problem } from '../parse/types.js';
 import { parseProblem } from '../parse/parseProblem.js';
 import { applyRule } from '../rules/applyRule.js';
@@ -62,7 +63,7 @@ export function rankFindings(
       const against = contradictionsOf(ruleId);
       return {
         ruleId,
-        title: ruleInfo(ruleId)?.title ?? ruleId,
+        title: ruleName(ruleId),
         status: explained.length >= 2 && against.length === 0 ? 'finding' : 'possible',
         explains: explained.length,
         inPairs: (pairs.get(ruleId) ?? []).filter((m) => !explained.includes(m)).length,
@@ -92,7 +93,7 @@ export function rankFindings(
     const against = lists[0]!.filter((c) =>
       lists.every((l) => l.some((o) => o.problem === c.problem && o.occurredOn === c.occurredOn)),
     );
-    const titles = seen.map((id) => ruleInfo(id)?.title ?? id);
+    const titles = seen.map(ruleName);
     groups.push({
       group: g.group,
       title: g.title,

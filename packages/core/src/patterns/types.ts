@@ -181,6 +181,29 @@ export interface Findings {
   readonly groups: readonly FindingGroup[];
 }
 
+/** One difficulty as a tutor reads it: rules, skill and rule family merged into one card. */
+export interface Difficulty {
+  /** `'group:zero-regrouping'`, `'rule:add.no-carry'`, `'fact:x7'`, `'skill:remainders'`. */
+  readonly key: string;
+  readonly kind: 'method' | 'fact' | 'skill';
+  /** A plain name: the rule family's title, a unique rule name, a fact family or the skill's own words. */
+  readonly title: string;
+  /** `finding` — one of its rules meets the page's definition; `recurring` — came back 3+ times in 30 days; else `possible`. */
+  readonly status: 'finding' | 'recurring' | 'possible';
+  readonly sentence: string;
+  readonly ruleIds: readonly string[];
+  /** The skills its misses are on, in the answer key's own words. */
+  readonly skills: readonly string[];
+  /** The recurring pattern keys merged into it (notes are kept under the first). */
+  readonly patternKeys: readonly string[];
+  readonly count: number;
+  /** Its misses, latest first. */
+  readonly evidence: readonly MissEvidence[];
+  /** The recurring pattern with most misses merged into it, if any (review status). */
+  readonly recurring: RecurringPattern | null;
+  readonly contradictions: readonly Contradiction[];
+}
+
 export interface Patterns {
   readonly causeMix: readonly WeekCauseMix[];
   readonly rules: readonly RuleCount[];
@@ -188,4 +211,6 @@ export interface Patterns {
   readonly facts: FactGaps;
   readonly recurring: readonly RecurringPattern[];
   readonly findings: Findings;
+  /** One card per difficulty (see `groupDifficulties`). */
+  readonly difficulties: readonly Difficulty[];
 }
