@@ -106,6 +106,10 @@ export type {
   MergedCandidate,
 } from './checkup/types.js';
 
+// Word problems: the child's number sentences, line by line
+export { checkLines } from './lines/checkLines.js';
+export type { CheckedLine, CheckedLines } from './lines/checkLines.js';
+
 // Patterns across a student's misses
 export { computePatterns } from './patterns/computePatterns.js';
 export { causeMixByWeek } from './patterns/causeMixByWeek.js';

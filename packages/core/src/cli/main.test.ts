@@ -147,3 +147,29 @@ describe('workback checkup', () => {
     );
   });
 });
+
+describe('workback lines', () => {
+  it('--json names the first wrong line and the lines that follow from it (issue 16)', () => {
+    const { code, out, err } = run('lines', '4 x 15 = 60', '60 - 18 = 52', '52 + 7 = 59', '--json');
+    expect(err).toBe('');
+    expect(code).toBe(0);
+    const checked = JSON.parse(out) as {
+      firstWrongLine: number;
+      lines: { ok: boolean; expected: string; followsFrom: number | null }[];
+    };
+    expect(checked.firstWrongLine).toBe(2);
+    expect(checked.lines.map((l) => l.ok)).toEqual([true, false, true]);
+    expect(checked.lines[1]!.expected).toBe('42');
+    expect(checked.lines[2]!.followsFrom).toBe(2);
+  });
+
+  it('prints each line with its verdict by default, and exits 2 on a line it cannot read', () => {
+    const { code, out } = run('lines', '4 x 15 = 60', '60 - 18 = 52');
+    expect(code).toBe(0);
+    expect(out).toContain('differs: it comes to 42');
+    const bad = run('lines', '60 take away 18');
+    expect(bad.code).toBe(2);
+    expect(bad.err).toContain('no “=”');
+    expect(run('lines').code).toBe(2);
+  });
+});

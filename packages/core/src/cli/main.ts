@@ -6,6 +6,7 @@ import type { Diagnosis, WrittenSteps } from '../diagnose/types.js';
 import { parseAnswer } from '../parse/parseAnswer.js';
 import { parseProblem } from '../parse/parseProblem.js';
 import { planCheckUp } from '../checkup/planCheckUp.js';
+import { checkLines } from '../lines/checkLines.js';
 import { practiceFor } from '../practice/practiceFor.js';
 import { formatTrace } from './formatTrace.js';
 
@@ -21,6 +22,7 @@ Usage:
   workback nines "<problem>" "<answer>" [--json]
   workback practice <ruleId> [--count N] [--digits N] [--seed N] [--json]
   workback checkup <ruleId> [<ruleId> …] [--digits N] [--seed N] [--json]
+  workback lines "<sentence>" ["<sentence>" …] [--json]
   workback --help
 
 Examples:
@@ -29,6 +31,7 @@ Examples:
   workback nines "347 + 589" "936" --json
   workback practice sub.borrow-across-zero --count 5 --digits 4
   workback checkup sub.borrow-across-zero sub.borrow-from-zero --digits 4
+  workback lines "4 x 15 = 60" "60 - 18 = 52" "52 + 7 = 59"
 
 Exit status: 0 when a diagnosis (or check, practice set or check-up) was produced, 2 when the
 problem, the answer or the command could not be read.
@@ -126,6 +129,33 @@ export function main(argv: readonly string[], out: Output, err: Output): number 
             '',
           ].join('\n'),
     );
+    return 0;
+  }
+
+  if (command === 'lines') {
+    if (rest.length === 0)
+      return fail(
+        'lines needs the child’s number sentences, e.g. workback lines "4 x 15 = 60" "60 - 18 = 42".',
+      );
+    const checked = checkLines(rest);
+    if (!checked.ok) return fail(checked.error.message);
+    if (json) {
+      out.write(`${JSON.stringify(checked, null, 2)}\n`);
+      return 0;
+    }
+    const lines = checked.lines.map((l) => {
+      const verdict = l.ok ? 'right' : `differs: it comes to ${l.expected}`;
+      const follows = l.followsFrom === null ? '' : ` (follows from line ${l.followsFrom})`;
+      const rule = l.ok ? '' : (l.diagnosis.rules[0]?.explanation ?? '');
+      return `${l.line}. ${l.text}    ${verdict}${follows}${rule ? `\n     ${rule}` : ''}`;
+    });
+    lines.push(
+      checked.firstWrongLine === null
+        ? 'Every sentence is worked right; whether they answer the question is your call.'
+        : `The first sentence that differs is line ${checked.firstWrongLine}.`,
+      '',
+    );
+    out.write(lines.join('\n'));
     return 0;
   }
 
