@@ -1,8 +1,11 @@
 import react from '@vitejs/plugin-react';
 import { defaultClientConditions, defineConfig } from 'vite';
+import { VitePWA } from 'vite-plugin-pwa';
+
+import { pwaOptions } from './pwa.config';
 
 export default defineConfig({
-  plugins: [react()],
+  plugins: [react(), VitePWA(pwaOptions)],
   resolve: {
     // Use @workback/core's TypeScript source directly, so dev and build need no core build first.
     conditions: ['workback-source', ...defaultClientConditions],

@@ -13,6 +13,7 @@ import { StrictMode } from 'react';
 import { createRoot } from 'react-dom/client';
 
 import { App } from './app/app';
+import { registerServiceWorker } from './lib/service-worker';
 
 const root = document.getElementById('root');
 if (!root) throw new Error('index.html has no #root element');
@@ -22,3 +23,5 @@ createRoot(root).render(
     <App />
   </StrictMode>,
 );
+
+registerServiceWorker();

@@ -112,18 +112,23 @@ async function write<T>(method: Exclude<Method, 'GET'>, path: string, body?: unk
 /** Bytes sent so far of a multipart upload. */
 export type UploadProgress = { loaded: number; total: number };
 
-export type UploadOptions = { onProgress?: (progress: UploadProgress) => void };
+export type UploadOptions = {
+  onProgress?: (progress: UploadProgress) => void;
+  /** Extra request headers, e.g. an `Idempotency-Key` that makes a retry safe. */
+  headers?: Record<string, string>;
+};
 
 /** fetch reports no upload progress, so multipart writes go through XMLHttpRequest. */
 function sendForm<T>(
   path: string,
   form: FormData,
   csrf: string,
-  { onProgress }: UploadOptions,
+  { onProgress, headers = {} }: UploadOptions,
 ): Promise<T> {
   return new Promise<T>((resolve, reject) => {
     const xhr = new XMLHttpRequest();
     xhr.open('POST', `/api${path}`);
+    for (const [name, value] of Object.entries(headers)) xhr.setRequestHeader(name, value);
     xhr.setRequestHeader('accept', 'application/json');
     xhr.setRequestHeader('x-csrf-token', csrf);
     if (onProgress) {

@@ -6,7 +6,9 @@ import { Link } from 'react-router-dom';
 import { NoHouseholdCallout, seesChildren } from '../../components/no-household';
 import { EmptyState, ErrorState, LoadingState } from '../../components/states';
 import { paths } from '../../config/paths';
-import { LogMissForm } from '../../features/misses/components/log-miss-form';
+import { WaitingList } from '../../features/drafts/components/waiting-list';
+import { keepDraft, photosOf } from '../../features/drafts/drafts-store';
+import { LogMissForm, type OfflineMiss } from '../../features/misses/components/log-miss-form';
 import { studentsQueryOptions, useStudents } from '../../features/students/api/get-students';
 import { canEditHousehold, meQueryOptions, useSignedIn } from '../../lib/auth';
 
@@ -44,7 +46,28 @@ function LogMissBody({ householdId }: { householdId: number }) {
       />
     );
   }
-  return <LogMissForm students={students.data.items} householdId={householdId} />;
+  const keepOffline = async (miss: OfflineMiss) =>
+    keepDraft({
+      key: miss.key,
+      householdId,
+      path: '/misses',
+      fields: miss.fields,
+      photos: await photosOf(miss.photos),
+      title: miss.title,
+      detail: miss.detail,
+      keptAt: new Date().toISOString(),
+      refusal: null,
+    });
+  return (
+    <>
+      <WaitingList householdId={householdId} />
+      <LogMissForm
+        students={students.data.items}
+        householdId={householdId}
+        keepOffline={keepOffline}
+      />
+    </>
+  );
 }
 
 export default function LogMissRoute() {

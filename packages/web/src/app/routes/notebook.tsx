@@ -3,6 +3,7 @@ import type { LoaderFunctionArgs } from 'react-router-dom';
 
 import { NoHouseholdCallout, seesChildren } from '../../components/no-household';
 import { ErrorState, LoadingState } from '../../components/states';
+import { WaitingList } from '../../features/drafts/components/waiting-list';
 import { missesQueryOptions } from '../../features/misses/api/get-misses';
 import { Notebook } from '../../features/misses/components/notebook';
 import { filtersFromParams } from '../../features/misses/hooks/use-notebook-filters';
@@ -21,7 +22,7 @@ export const clientLoader =
     return null;
   };
 
-function NotebookBody({ canEdit }: { canEdit: boolean }) {
+function NotebookBody({ canEdit, householdId }: { canEdit: boolean; householdId: number }) {
   const students = useStudents();
   if (students.isPending) return <LoadingState label="Loading the notebook…" />;
   if (students.isError) {
@@ -33,12 +34,18 @@ function NotebookBody({ canEdit }: { canEdit: boolean }) {
       />
     );
   }
-  return <Notebook students={students.data.items} canEdit={canEdit} />;
+  return (
+    <Notebook
+      students={students.data.items}
+      canEdit={canEdit}
+      waiting={<WaitingList householdId={householdId} />}
+    />
+  );
 }
 
 export default function NotebookRoute() {
   const me = useSignedIn();
-  if (!seesChildren(me)) {
+  if (!seesChildren(me) || !me.household) {
     return (
       <>
         <h1 className="wb-page-title">Notebook</h1>
@@ -46,5 +53,5 @@ export default function NotebookRoute() {
       </>
     );
   }
-  return <NotebookBody canEdit={canEditHousehold(me)} />;
+  return <NotebookBody canEdit={canEditHousehold(me)} householdId={me.household.id} />;
 }

@@ -3,6 +3,7 @@ import { Navigate, Outlet, redirect, useLocation, type LoaderFunctionArgs } from
 
 import { AppShell } from '../../components/layouts/app-shell';
 import { paths } from '../../config/paths';
+import { DraftSender } from '../../features/drafts/components/draft-sender';
 import { meQueryOptions, useMe } from '../../lib/auth';
 
 /** Runs before every signed-in page: nobody signed in → the sign-in page, then back here. */
@@ -27,6 +28,7 @@ export function ProtectedRoute() {
   if (!me.data) return null;
   return (
     <AppShell>
+      {me.data.household ? <DraftSender householdId={me.data.household.id} /> : null}
       <Outlet />
     </AppShell>
   );

@@ -22,7 +22,7 @@ import { Brand } from '../brand';
 import { useToast } from '../toaster';
 import { HouseholdSwitcher } from './household-switcher';
 
-type NavItem = {
+export type NavItem = {
   to: string;
   label: string;
   icon: ReactNode;
@@ -30,14 +30,12 @@ type NavItem = {
   primary?: boolean;
   /** Shown only to whom it is for (e.g. owners and parents log misses). */
   shownTo?: (me: Me) => boolean;
-  /** Less frequent pages sit behind “More” on the phone bar, to keep it uncluttered. */
-  phoneMore?: boolean;
 };
 
 const seesChildren = (me: Me) => !me.user.isAdmin && me.household !== null;
 
 // Later pages slot in here in reading order; the phone bar leads with "Log a miss".
-const NAV_ITEMS: readonly NavItem[] = [
+export const NAV_ITEMS: readonly NavItem[] = [
   {
     to: paths.app.logMiss.getHref(),
     label: 'Log a miss',
@@ -63,38 +61,62 @@ const NAV_ITEMS: readonly NavItem[] = [
     label: 'Answer keys',
     icon: <DocumentIcon />,
     shownTo: seesChildren,
-    phoneMore: true,
   },
   {
     to: paths.app.curriculum.getHref(),
     label: 'Curriculum',
     icon: <BookIcon />,
     shownTo: seesChildren,
-    phoneMore: true,
   },
   {
     to: paths.app.patterns.getHref(),
     label: 'Patterns',
     icon: <HeatGridIcon />,
     shownTo: seesChildren,
-    phoneMore: true,
   },
   {
     to: paths.app.reviewPlans.getHref(),
     label: 'Review plans',
     icon: <ClipboardIcon />,
     shownTo: seesChildren,
-    phoneMore: true,
   },
   {
     to: paths.app.members.getHref(),
     label: 'Members',
     icon: <IdNumberIcon />,
     shownTo: canEditHousehold,
-    phoneMore: true,
   },
-  { to: paths.app.account.getHref(), label: 'Account', icon: <UserIcon />, phoneMore: true },
+  { to: paths.app.account.getHref(), label: 'Account', icon: <UserIcon /> },
 ];
+
+/**
+ * The phone bar's four slots, by role: a parent logs, reads the notebook, watches patterns and
+ * plans reviews; a tutor starts from patterns. The rest sit behind “More”.
+ */
+const PHONE_SLOTS_FAMILY = [
+  paths.app.logMiss.getHref(),
+  paths.app.notebook.getHref(),
+  paths.app.patterns.getHref(),
+  paths.app.reviewPlans.getHref(),
+];
+const PHONE_SLOTS_HELPER = [
+  paths.app.patterns.getHref(),
+  paths.app.notebook.getHref(),
+  paths.app.reviewPlans.getHref(),
+  paths.app.students.getHref(),
+];
+
+/** The pages this member may open, in reading order. */
+export function visibleNavItems(me: Me): NavItem[] {
+  return NAV_ITEMS.filter((item) => !item.shownTo || item.shownTo(me));
+}
+
+/** The items on the phone bar itself (in slot order) and those behind “More”. */
+export function phoneNav(me: Me, items: readonly NavItem[]) {
+  const slots = canEditHousehold(me) ? PHONE_SLOTS_FAMILY : PHONE_SLOTS_HELPER;
+  const bar = slots.flatMap((to) => items.filter((item) => item.to === to));
+  return { bar, more: items.filter((item) => !bar.includes(item)) };
+}
 
 /** The phone bar's last button: the less frequent pages in a small menu above the bar. */
 function PhoneMore({ items }: { items: readonly NavItem[] }) {
@@ -156,7 +178,8 @@ export function SignOutButton({ className }: { className?: string }) {
 export function AppShell({ children }: { children: ReactNode }) {
   const me = useSignedIn();
   const householdName = me.household?.name ?? roleLabel(me);
-  const items = NAV_ITEMS.filter((item) => !item.shownTo || item.shownTo(me));
+  const items = visibleNavItems(me);
+  const phone = phoneNav(me, items);
   return (
     <div className="wb-shell">
       <a className="wb-skip" href="#main">
@@ -205,23 +228,19 @@ export function AppShell({ children }: { children: ReactNode }) {
         {children}
       </main>
       <nav className="wb-bottombar" aria-label="Main (phone)">
-        {items
-          .filter((item) => !item.phoneMore)
-          .map((item) => (
-            <NavLink
-              key={item.to}
-              to={item.to}
-              className={
-                item.primary ? 'wb-bottombar-link wb-bottombar-primary' : 'wb-bottombar-link'
-              }
-            >
-              {item.icon}
-              <span>{item.label}</span>
-            </NavLink>
-          ))}
-        {items.some((item) => item.phoneMore) ? (
-          <PhoneMore items={items.filter((item) => item.phoneMore)} />
-        ) : null}
+        {phone.bar.map((item) => (
+          <NavLink
+            key={item.to}
+            to={item.to}
+            className={
+              item.primary ? 'wb-bottombar-link wb-bottombar-primary' : 'wb-bottombar-link'
+            }
+          >
+            {item.icon}
+            <span>{item.label}</span>
+          </NavLink>
+        ))}
+        {phone.more.length > 0 ? <PhoneMore items={phone.more} /> : null}
       </nav>
     </div>
   );

@@ -8,25 +8,44 @@ export type CreateMissVariables = {
   input: MissInput;
   photos: readonly File[];
   onProgress?: (progress: UploadProgress) => void;
+  /** Sent as `Idempotency-Key`: the same key again answers the miss it made, never a second one. */
+  key?: string;
 };
+
+/** The text fields of `POST /misses`, as the multipart body carries them. */
+export function missFields(input: MissInput): Record<string, string> {
+  const fields: Record<string, string> = {
+    studentId: String(input.studentId),
+    occurredOn: input.occurredOn,
+    problem: input.problem,
+    answer: input.answer,
+  };
+  if (input.steps) fields.steps = JSON.stringify(input.steps);
+  fields.explanation = input.explanation;
+  fields.cause = input.cause;
+  fields.note = input.note;
+  return fields;
+}
 
 /** The multipart body of `POST /misses`: the fields as text, the photos as `photos`. */
 export function missFormData(input: MissInput, photos: readonly File[]): FormData {
   const form = new FormData();
-  form.set('studentId', String(input.studentId));
-  form.set('occurredOn', input.occurredOn);
-  form.set('problem', input.problem);
-  form.set('answer', input.answer);
-  if (input.steps) form.set('steps', JSON.stringify(input.steps));
-  form.set('explanation', input.explanation);
-  form.set('cause', input.cause);
-  form.set('note', input.note);
+  for (const [name, value] of Object.entries(missFields(input))) form.set(name, value);
   for (const photo of photos) form.append('photos', photo, photo.name);
   return form;
 }
 
-export const createMiss = ({ input, photos, onProgress }: CreateMissVariables) =>
-  api.upload<Miss>('/misses', missFormData(input, photos), { onProgress });
+export const createMiss = ({ input, photos, onProgress, key }: CreateMissVariables) =>
+  api.upload<Miss>('/misses', missFormData(input, photos), {
+    onProgress,
+    headers: key ? { 'Idempotency-Key': key } : undefined,
+  });
+
+/** A fresh Idempotency-Key: 128 random bits as hex (works on plain http, unlike randomUUID). */
+export function newRequestKey(): string {
+  const bytes = crypto.getRandomValues(new Uint8Array(16));
+  return Array.from(bytes, (b) => b.toString(16).padStart(2, '0')).join('');
+}
 
 export function useCreateMiss() {
   const queryClient = useQueryClient();

@@ -153,7 +153,10 @@ describe('Log a miss', () => {
       note: '',
     });
     expect(sent?.files).toEqual([{ field: 'photos', name: 'sheet.png', size: 2048 }]);
+    expect(sent?.headers['idempotency-key']).toMatch(/^[0-9a-f]{32}$/);
     expect(window.localStorage.getItem('workback:last-student:10')).toBe('1');
+    // The miss opens with its heading focused, so reading starts at its top.
+    await waitFor(() => expect(screen.getByRole('heading', { level: 1 })).toHaveFocus());
   });
 
   it('“Save and log another” keeps the student and the date and clears the rest', async () => {
@@ -174,6 +177,7 @@ describe('Log a miss', () => {
     expect(screen.getByLabelText('The problem')).toHaveValue('');
     expect(screen.getByLabelText('The child’s answer')).toHaveValue('');
     expect(screen.getByRole('radio', { name: /Not sure yet/ })).toBeChecked();
+    await waitFor(() => expect(screen.getByLabelText('The problem')).toHaveFocus());
   });
 
   it('keeps everything after a dropped upload and tries again in one tap', async () => {
@@ -194,6 +198,11 @@ describe('Log a miss', () => {
     await waitFor(() => expect(router.state.location.pathname).toBe('/misses/7'));
     expect(uploads.sent).toHaveLength(2);
     expect(uploads.sent[1]?.files).toHaveLength(1);
+    // The retry is the same miss: it carries the first try's key, so the server makes one.
+    // (No IndexedDB here, so the miss cannot be kept offline and the form offers Try again.)
+    const [first, second] = uploads.sent.map((sent) => sent.headers['idempotency-key']);
+    expect(first).toMatch(/^[0-9a-f]{32}$/);
+    expect(second).toBe(first);
   });
 
   it('explains a refused photo under the photos and keeps the rest of the form', async () => {

@@ -13,13 +13,13 @@ import { TextField } from '../../../components/form/text-field';
 import { useToast } from '../../../components/toaster';
 import { paths } from '../../../config/paths';
 import { isApiError, type UploadProgress } from '../../../lib/api-client';
-import { useCreateMiss } from '../api/create-miss';
+import { missFields, newRequestKey, useCreateMiss } from '../api/create-miss';
 import { readPartials, useLiveDiagnosis, type LiveDiagnosis } from '../hooks/use-live-diagnosis';
 import { useRememberedStudent } from '../hooks/use-remembered-student';
-import { today, type MissInput, type StudentOption } from '../types';
+import { formatDay, today, type MissInput, type StudentOption } from '../types';
 import { CausePicker } from './cause-picker';
 import { ExplanationPrompts } from './explanation-prompts';
-import { checkPhotos, PhotoPicker } from './photo-picker';
+import { applyPhotoChange, checkPhotos, PhotoPicker } from './photo-picker';
 import { CheckersCaution, WorkingTrace } from './working-trace/working-trace';
 import '../misses.css';
 
@@ -111,6 +111,15 @@ function LivePanel({ live, hasAnswer }: { live: LiveDiagnosis; hasAnswer: boolea
   );
 }
 
+/** A miss that could not be sent (no connection), handed to whoever keeps it on the phone. */
+export type OfflineMiss = {
+  key: string;
+  fields: Record<string, string>;
+  photos: readonly File[];
+  title: string;
+  detail: string;
+};
+
 function percent(progress: UploadProgress | null): number | null {
   if (!progress || progress.total === 0) return null;
   return Math.min(1, progress.loaded / progress.total);
@@ -120,9 +129,12 @@ function percent(progress: UploadProgress | null): number | null {
 export function LogMissForm({
   students,
   householdId,
+  keepOffline,
 }: {
   students: readonly StudentOption[];
   householdId: number;
+  /** Keeps a miss on the phone when there is no connection; it is sent later with its key. */
+  keepOffline?: (miss: OfflineMiss) => Promise<void>;
 }) {
   const toast = useToast();
   const navigate = useNavigate();
@@ -139,6 +151,11 @@ export function LogMissForm({
   const [failedSave, setFailedSave] = useState<null | { another: boolean; message: string }>(null);
   const [progress, setProgress] = useState<UploadProgress | null>(null);
   const [causeChosen, setCauseChosen] = useState(false);
+  // One key per miss being logged: a retry of the same miss (Try again, or the copy kept
+  // offline) carries it, so the server makes one miss however often it arrives.
+  const [requestKey, setRequestKey] = useState(newRequestKey);
+  // Counts the misses logged here; each new round starts at the top, in the problem field.
+  const [nextRound, setNextRound] = useState(0);
 
   const {
     register,
@@ -175,6 +192,12 @@ export function LogMissForm({
     live.parsed.problem.kind === 'multiplication' &&
     live.parsed.problem.factors[1].length > 1;
 
+  useEffect(() => {
+    if (nextRound === 0) return;
+    window.scrollTo({ top: 0 });
+    setFocus('problem');
+  }, [nextRound, setFocus]);
+
   // Follow the checkers' suggestion until the parent picks a cause themselves.
   useEffect(() => {
     if (!causeChosen) setValue('cause', suggestion?.cause ?? Cause.unsure);
@@ -198,36 +221,62 @@ export function LogMissForm({
       note: values.note.trim(),
     };
     remember(values.studentId);
+    const key = requestKey;
+    const startNext = () => {
+      reset({
+        studentId: values.studentId,
+        occurredOn: values.occurredOn,
+        problem: '',
+        answer: '',
+        partials: '',
+        explanation: '',
+        cause: Cause.unsure,
+        note: '',
+      });
+      setCauseChosen(false);
+      setPhotos([]);
+      setRequestKey(newRequestKey());
+      setNextRound((n) => n + 1);
+    };
+    const keep = async () => {
+      if (!keepOffline) return false;
+      const student = students.find((s) => String(s.id) === values.studentId)?.name ?? 'A student';
+      await keepOffline({
+        key,
+        fields: missFields(input),
+        photos,
+        title: input.problem,
+        detail: `${student} · ${formatDay(input.occurredOn)}`,
+      });
+      toast(
+        'No connection: the miss is kept on this phone and is sent when the connection returns.',
+        Intent.PRIMARY,
+      );
+      startNext();
+      return true;
+    };
+    if (typeof navigator !== 'undefined' && !navigator.onLine && (await keep())) return;
     setProgress(photos.length > 0 ? { loaded: 0, total: 1 } : null);
     try {
       const miss = await create.mutateAsync({
         input,
         photos,
+        key,
         onProgress: photos.length > 0 ? setProgress : undefined,
       });
       setProgress(null);
       if (another) {
         toast('Saved. Ready for the next one.');
-        reset({
-          studentId: values.studentId,
-          occurredOn: values.occurredOn,
-          problem: '',
-          answer: '',
-          partials: '',
-          explanation: '',
-          cause: Cause.unsure,
-          note: '',
-        });
-        setCauseChosen(false);
-        setPhotos([]);
-        setFocus('problem');
+        startNext();
       } else {
         toast('Saved the miss.');
         void navigate(paths.app.miss.getHref(miss.id));
       }
     } catch (error) {
       setProgress(null);
-      // A dropped connection or a server hiccup: everything stays as typed, try again in one tap.
+      // The connection dropped on the way: keep it on the phone, sent later with the same key.
+      if (isApiError(error, 0) && (await keep().catch(() => false))) return;
+      // A server hiccup: everything stays as typed, try again in one tap.
       if (!isApiError(error) || error.status === 0 || error.status >= 500) {
         setFailedSave({
           another,
@@ -271,6 +320,21 @@ export function LogMissForm({
           </Button>
         </Callout>
       ) : null}
+      <PhotoPicker
+        files={photos}
+        onChange={(change) => {
+          setPhotos((list) => {
+            const next = applyPhotoChange(list, change);
+            setPhotoError(checkPhotos(next));
+            return next;
+          });
+          setFailedSave(null);
+          // Photo first, then type: the problem field is next.
+          if (change.kind === 'add') setFocus('problem');
+        }}
+        error={photoError}
+        disabled={isSubmitting}
+      />
       <div className="wb-form-row">
         <SelectField
           idPrefix="miss"
@@ -329,16 +393,6 @@ export function LogMissForm({
         />
       ) : null}
       <LivePanel live={live} hasAnswer={answer.trim().length > 0} />
-      <PhotoPicker
-        files={photos}
-        onChange={(files) => {
-          setPhotos(files);
-          setPhotoError(checkPhotos(files));
-          setFailedSave(null);
-        }}
-        error={photoError}
-        disabled={isSubmitting}
-      />
       <ExplanationPrompts />
       <TextAreaField
         idPrefix="miss"
@@ -381,7 +435,7 @@ export function LogMissForm({
           />
         </div>
       ) : null}
-      <div className="wb-form-actions">
+      <div className="wb-form-actions wb-sticky-actions">
         <Button type="submit" intent={Intent.PRIMARY} size="large" loading={isSubmitting}>
           Save
         </Button>

@@ -1,7 +1,7 @@
 import { Button, Callout, Tag } from '@blueprintjs/core';
 import { EditIcon, TrashIcon } from '@blueprintjs/icons';
 import { CAUSE_GUIDE } from '@workback/core';
-import { useState } from 'react';
+import { useEffect, useRef, useState } from 'react';
 import { Link, useNavigate } from 'react-router-dom';
 
 import { ErrorState, LoadingState } from '../../../components/states';
@@ -10,6 +10,7 @@ import { useMiss } from '../api/get-miss';
 import { formatDay, type StudentOption } from '../types';
 import { DeleteMissAlert } from './delete-miss-alert';
 import { EditMissDialog } from './edit-miss-dialog';
+import { AddPhotos } from './add-photos';
 import { NotesThread } from './notes-thread';
 import { PhotoGallery } from './photo-gallery';
 import { StatusButtons } from './status-buttons';
@@ -30,6 +31,15 @@ export function MissView({
   const navigate = useNavigate();
   const [editing, setEditing] = useState(false);
   const [deleting, setDeleting] = useState(false);
+  const heading = useRef<HTMLHeadingElement>(null);
+  const loaded = miss.isSuccess;
+
+  // A miss opens at its top, its heading focused (after Save, and from any link to it).
+  useEffect(() => {
+    if (!loaded) return;
+    window.scrollTo({ top: 0 });
+    heading.current?.focus({ preventScroll: true });
+  }, [loaded, missId]);
 
   if (miss.isPending) return <LoadingState label="Loading the miss…" />;
   if (miss.isError) {
@@ -58,7 +68,7 @@ export function MissView({
       </p>
       <div className="wb-page-head">
         <div>
-          <h1 className="wb-page-title">
+          <h1 className="wb-page-title wb-focus-target" ref={heading} tabIndex={-1}>
             <span className="wb-mono">{m.diagnosis?.problem.text ?? m.problem}</span>
           </h1>
           <p className="wb-muted">
@@ -90,6 +100,7 @@ export function MissView({
           Photos
         </h2>
         <PhotoGallery missId={m.id} photos={m.photos} />
+        {canEdit ? <AddPhotos missId={m.id} have={m.photos.length} /> : null}
       </section>
 
       <section className="wb-miss-section" aria-labelledby="trace-title">

@@ -1,6 +1,6 @@
 import { Button, Classes } from '@blueprintjs/core';
 import { ChevronLeftIcon, ChevronRightIcon, PlusIcon, ManualIcon } from '@blueprintjs/icons';
-import { useCallback } from 'react';
+import { useCallback, type ReactNode } from 'react';
 import { Link } from 'react-router-dom';
 
 import { useTableFits } from '../../../components/list-table';
@@ -20,9 +20,12 @@ const LINK_BUTTON = `${Classes.BUTTON} ${Classes.INTENT_PRIMARY} wb-link-button`
 export function Notebook({
   students,
   canEdit,
+  waiting,
 }: {
   students: readonly StudentOption[];
   canEdit: boolean;
+  /** Misses kept on this phone and not sent yet, shown under the heading. */
+  waiting?: ReactNode;
 }) {
   const { filters, value, set, clear, active } = useNotebookFilters();
   const misses = useMisses(filters);
@@ -128,6 +131,7 @@ export function Notebook({
           </Link>
         ) : null}
       </div>
+      {waiting}
       <NotebookFilters
         students={students}
         value={value}

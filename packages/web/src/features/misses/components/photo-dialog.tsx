@@ -1,6 +1,15 @@
-import { Button, Dialog, DialogBody, DialogFooter, InputGroup, Intent } from '@blueprintjs/core';
+import {
+  Alert,
+  Button,
+  Dialog,
+  DialogBody,
+  DialogFooter,
+  InputGroup,
+  Intent,
+} from '@blueprintjs/core';
 import { CrossIcon, MapMarkerIcon } from '@blueprintjs/icons';
-import { useState, type MouseEvent } from 'react';
+import { useEffect, useState, type MouseEvent } from 'react';
+import { useBlocker } from 'react-router-dom';
 
 import { useToast } from '../../../components/toaster';
 import { isApiError } from '../../../lib/api-client';
@@ -20,16 +29,58 @@ export function pinAt(event: MouseEvent<HTMLElement>): { x: number; y: number } 
   };
 }
 
+/**
+ * While pins are placed but not saved: the browser asks before the page is closed or reloaded,
+ * and a move to another page of the app waits for the parent's answer.
+ */
+function useUnsavedGuard(unsaved: boolean) {
+  const blocker = useBlocker(unsaved);
+  useEffect(() => {
+    if (!unsaved) return;
+    const warn = (event: BeforeUnloadEvent) => event.preventDefault();
+    window.addEventListener('beforeunload', warn);
+    return () => window.removeEventListener('beforeunload', warn);
+  }, [unsaved]);
+  return blocker;
+}
+
+function LeavePinsAlert({
+  open,
+  onLeave,
+  onStay,
+}: {
+  open: boolean;
+  onLeave: () => void;
+  onStay: () => void;
+}) {
+  return (
+    <Alert
+      isOpen={open}
+      intent={Intent.DANGER}
+      confirmButtonText="Leave without saving"
+      cancelButtonText="Keep placing pins"
+      onConfirm={onLeave}
+      onCancel={onStay}
+      canEscapeKeyCancel
+    >
+      <p>The pins on this photo are not saved yet. Leave them, or keep placing them and save?</p>
+    </Alert>
+  );
+}
+
 function PinEditor({
   missId,
   photo,
   index,
   onClose,
+  onChangedChange,
 }: {
   missId: number;
   photo: MissPhoto;
   index: number;
   onClose: () => void;
+  /** Tells the dialog whether pins wait to be saved, so closing it can ask first. */
+  onChangedChange: (changed: boolean) => void;
 }) {
   const toast = useToast();
   const save = useSetPhotoMarks();
@@ -37,6 +88,8 @@ function PinEditor({
   const [error, setError] = useState<string | null>(null);
   const changed = JSON.stringify(pins) !== JSON.stringify(photo.marks);
   const full = pins.length >= MAX_PINS;
+  const blocker = useUnsavedGuard(changed);
+  useEffect(() => onChangedChange(changed), [changed, onChangedChange]);
 
   const add = (point: { x: number; y: number }) => {
     if (full) return;
@@ -59,6 +112,11 @@ function PinEditor({
 
   return (
     <>
+      <LeavePinsAlert
+        open={blocker.state === 'blocked'}
+        onLeave={() => blocker.proceed?.()}
+        onStay={() => blocker.reset?.()}
+      />
       <DialogBody className="wb-photo-dialog-body">
         <p className="wb-muted">
           Tap the photo to put a pin where something went differently. Give it a few words if you
@@ -163,16 +221,34 @@ export function PhotoDialog({
   index: number;
   onClose: () => void;
 }) {
+  const [unsaved, setUnsaved] = useState(false);
+  const [asking, setAsking] = useState(false);
+  const close = () => {
+    setUnsaved(false);
+    setAsking(false);
+    onClose();
+  };
+  const tryClose = () => (unsaved ? setAsking(true) : close());
   return (
-    <Dialog
-      isOpen={photo !== null}
-      onClose={onClose}
-      title={`Photo ${index + 1}`}
-      className="wb-dialog wb-photo-dialog"
-    >
-      {photo ? (
-        <PinEditor key={photo.id} missId={missId} photo={photo} index={index} onClose={onClose} />
-      ) : null}
-    </Dialog>
+    <>
+      <Dialog
+        isOpen={photo !== null}
+        onClose={tryClose}
+        title={`Photo ${index + 1}`}
+        className="wb-dialog wb-photo-dialog"
+      >
+        {photo ? (
+          <PinEditor
+            key={photo.id}
+            missId={missId}
+            photo={photo}
+            index={index}
+            onClose={tryClose}
+            onChangedChange={setUnsaved}
+          />
+        ) : null}
+      </Dialog>
+      <LeavePinsAlert open={asking} onLeave={close} onStay={() => setAsking(false)} />
+    </>
   );
 }

@@ -7,7 +7,7 @@ import { PhotoDialog } from './photo-dialog';
 export function PhotoGallery({ missId, photos }: { missId: number; photos: readonly MissPhoto[] }) {
   const [open, setOpen] = useState<number | null>(null);
   if (photos.length === 0) {
-    return <p className="wb-muted">No photos. Parents can add them when logging a miss.</p>;
+    return <p className="wb-muted">No photos yet.</p>;
   }
   const current = open === null ? null : (photos.find((p) => p.id === open) ?? null);
   return (
