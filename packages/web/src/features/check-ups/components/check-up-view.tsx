@@ -95,7 +95,7 @@ export function CheckUpView({
           <Callout intent="none">A parent enters the answers once the check-up is done.</Callout>
         )
       ) : (
-        <Card className="wb-panel" aria-labelledby="check-up-reading">
+        <Card className="wb-panel" role="region" aria-labelledby="check-up-reading">
           <h2 id="check-up-reading" className="wb-subhead">
             What the answers say
           </h2>
