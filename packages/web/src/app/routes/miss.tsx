@@ -5,7 +5,9 @@ import { NoHouseholdCallout, seesChildren } from '../../components/no-household'
 import { ErrorState, LoadingState } from '../../components/states';
 import { missQueryOptions } from '../../features/misses/api/get-miss';
 import { notesQueryOptions } from '../../features/misses/api/get-notes';
+import { MakeCheckUpButton } from '../../features/check-ups/components/make-check-up-button';
 import { MissView } from '../../features/misses/components/miss-view';
+import type { Miss } from '../../features/misses/types';
 import { studentsQueryOptions, useStudents } from '../../features/students/api/get-students';
 import { canEditHousehold, meQueryOptions, useSignedIn } from '../../lib/auth';
 
@@ -40,7 +42,29 @@ function MissBody({ id, canEdit }: { id: number; canEdit: boolean }) {
       />
     );
   }
-  return <MissView missId={id} students={students.data.items} canEdit={canEdit} />;
+  return (
+    <MissView
+      missId={id}
+      students={students.data.items}
+      canEdit={canEdit}
+      traceActions={checkUpOffer}
+    />
+  );
+}
+
+/** When several rules reproduce the answer, a check-up can tell them apart. */
+function checkUpOffer(miss: Miss) {
+  const ids = [...new Set((miss.diagnosis?.rules ?? []).flatMap((r) => r.id.split('+')))].slice(
+    0,
+    4,
+  );
+  if (ids.length < 2) return null;
+  return (
+    <p className="wb-muted">
+      More than one way of working gives this answer.{' '}
+      <MakeCheckUpButton studentId={miss.studentId} ruleIds={ids} problems={[miss.problem]} small />
+    </p>
+  );
 }
 
 export default function MissRoute() {

@@ -1,13 +1,13 @@
 import { Button, Callout, Tag } from '@blueprintjs/core';
 import { EditIcon, TrashIcon } from '@blueprintjs/icons';
 import { CAUSE_GUIDE } from '@workback/core';
-import { useEffect, useRef, useState } from 'react';
+import { useEffect, useRef, useState, type ReactNode } from 'react';
 import { Link, useNavigate } from 'react-router-dom';
 
 import { ErrorState, LoadingState } from '../../../components/states';
 import { paths } from '../../../config/paths';
 import { useMiss } from '../api/get-miss';
-import { formatDay, type StudentOption } from '../types';
+import { formatDay, type Miss, type StudentOption } from '../types';
 import { DeleteMissAlert } from './delete-miss-alert';
 import { EditMissDialog } from './edit-miss-dialog';
 import { AddPhotos } from './add-photos';
@@ -22,10 +22,13 @@ export function MissView({
   missId,
   students,
   canEdit,
+  traceActions,
 }: {
   missId: number;
   students: readonly StudentOption[];
   canEdit: boolean;
+  /** What the app offers under the working (a check-up when several rules fit). */
+  traceActions?: (miss: Miss) => ReactNode;
 }) {
   const miss = useMiss(missId);
   const navigate = useNavigate();
@@ -108,7 +111,10 @@ export function MissView({
           The working
         </h2>
         {m.diagnosis ? (
-          <WorkingTrace diagnosis={m.diagnosis} />
+          <>
+            <WorkingTrace diagnosis={m.diagnosis} />
+            {traceActions?.(m)}
+          </>
         ) : (
           <>
             <Callout className="wb-callout" title="Not checked">
