@@ -252,6 +252,19 @@ function describeDiagnosis(d: Diagnosis): string {
     `Expected: ${d.expected}`,
     d.correct ? 'The answer is right.' : 'The answer differs from the usual working.',
   ];
+  if (d.writtenSteps !== null) {
+    lines.push('Written steps, beside the usual working:');
+    d.writtenSteps.steps.forEach((s, i) => {
+      const work = s.work === '' ? '' : ` (${s.work})`;
+      const mark = i === d.writtenSteps?.firstDiffers ? ' — the first that differs' : '';
+      lines.push(
+        s.ok
+          ? `  ${s.label}${work}: ${s.written}, as in the usual working`
+          : `  ${s.label}${work}: written ${s.written || 'nothing'}, usual ${s.expected || 'no such step'}${mark}`,
+      );
+      if (s.finding !== null) lines.push(`    ${s.finding.explanation}`);
+    });
+  }
   if (d.firstWrongStep !== null)
     lines.push(`First difference (${d.firstWrongStep.place}): ${d.firstWrongStep.note}`);
   if (!d.correct) {

@@ -5,7 +5,7 @@ import { parseAnswer } from '../parse/parseAnswer.js';
 import { parseProblem } from '../parse/parseProblem.js';
 import type { Answer, Problem } from '../parse/types.js';
 import { diagnoseSubtraction } from '../subtraction/diagnoseSubtraction.js';
-import { diagnoseMultiplication } from '../multiplication/diagnoseMultiplication.js';
+import { diagnoseMultiplication, layoutOf } from '../multiplication/diagnoseMultiplication.js';
 import { diagnoseDivision } from '../division/diagnoseDivision.js';
 import { diagnoseRounding } from '../rounding/diagnoseRounding.js';
 import { diagnoseMissing } from '../missing/diagnoseMissing.js';
@@ -36,7 +36,7 @@ export function diagnose(
   if (!read.ok) return { ok: false, part: 'answer', error: read.error };
   const steps = options.steps;
   if (steps !== undefined) {
-    const bad = checkSteps(steps);
+    const bad = checkSteps(steps) ?? checkStepsFit(steps, parsed.problem);
     if (bad !== null) return { ok: false, part: 'steps', error: { message: bad } };
   }
   const problem = parsed.problem;
@@ -100,6 +100,14 @@ function findingsFor(problem: Problem, answer: Answer, steps: WrittenSteps | und
     case 'fraction-comparison':
       return diagnoseFractions(problem, answer);
   }
+}
+
+/** Steps that cannot belong to this problem: more partial products than the multiplier has digits. */
+function checkStepsFit(steps: WrittenSteps, problem: Problem): string | null {
+  if (steps.partials === undefined || problem.kind !== 'multiplication') return null;
+  const { bottom } = layoutOf(problem.factors);
+  if (steps.partials.length <= bottom.length) return null;
+  return `The written steps have ${steps.partials.length} partial products, but ${bottom} has ${bottom.length} digit${bottom.length === 1 ? '' : 's'}: long multiplication writes one partial product for each digit.`;
 }
 
 function checkSteps(steps: WrittenSteps): string | null {

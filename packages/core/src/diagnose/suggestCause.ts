@@ -5,7 +5,8 @@ import type { Diagnosis, SuggestedCause } from './types.js';
 
 /**
  * Offers the likely cause for the parent to confirm: `step` when a systematic rule
- * reproduces the answer, `fact` when only basic-fact slips explain it, `copying` when the
+ * reproduces the answer, `fact` when only basic-fact slips explain it, `slip` when a written
+ * step differs by a one-off the child did right elsewhere, `copying` when the
  * answer is the right digits shifted a column or two neighbouring digits swapped (or the
  * right working on a number copied a column off); otherwise `null`. A suggestion, never a verdict.
  * `suggestCause(diagnose('81 - 38', '57'))` → `{ cause: 'step', ruleIds: ['sub.smaller-from-larger'], … }`.
@@ -28,6 +29,22 @@ export function suggestCause(diagnosis: Omit<Diagnosis, 'suggestedCause'>): Sugg
       because: `The method is right and one basic fact is off (${diagnosis.facts.map((f) => `${f.a} ${f.op === 'x' ? '×' : f.op === '-' ? '−' : f.op} ${f.b} taken as ${f.written}`).join(', ') || 'one fact'}). If the child catches it on a second look, it may be a slip instead.`,
       ruleIds: top.ids,
     };
+  }
+  const step = diagnosis.writtenSteps;
+  const finding = step?.firstDiffers == null ? null : step.steps[step.firstDiffers]?.finding;
+  if (finding != null && finding.oneOff) {
+    const label = step?.steps[step.firstDiffers ?? 0]?.label ?? 'a written step';
+    return finding.ids.some((id) => ruleInfo(id)?.kind === 'fact')
+      ? {
+          cause: 'fact',
+          because: `The method is right; one basic fact in ${label} is off (see the written steps).`,
+          ruleIds: finding.ids,
+        }
+      : {
+          cause: 'slip',
+          because: `${label.charAt(0).toUpperCase()}${label.slice(1)} differs by a one-off: the child did the same step right elsewhere (see the written steps). If they find it on a second look, it was a slip.`,
+          ruleIds: [],
+        };
   }
   const shifted = copyShift(diagnosis);
   if (shifted !== null) return { cause: 'copying', because: shifted, ruleIds: [] };

@@ -88,7 +88,7 @@ export interface WrittenStepsReport {
 
 /** A likely cause to offer the parent, who decides; never a verdict. */
 export interface SuggestedCause {
-  readonly cause: Extract<Cause, 'step' | 'fact' | 'copying'>;
+  readonly cause: Extract<Cause, 'step' | 'fact' | 'slip' | 'copying'>;
   readonly because: string;
   readonly ruleIds: readonly string[];
 }

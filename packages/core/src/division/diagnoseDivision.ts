@@ -3,6 +3,7 @@ import type { Candidate, Findings, FirstWrongStep, WrittenSteps } from '../diagn
 import { placeName } from '../numbers/digits.js';
 import type { Answer, Problem } from '../parse/types.js';
 import type { DivisionStep, LongDivisionTrace } from '../trace/types.js';
+import { checkLines } from './checkLines.js';
 import { divideDigitByDigit } from './divideDigitByDigit.js';
 import { divideLong, type DivisionRun } from './divideLong.js';
 
@@ -43,7 +44,8 @@ export function diagnoseDivision(
   const { dividend, divisor } = problem;
   const correct = divideLong(dividend, divisor) as DivisionRun;
   const expected = correct.result;
-  const base = { expected, expectedTrace: correct.trace };
+  const writtenSteps = steps?.lines === undefined ? null : checkLines(correct.trace, steps.lines);
+  const base = { expected, expectedTrace: correct.trace, writtenSteps };
   const written = canonical(answer);
   if (written === null) {
     return {

@@ -13,6 +13,7 @@ import type {
 import { placeName, stripLeadingZeros, trailingZeros } from '../numbers/digits.js';
 import type { Answer, Problem } from '../parse/types.js';
 import type { LongMultiplicationTrace, PartialProduct, ProductCell } from '../trace/types.js';
+import { checkPartials } from './checkPartials.js';
 import { multiplyLong, type MultiplicationMethod, type MultiplicationRun } from './multiplyLong.js';
 import { multiplyWithZerosSetAside } from './multiplyWithZerosSetAside.js';
 
@@ -195,7 +196,10 @@ export function diagnoseMultiplication(
   const { top, bottom } = layoutOf(problem.factors);
   const correct = multiplyLong(top, bottom);
   const expected = correct.result;
-  const base = { expected, expectedTrace: correct.trace };
+  const partials = steps?.partials;
+  const writtenSteps =
+    partials === undefined ? null : checkPartials(top, bottom, correct, partials);
+  const base = { expected, expectedTrace: correct.trace, writtenSteps };
   if (answer.kind !== 'whole') {
     return {
       ...base,
@@ -206,11 +210,10 @@ export function diagnoseMultiplication(
     };
   }
   const written = answer.value;
-  const partials = steps?.partials;
   const notes: string[] = [];
-  if (partials !== undefined && partials.length !== correct.trace.partials.length) {
+  if (partials !== undefined && partials.length < correct.trace.partials.length) {
     notes.push(
-      `The written steps have ${partials.length} partial products; this multiplier has ${correct.trace.partials.length} digits, so one partial product each is expected.`,
+      `The written steps have ${partials.length} partial product${partials.length === 1 ? '' : 's'}; ${bottom} has ${correct.trace.partials.length} digits, so one partial product each is expected.`,
     );
   }
   const stepsFit = (trace: LongMultiplicationTrace): boolean =>
@@ -290,6 +293,8 @@ export function diagnoseMultiplication(
     cells,
     (cell, w) =>
       wrongFacts('x', cell.data.c.topDigit, cell.data.c.multiplierDigit).includes(w) &&
+      // Short by exactly the carry is a carry not added, not a fact to practise.
+      !(cell.data.c.carryIn > 0 && w === cell.data.c.product - cell.data.c.carryIn) &&
       (partials === undefined ||
         partialsAgree(
           multiplyLong(top, bottom, {

@@ -18,6 +18,8 @@ export interface MultiplicationMethod {
   readonly placeholder?: 'shift' | 'none';
   /** A basic-fact slip: the product of this cell (partial product, top-digit column) taken as `product`; its effect carries on. */
   readonly slip?: { readonly partial: number; readonly column: number; readonly product: number };
+  /** A one-off slip: the carry into this cell (partial product, top-digit column) is not added, once. */
+  readonly dropCarryAt?: { readonly partial: number; readonly column: number };
 }
 
 export interface MultiplicationRun {
@@ -27,7 +29,7 @@ export interface MultiplicationRun {
   readonly fired: readonly {
     readonly partial: number;
     readonly column: number;
-    readonly part: Exclude<keyof MultiplicationMethod, 'slip'>;
+    readonly part: Exclude<keyof MultiplicationMethod, 'slip' | 'dropCarryAt'>;
   }[];
 }
 
@@ -50,7 +52,7 @@ export function multiplyLong(
   const fired: {
     partial: number;
     column: number;
-    part: Exclude<keyof MultiplicationMethod, 'slip'>;
+    part: Exclude<keyof MultiplicationMethod, 'slip' | 'dropCarryAt'>;
   }[] = [];
   const slip = method.slip;
   const partials: PartialProduct[] = [];
@@ -62,7 +64,11 @@ export function multiplyLong(
     for (let i = 0; i < t.length; i += 1) {
       const top1 = t[i] as number;
       const leftmost = i === t.length - 1;
-      const carryIn = carry;
+      const dropped =
+        method.dropCarryAt !== undefined &&
+        method.dropCarryAt.partial === j &&
+        method.dropCarryAt.column === i;
+      const carryIn = dropped ? 0 : carry;
       let factor = top1;
       if (carryHabit === 'before' && carryIn > 0) {
         factor = top1 + carryIn;
