@@ -53,6 +53,10 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
           lazy: lazyRoute(queryClient, () => import('./routes/invitation')),
         },
         {
+          path: paths.verifyEmail.path,
+          lazy: lazyRoute(queryClient, () => import('./routes/verify-email')),
+        },
+        {
           path: paths.app.root.path,
           loader: protectedLoader(queryClient),
           element: <ProtectedRoute />,

@@ -21,6 +21,10 @@ export const paths = {
     path: '/invitations/:token',
     getHref: (token: string) => `/invitations/${encodeURIComponent(token)}`,
   },
+  verifyEmail: {
+    path: '/verify-email/:token',
+    getHref: (token: string) => `/verify-email/${encodeURIComponent(token)}`,
+  },
   app: {
     root: { path: '/', getHref: () => '/' },
     students: { path: '/students', getHref: () => '/students' },

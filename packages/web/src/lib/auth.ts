@@ -6,7 +6,14 @@ import { api, forgetCsrfToken, isApiError } from './api-client';
 export type HouseholdSummary = { id: number; name: string; role: Role };
 
 export type Me = {
-  user: { id: number; email: string; displayName: string; isAdmin: boolean };
+  user: {
+    id: number;
+    email: string;
+    displayName: string;
+    isAdmin: boolean;
+    /** false until the address is confirmed by the mailed link (inviting waits for it). */
+    emailVerified?: boolean;
+  };
   household: HouseholdSummary | null;
   households: HouseholdSummary[];
 };

@@ -3,6 +3,7 @@ import { Navigate, Outlet, redirect, useLocation, type LoaderFunctionArgs } from
 
 import { AppShell } from '../../components/layouts/app-shell';
 import { paths } from '../../config/paths';
+import { VerifyEmailNotice } from '../../features/email-verification/components/verify-email-notice';
 import { DraftSender } from '../../features/drafts/components/draft-sender';
 import { meQueryOptions, useMe } from '../../lib/auth';
 
@@ -29,6 +30,9 @@ export function ProtectedRoute() {
   return (
     <AppShell>
       {me.data.household ? <DraftSender householdId={me.data.household.id} /> : null}
+      {me.data.user.emailVerified === false ? (
+        <VerifyEmailNotice email={me.data.user.email} />
+      ) : null}
       <Outlet />
     </AppShell>
   );

@@ -61,6 +61,33 @@ describe('invitation page', () => {
     expect(await screen.findByText('Welcome to Maple Table.')).toBeInTheDocument();
   });
 
+  it('asks for a sign-in when the e-mail cannot make a new account, without saying why', async () => {
+    mockApi({
+      ...CSRF,
+      'GET /auth/me': signedOut,
+      [`GET /invitations/${TOKEN}`]: json(200, preview),
+      [`POST /invitations/${TOKEN}/accept`]: json(401, {
+        statusCode: 401,
+        error: 'Unauthorized',
+        message: 'To join with this e-mail, sign in first, then open this link again',
+        fields: { email: 'sign in first', password: 'sign in first' },
+      }),
+    });
+    const user = userEvent.setup();
+    renderApp(`/invitations/${TOKEN}`);
+    await user.type(await screen.findByLabelText('Your name'), 'Kit');
+    await user.type(screen.getByLabelText('Password'), 'long enough words');
+    await user.click(screen.getByText(/I am an adult/));
+    await user.click(screen.getByRole('button', { name: 'Create account and join' }));
+    expect(
+      await screen.findByText(
+        'To join with this e-mail, sign in first (below), then join; or use another.',
+      ),
+    ).toBeInTheDocument();
+    expect(screen.queryByText(/already/)).toBeNull();
+    expect(screen.getByRole('link', { name: 'Sign in, then join' })).toBeInTheDocument();
+  });
+
   it('lets someone signed in join with one click, then fetches a fresh CSRF token', async () => {
     let csrfCalls = 0;
     const { requests } = mockApi({

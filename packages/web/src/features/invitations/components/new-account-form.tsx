@@ -58,10 +58,11 @@ export function NewAccountForm({
         }),
       );
     } catch (error) {
-      if (isApiError(error, 409) && error.fields.email) {
+      // The answer for an e-mail that needs a sign-in never says whether it has an account.
+      if (isApiError(error, 401) && error.fields.email) {
         setError('email', {
           type: 'server',
-          message: 'An account with this e-mail already exists. Sign in first (below), then join.',
+          message: 'To join with this e-mail, sign in first (below), then join; or use another.',
         });
         return;
       }
