@@ -34,8 +34,13 @@ class HttpClient {
       body: payload,
       signal: AbortSignal.timeout(60_000),
     });
-    const set = res.headers.getSetCookie().find((c) => c.startsWith('workback.sid='));
-    if (set) this.cookie = set.split(';')[0]!;
+    // The session cookie, and the CSRF cookie a visitor's token is tied to before sign-in.
+    for (const set of res.headers.getSetCookie()) {
+      const [pair] = set.split(';');
+      const name = pair!.split('=')[0]!;
+      const kept = this.cookie.split('; ').filter((c) => c && !c.startsWith(`${name}=`));
+      this.cookie = [...kept, pair].join('; ');
+    }
     return res;
   }
 

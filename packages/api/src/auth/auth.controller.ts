@@ -5,6 +5,7 @@ import { ThrottlerGuard } from '@nestjs/throttler';
 import type { Request, Response } from 'express';
 import { CurrentUser } from '../common/decorators/current-member.decorator.js';
 import { AllowNoHousehold, Public } from '../common/decorators/public.decorator.js';
+import { anonymousToken, type CsrfCookieOptions } from '../common/guards/csrf-token.js';
 import type { SessionUser } from '../common/member-context.js';
 import type { AppConfig } from '../config/app.config.js';
 import { EmailVerificationsService } from '../email-verifications/email-verifications.service.js';
@@ -26,22 +27,32 @@ import {
 export class AuthController {
   private readonly cookieName: string;
   private readonly publicUrl: string | undefined;
+  private readonly csrfCookie: CsrfCookieOptions;
 
   constructor(
     private readonly auth: AuthService,
     private readonly verifications: EmailVerificationsService,
     config: ConfigService,
   ) {
-    this.cookieName = config.getOrThrow<AppConfig>('app').session.cookieName;
+    const { session } = config.getOrThrow<AppConfig>('app');
+    this.cookieName = session.cookieName;
     this.publicUrl = config.getOrThrow<AppConfig>('app').publicUrl;
+    this.csrfCookie = { secret: session.secret, secure: session.secure };
   }
 
   @Public()
   @Get('csrf')
-  @ApiOperation({ summary: 'The CSRF token bound to this session (send it as x-csrf-token)' })
-  csrf(@Req() req: Request) {
-    req.session.csrfToken ??= newCsrfToken();
-    return { token: req.session.csrfToken };
+  @ApiOperation({
+    summary: 'The CSRF token of this session, or of this visitor (send it as x-csrf-token)',
+  })
+  csrf(@Req() req: Request, @Res({ passthrough: true }) res: Response) {
+    if (req.session?.csrfToken) return { token: req.session.csrfToken };
+    if (req.isAuthenticated()) {
+      req.session.csrfToken = newCsrfToken();
+      return { token: req.session.csrfToken };
+    }
+    // Visitors get a token tied to a cookie: no session row for every page that asks.
+    return { token: anonymousToken(req, res, this.csrfCookie) };
   }
 
   @Public()

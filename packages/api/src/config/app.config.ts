@@ -21,6 +21,15 @@ export interface AppConfig {
   seedDemo: boolean;
   adminEmails: readonly string[];
   signInLimitPerMinute: number;
+  /** What anyone can make the server do, per window (issue 13). */
+  limits: {
+    invitationsPerHouseholdPerHour: number;
+    invitationsPerAddressPerDay: number;
+    resetMailsPerAddressPerHour: number;
+    photoDecodesPerMember: number;
+    photoPixelsPerRequest: number;
+    bodyTimeoutMs: number;
+  };
   session: {
     secret: string;
     idleMs: number;
@@ -71,6 +80,14 @@ export const appConfig = registerAs('app', (): AppConfig => {
     seedDemo,
     adminEmails: admins,
     signInLimitPerMinute: env.SIGN_IN_LIMIT_PER_MINUTE,
+    limits: {
+      invitationsPerHouseholdPerHour: env.INVITATIONS_PER_HOUSEHOLD_PER_HOUR,
+      invitationsPerAddressPerDay: env.INVITATIONS_PER_ADDRESS_PER_DAY,
+      resetMailsPerAddressPerHour: env.RESET_MAILS_PER_ADDRESS_PER_HOUR,
+      photoDecodesPerMember: env.PHOTO_DECODES_PER_MEMBER,
+      photoPixelsPerRequest: Math.round(env.PHOTO_MEGAPIXELS_PER_REQUEST * 1_000_000),
+      bodyTimeoutMs: Math.round(env.BODY_TIMEOUT_SECONDS * 1000),
+    },
     session: {
       secret: env.SESSION_SECRET ?? loadOrCreateSecret(dataDir),
       idleMs: env.SESSION_IDLE_MINUTES * 60_000,

@@ -57,6 +57,36 @@ export class EnvironmentVariables {
   @Min(1)
   SIGN_IN_LIMIT_PER_MINUTE = 5;
 
+  @Transform(({ value }) => Number(value))
+  @IsInt()
+  @Min(1)
+  INVITATIONS_PER_HOUSEHOLD_PER_HOUR = 10;
+
+  @Transform(({ value }) => Number(value))
+  @IsInt()
+  @Min(1)
+  INVITATIONS_PER_ADDRESS_PER_DAY = 3;
+
+  @Transform(({ value }) => Number(value))
+  @IsInt()
+  @Min(1)
+  RESET_MAILS_PER_ADDRESS_PER_HOUR = 3;
+
+  @Transform(({ value }) => Number(value))
+  @IsInt()
+  @Min(1)
+  PHOTO_DECODES_PER_MEMBER = 2;
+
+  @Transform(({ value }) => Number(value))
+  @IsNumber()
+  @IsPositive()
+  PHOTO_MEGAPIXELS_PER_REQUEST = 64;
+
+  @Transform(({ value }) => Number(value))
+  @IsNumber()
+  @IsPositive()
+  BODY_TIMEOUT_SECONDS = 60;
+
   /** Unset: the demo is seeded except in production, where only SEED_DEMO=true seeds it. */
   @IsOptional()
   @Transform(toBoolean)

@@ -1,6 +1,7 @@
 import { Module } from '@nestjs/common';
 import { SequelizeModule } from '@nestjs/sequelize';
 import { AuthModule } from '../auth/auth.module.js';
+import { LimitsModule } from '../common/limits/limits.module.js';
 import { HouseholdsModule } from '../households/households.module.js';
 import { MailModule } from '../mail/mail.module.js';
 import { StudentsModule } from '../students/students.module.js';
@@ -17,6 +18,7 @@ import { Invitation } from './models/invitation.model.js';
     StudentsModule,
     UsersModule,
     MailModule,
+    LimitsModule,
   ],
   controllers: [InvitationsController],
   providers: [InvitationsService],

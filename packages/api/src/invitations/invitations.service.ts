@@ -5,12 +5,14 @@ import {
   NotFoundException,
   UnauthorizedException,
 } from '@nestjs/common';
+import { ConfigService } from '@nestjs/config';
 import { InjectConnection, InjectModel } from '@nestjs/sequelize';
 import { Role } from '@workback/core';
 import { Op } from 'sequelize';
 import type { Transaction } from 'sequelize';
 import type { Sequelize } from 'sequelize-typescript';
 import { PasswordService } from '../auth/password.service.js';
+import { type LimitRule, LimitsService } from '../common/limits/limits.service.js';
 import type { MemberContext, SessionUser } from '../common/member-context.js';
 import { fieldsError } from '../common/pipes/validation.pipe.js';
 import { hashToken, looksLikeToken, newLinkToken } from '../common/tokens.js';
@@ -18,6 +20,7 @@ import { HouseholdsService } from '../households/households.service.js';
 import { MembersService, ONLY_TUTORS_GET_STUDENTS } from '../households/members.service.js';
 import { MailService } from '../mail/mail.service.js';
 import { StudentsService } from '../students/students.service.js';
+import type { AppConfig } from '../config/app.config.js';
 import { User } from '../users/models/user.model.js';
 import { normalizeEmail, UsersService } from '../users/users.service.js';
 import type { AcceptInvitationDto } from './dto/accept-invitation.dto.js';
@@ -52,6 +55,9 @@ export interface AcceptResult {
 
 @Injectable()
 export class InvitationsService {
+  private readonly perHousehold: LimitRule;
+  private readonly perAddress: LimitRule;
+
   constructor(
     @InjectModel(Invitation) private readonly invitationModel: typeof Invitation,
     private readonly households: HouseholdsService,
@@ -61,7 +67,24 @@ export class InvitationsService {
     private readonly passwords: PasswordService,
     private readonly mail: MailService,
     @InjectConnection() private readonly sequelize: Sequelize,
-  ) {}
+    private readonly limits: LimitsService,
+    config: ConfigService,
+  ) {
+    const { invitationsPerHouseholdPerHour: hourly, invitationsPerAddressPerDay: daily } =
+      config.getOrThrow<AppConfig>('app').limits;
+    this.perHousehold = {
+      name: 'invitations-household',
+      limit: hourly,
+      windowMs: 3_600_000,
+      message: `This household has sent ${hourly} invitations in the last hour: please wait a while before sending more`,
+    };
+    this.perAddress = {
+      name: 'invitations-address',
+      limit: daily,
+      windowMs: DAY_MS,
+      message: `That address has had ${daily} invitations today: please wait until tomorrow, or check the address`,
+    };
+  }
 
   /** Open (not yet accepted) invitations of the household, newest first. */
   async findAll(member: MemberContext) {
@@ -90,6 +113,8 @@ export class InvitationsService {
         fields: { email: 'is already a member of this household' },
       });
     }
+    await this.limits.take(this.perAddress, email);
+    await this.limits.take(this.perHousehold, String(member.householdId));
     const household = await this.households.findCurrent(member);
     const { token, hash } = newLinkToken();
     const invitation = await this.invitationModel.create({

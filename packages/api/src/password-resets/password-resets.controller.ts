@@ -29,8 +29,8 @@ export class PasswordResetsController {
   @ApiOperation({
     summary: 'E-mail a single-use link to set a new password (same answer for any address)',
   })
-  request(@Body() dto: RequestPasswordResetDto, @Req() req: Request) {
-    this.resets.request(dto.email, publicOrigin(this.publicUrl, req));
+  async request(@Body() dto: RequestPasswordResetDto, @Req() req: Request) {
+    await this.resets.request(dto.email, publicOrigin(this.publicUrl, req));
     return { message: RESET_REQUESTED };
   }
 

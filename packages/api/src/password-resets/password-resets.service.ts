@@ -5,14 +5,17 @@ import {
   NotFoundException,
   type OnApplicationShutdown,
 } from '@nestjs/common';
+import { ConfigService } from '@nestjs/config';
 import { InjectConnection, InjectModel } from '@nestjs/sequelize';
 import { Op } from 'sequelize';
 import type { Sequelize } from 'sequelize-typescript';
 import { PasswordService } from '../auth/password.service.js';
+import { type LimitRule, LimitsService } from '../common/limits/limits.service.js';
 import { hashToken, looksLikeToken, newLinkToken } from '../common/tokens.js';
+import type { AppConfig } from '../config/app.config.js';
 import { MailService } from '../mail/mail.service.js';
 import { SessionStoreService } from '../sessions/session-store.service.js';
-import { UsersService } from '../users/users.service.js';
+import { normalizeEmail, UsersService } from '../users/users.service.js';
 import { PasswordResetToken } from './models/password-reset-token.model.js';
 
 export const RESET_TTL_MS = 3_600_000;
@@ -28,6 +31,7 @@ export const EXPIRED_RESET =
 export class PasswordResetsService implements OnApplicationShutdown {
   private readonly logger = new Logger(PasswordResetsService.name);
   private readonly pending = new Set<Promise<void>>();
+  private readonly perAddress: LimitRule;
 
   constructor(
     @InjectModel(PasswordResetToken) private readonly tokenModel: typeof PasswordResetToken,
@@ -36,13 +40,24 @@ export class PasswordResetsService implements OnApplicationShutdown {
     private readonly mail: MailService,
     private readonly sessions: SessionStoreService,
     @InjectConnection() private readonly sequelize: Sequelize,
-  ) {}
+    private readonly limits: LimitsService,
+    config: ConfigService,
+  ) {
+    const hourly = config.getOrThrow<AppConfig>('app').limits.resetMailsPerAddressPerHour;
+    this.perAddress = {
+      name: 'reset-mails-address',
+      limit: hourly,
+      windowMs: 3_600_000,
+      message: `A new-password link was asked for ${hourly} times in the last hour for that address: please use the newest mail, or wait an hour`,
+    };
+  }
 
   /**
    * Starts the work and returns at once, so the answer and its timing are the
-   * same whether or not the address has an account.
+   * same whether or not the address has an account (the per-address limit counts both alike).
    */
-  request(email: string, origin: string): void {
+  async request(email: string, origin: string): Promise<void> {
+    await this.limits.take(this.perAddress, normalizeEmail(email));
     const work = this.issue(email, origin).catch((err: unknown) => {
       // No address in the log: only that a reset mail failed.
       this.logger.error(`A password-reset mail could not be sent (${(err as Error).name})`);

@@ -4,30 +4,38 @@ import {
   ForbiddenException,
   Injectable,
 } from '@nestjs/common';
+import { ConfigService } from '@nestjs/config';
 import type { Request } from 'express';
-import { timingSafeEqual } from 'node:crypto';
+import type { AppConfig } from '../../config/app.config.js';
+import { anonymousTokenMatches, sameToken } from './csrf-token.js';
 
 const SAFE_METHODS = new Set(['GET', 'HEAD', 'OPTIONS']);
 
-/** Synchronizer token: every state-changing request repeats the session's token in a header. */
+/**
+ * Every state-changing request repeats a token in `x-csrf-token`: the one stored in the session
+ * once there is a session with one (signed in), else the one tied to the visitor's CSRF cookie.
+ */
 @Injectable()
 export class CsrfGuard implements CanActivate {
+  private readonly secret: string;
+
+  constructor(config: ConfigService) {
+    this.secret = config.getOrThrow<AppConfig>('app').session.secret;
+  }
+
   canActivate(context: ExecutionContext): boolean {
     const req = context.switchToHttp().getRequest<Request>();
     if (SAFE_METHODS.has(req.method)) return true;
-    const expected = req.session?.csrfToken;
+    const stored = req.session?.csrfToken;
     const given = req.get('x-csrf-token');
-    if (!expected || !given || !sameToken(expected, given)) {
+    const ok =
+      given !== undefined &&
+      (stored ? sameToken(stored, given) : anonymousTokenMatches(req, given, this.secret));
+    if (!ok) {
       throw new ForbiddenException(
         'Missing or stale CSRF token: fetch GET /api/auth/csrf and send it as x-csrf-token',
       );
     }
     return true;
   }
-}
-
-function sameToken(a: string, b: string): boolean {
-  const x = Buffer.from(a);
-  const y = Buffer.from(b);
-  return x.length === y.length && timingSafeEqual(x, y);
 }
