@@ -1,4 +1,4 @@
-import type { Cause, Patterns, RecurringPattern } from '@workback/core';
+import type { Cause, Difficulty, Patterns, RecurringPattern } from '@workback/core';
 
 export type PatternNote = {
   id: number;
@@ -10,7 +10,8 @@ export type PatternNote = {
 };
 
 /** `GET /patterns`: the engine's patterns of one student over a day range, with notes. */
-export type PatternsResult = Omit<Patterns, 'recurring'> & {
+export type PatternsResult = Omit<Patterns, 'recurring' | 'difficulties'> & {
+  difficulties: (Difficulty & { notes: PatternNote[] })[];
   studentId: number;
   from: string | null;
   to: string | null;
@@ -51,11 +52,6 @@ export function shortDay(day: string, today = new Date()): string {
   });
 }
 
-/** `skillLabel('subtraction.regrouping-zeros')` → `'subtraction: regrouping zeros'`. */
-export function skillLabel(skill: string): string {
-  return skill.replace(/\./g, ': ').replace(/[-_]/g, ' ');
-}
-
 const DAY_MS = 86_400_000;
 
 /** `weeksBetween('2026-03-02', '2026-03-20')` → `3` (counting part weeks, at least 1). */
@@ -79,7 +75,7 @@ export function recurringSentence(name: string, p: SentenceInput): string {
       ? `keeps making the same step error, “${p.label}”`
       : p.kind === 'fact'
         ? `keeps missing ${p.label.replace(/\s*\(.*\)$/, '')}`
-        : `keeps missing problems on ${skillLabel(p.id)}`;
+        : `keeps missing problems on “${p.id}”`;
   const times = p.count === 1 ? 'once' : `${p.count} times`;
   const weeks = weeksBetween(p.firstSeen, p.lastSeen);
   const span = `${weeks} ${weeks === 1 ? 'week' : 'weeks'}`;

@@ -170,7 +170,7 @@ export function NotebookFilters({
             id="filter-skill"
             label="Skill"
             value={value('skill')}
-            placeholder="e.g. subtraction.regrouping"
+            placeholder="e.g. regrouping across zeros"
             onChange={(skill) => set({ skill })}
           />
           <FormGroup label="From" labelFor="filter-from" className="wb-filter">

@@ -1,6 +1,6 @@
 import { Callout } from '@blueprintjs/core';
 import { HeatGridIcon, InfoSignIcon } from '@blueprintjs/icons';
-import type { ReactNode } from 'react';
+import { useState, type ReactNode } from 'react';
 
 import { EmptyState, ErrorState, LoadingState } from '../../../components/states';
 import { usePatterns } from '../api/get-patterns';
@@ -8,9 +8,8 @@ import { rangeOf } from '../period';
 import type { StudentRef } from '../types';
 import { CauseMixChart } from './cause-mix-chart';
 import { FactGrid } from './fact-grid';
-import { Findings } from './findings';
+import { DifficultyCards } from './difficulty-cards';
 import { PatternFilters, type PatternFilterValues } from './pattern-filters';
-import { RecurringList } from './recurring-list';
 import { SkillCounts } from './skill-counts';
 import { TopRulesChart } from './top-rules-chart';
 
@@ -35,6 +34,21 @@ function Section({
       {intro ? <p className="wb-muted wb-section-intro">{intro}</p> : null}
       {children}
     </section>
+  );
+}
+
+/** A section folded on a phone (details on demand) and open on a wide screen. */
+function MoreSection({ id, title, children }: { id: string; title: string; children: ReactNode }) {
+  const [wide] = useState(() => window.matchMedia?.('(min-width: 720px)').matches ?? true);
+  return (
+    <details className="wb-pattern-more" open={wide}>
+      <summary>
+        <h2 id={id} className="wb-section-title wb-more-title">
+          {title}
+        </h2>
+      </summary>
+      <section aria-labelledby={id}>{children}</section>
+    </details>
   );
 }
 
@@ -83,41 +97,33 @@ export function PatternsView({
           {p.rightItemCount > 0 ? ` and ${p.rightItemCount} items ${name} got right` : ''}.
         </Callout>
         <Section
-          id="patterns-recurring"
-          title="Keeps coming back"
-          intro="A rule, fact family or skill seen 3 or more times within 30 days."
+          id="patterns-difficulties"
+          title="What to look at first"
+          intro={`One card per difficulty. A card is a finding when one known wrong method reproduces 2 or more of ${name}’s answers exactly and none of the answers ${name} got right goes against it; it keeps coming back when it was seen 3 or more times within 30 days.`}
         >
-          <RecurringList patterns={p} studentName={name} />
+          <DifficultyCards patterns={p} studentName={name} />
         </Section>
-        <Section
-          id="patterns-findings"
-          title="What the step checkers found"
-          intro={`A rule is a known wrong method. It becomes a finding when it reproduces 2 or more of ${name}’s answers exactly and none of the answers ${name} got right goes against it. The checkers aid your judgement; they do not grade your child.`}
-        >
-          <Findings patterns={p} studentName={name} />
-        </Section>
-        <Section
-          id="patterns-facts"
-          title="Fact gaps"
-          intro="Basic facts the checkers found wrong inside the written working."
-        >
+        <MoreSection id="patterns-facts" title="Fact gaps">
+          <p className="wb-muted wb-section-intro">
+            Basic facts the checkers found wrong inside the written working.
+          </p>
           {p.facts.list.length > 0 ? (
             <FactGrid facts={p.facts} />
           ) : (
             <p className="wb-empty-line">No basic fact was found wrong in this period.</p>
           )}
-        </Section>
-        <Section id="patterns-causes" title="Causes over time">
+        </MoreSection>
+        <MoreSection id="patterns-causes" title="Causes over time">
           <CauseMixChart weeks={p.causeMix} studentId={p.studentId} />
-        </Section>
+        </MoreSection>
         {p.rules.length > 0 ? (
-          <Section id="patterns-rules" title="Error rules seen most">
+          <MoreSection id="patterns-rules" title="Error rules seen most">
             <TopRulesChart rules={p.rules} studentId={p.studentId} from={p.from} to={p.to} />
-          </Section>
+          </MoreSection>
         ) : null}
-        <Section id="patterns-skills" title="Skills with the most misses">
+        <MoreSection id="patterns-skills" title="Skills with the most misses">
           <SkillCounts skills={p.skills} studentId={p.studentId} from={p.from} to={p.to} />
-        </Section>
+        </MoreSection>
       </>
     );
   }
@@ -128,7 +134,7 @@ export function PatternsView({
         <div>
           <h1 className="wb-page-title">Patterns</h1>
           <p className="wb-muted">
-            What keeps coming back in {name}’s work across weeks, so you know what to review next.
+            What keeps coming back in {name}’s work across weeks, to decide what to review next.
           </p>
         </div>
       </div>

@@ -2,7 +2,7 @@ import type { SkillCount } from '@workback/core';
 import { Link } from 'react-router-dom';
 
 import { notebookHref } from '../notebook-link';
-import { shortDay, skillLabel } from '../types';
+import { shortDay } from '../types';
 
 /** The skills of the answer keys with the most misses, each leading to those misses. */
 export function SkillCounts({
@@ -27,7 +27,7 @@ export function SkillCounts({
     <ul className="wb-rule-counts" aria-label="Skills with the most misses">
       {skills.slice(0, 8).map((s) => (
         <li key={s.skill}>
-          <span>{skillLabel(s.skill)}</span>{' '}
+          <span>{s.skill}</span>{' '}
           <Link to={notebookHref({ studentId, skill: s.skill, from, to })}>
             {s.count === 1 ? '1 miss' : `${s.count} misses`}
           </Link>{' '}
