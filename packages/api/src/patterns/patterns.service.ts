@@ -53,9 +53,13 @@ export class PatternsService {
         ...r,
         notes: notes.filter((n) => n.patternKey === r.key),
       })),
+      difficulties: patterns.difficulties.map((d) => ({
+        ...d,
+        notes: notes.filter((n) => d.patternKeys.includes(n.patternKey)),
+      })),
       notes,
       caution:
-        'These are patterns across the work, to help you decide what to review; they do not grade your child.',
+        'These are patterns across the work, to help decide what to review; they do not grade the child.',
     };
   }
 
