@@ -14,6 +14,7 @@ import {
   type TestApp,
 } from './support/test-app.js';
 import { readZip } from './support/zip.js';
+import { confirmAddress } from './support/mail.js';
 
 type Row = Record<string, unknown>;
 
@@ -63,6 +64,7 @@ beforeAll(async () => {
   owner = await signedIn(t, DEMO.owner);
   householdId = (await owner.get('/api/households/current').expect(200)).body.id;
   other = await registered(t, 'elsewhere-owner@example.test', 'The Elsewhere household');
+  await confirmAddress(other, 'elsewhere-owner@example.test');
   otherHouseholdId = (await other.get('/api/households/current').expect(200)).body.id;
   const zed = await other.post('/api/students', { name: 'Zedekiah', gradeLevel: '5' });
   await other

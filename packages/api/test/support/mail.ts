@@ -41,3 +41,11 @@ export function linkPath(mail: CapturedMail, marker: string): string {
   if (!link) throw new Error(`no ${marker} link in "${mail.subject}"`);
   return new URL(link).pathname;
 }
+
+/** Opens the address-confirmation link mailed at sign-up, as its owner would. */
+export async function confirmAddress(client: Client, email: string): Promise<void> {
+  const mail = await waitForMail(client, email, /Confirm your e-mail/);
+  const token = linkPath(mail, '/verify-email/').split('/').pop()!;
+  const res = await client.post('/api/auth/email-verification/confirm', { token });
+  if (res.status !== 200) throw new Error(`confirming ${email}: ${res.status} ${res.text}`);
+}
