@@ -3,6 +3,7 @@ import { castOutElevens } from '../checks/castOutElevens.js';
 import { castOutNines } from '../checks/castOutNines.js';
 import { parseAnswer } from '../parse/parseAnswer.js';
 import { parseProblem } from '../parse/parseProblem.js';
+import { quoteInput } from '../parse/quoteInput.js';
 import type { Answer, Problem } from '../parse/types.js';
 import { diagnoseSubtraction } from '../subtraction/diagnoseSubtraction.js';
 import { diagnoseMultiplication, layoutOf } from '../multiplication/diagnoseMultiplication.js';
@@ -116,12 +117,14 @@ function checkSteps(steps: WrittenSteps): string | null {
   }
   for (const key of Object.keys(steps)) {
     if (key !== 'partials' && key !== 'lines')
-      return `The written steps have a part “${key}” I do not know; use "partials" or "lines".`;
+      return `The written steps have a part ${quoteInput(key)} I do not know; use "partials" or "lines".`;
     const list = (steps as Record<string, unknown>)[key];
-    if (!Array.isArray(list)) return `The written steps “${key}” should be a list of numbers.`;
+    if (!Array.isArray(list))
+      return `The written steps ${quoteInput(key)} should be a list of numbers.`;
     for (const item of list) {
       if (typeof item !== 'string' || !/^\d[\d,]*$/.test(item.trim())) {
-        return `In the written steps “${key}”, ${JSON.stringify(item)} is not a whole number.`;
+        const shown = typeof item === 'string' ? item : String(JSON.stringify(item));
+        return `In the written steps ${quoteInput(key)}, ${quoteInput(shown)} is not a whole number.`;
       }
     }
   }

@@ -25,7 +25,13 @@ describe('parseAnswer', () => {
     ['3/0', /0 as its bottom number/],
     ['-5', /below zero/],
     ['12,34', /comma/],
-    ['seven', /“s”/],
+    ['seven', /the word “seven”/],
+    // Issue 11 §3: a word is named whole, an emoji is quoted whole, long input is shortened.
+    ['7 rem 3', /the word “rem”.*R, as in 7 R 3/],
+    ['forty-three', /the word “forty-three”.*digits/],
+    ['4😀3', /“😀”/],
+    ['4👨‍👩‍👧3', /“👨‍👩‍👧”/],
+    ['9'.repeat(500), /“9{32}…” is longer than 30 digits/],
     ['7 R 3 R 1', /could not read the answer/],
   ])('refuses %j', (text, message) => {
     const read = parseAnswer(text);

@@ -1,3 +1,5 @@
+import { graphemeAt } from './graphemeAt.js';
+import { quoteInput } from './quoteInput.js';
 import { readWhole } from './readWhole.js';
 import type { ParsedAnswer } from './types.js';
 
@@ -79,10 +81,26 @@ export function parseAnswer(text: string): ParsedAnswer {
 
   if (/^[-−–]\s*\d/.test(s))
     return fail('Answers below zero are not part of the problems Workback checks.', offset);
-  const bad = /[^\d\s,./rR<>=]/.exec(s);
-  if (bad !== null) return fail(`I could not read “${bad[0]}” in the answer.`, offset + bad.index);
+  // A word (not the R of a remainder) is named whole: “rem”, “forty-three”.
+  const word = /\p{L}+(?:[-'’]\p{L}+)*/gu;
+  for (let m = word.exec(s); m !== null; m = word.exec(s)) {
+    if (/^r$/i.test(m[0])) continue;
+    const hint = /^rem(ainder)?s?$/i.test(m[0])
+      ? 'write a remainder with R, as in 7 R 3'
+      : 'write the answer in digits, as in 43';
+    return fail(
+      `I could not read the word ${quoteInput(m[0])} in the answer; ${hint}.`,
+      offset + m.index,
+    );
+  }
+  const bad = /[^\d\s,./rR<>=]/u.exec(s);
+  if (bad !== null)
+    return fail(
+      `I could not read ${quoteInput(graphemeAt(s, bad.index))} in the answer.`,
+      offset + bad.index,
+    );
   return fail(
-    `I could not read the answer “${s}”; write a number, q R r, a fraction or <, >, =.`,
+    `I could not read the answer ${quoteInput(s)}; write a number, q R r, a fraction or <, >, =.`,
     offset,
   );
 }

@@ -1,5 +1,7 @@
 import { compareWhole } from '../numbers/digits.js';
 import { formatExpression, formatFraction } from './formatProblem.js';
+import { graphemeAt } from './graphemeAt.js';
+import { quoteInput } from './quoteInput.js';
 import { MAX_DIGITS, readWhole } from './readWhole.js';
 import type { Fraction, Operation, ParsedProblem, ReadError, RoundingPlace } from './types.js';
 
@@ -79,6 +81,10 @@ export function parseProblem(text: string): ParsedProblem {
   return parseExpression(tokens, true);
 }
 
+/** The word (letters, with inner hyphens or apostrophes) that starts at `i`: `'forty-three'`. */
+const wordAt = (text: string, i: number): string =>
+  /^\p{L}+(?:[-'’]\p{L}+)*/u.exec(text.slice(i))?.[0] ?? graphemeAt(text, i);
+
 function tokenize(text: string): Token[] | ReadError {
   const tokens: Token[] = [];
   let i = 0;
@@ -93,7 +99,7 @@ function tokenize(text: string): Token[] | ReadError {
       const raw = (m?.[0] ?? ch).replace(/,+$/, '');
       if (raw.includes('.')) {
         return {
-          message: `“${raw}” is a decimal; Workback checks problems with whole numbers and fractions.`,
+          message: `${quoteInput(raw)} is a decimal; Workback checks problems with whole numbers and fractions.`,
           at: i,
         };
       }
@@ -103,9 +109,8 @@ function tokenize(text: string): Token[] | ReadError {
     }
     const op = OPS[ch];
     if (op !== undefined) {
-      if ((ch === 'x' || ch === 'X') && /[a-z]/i.test(text[i + 1] ?? '')) {
-        const word = /^[a-z]+/i.exec(text.slice(i))?.[0] ?? ch;
-        return { message: `I could not read the word “${word}”.`, at: i };
+      if ((ch === 'x' || ch === 'X') && /\p{L}/u.test(text[i + 1] ?? '')) {
+        return { message: `I could not read the word ${quoteInput(wordAt(text, i))}.`, at: i };
       }
       tokens.push({ t: 'op', op, text: ch, at: i });
       i += 1;
@@ -114,9 +119,8 @@ function tokenize(text: string): Token[] | ReadError {
     if (ch === '/') tokens.push({ t: 'slash', text: ch, at: i });
     else if (ch === '?' || ch === '_') tokens.push({ t: 'blank', text: ch, at: i });
     else if (ch === '=') tokens.push({ t: 'eq', text: ch, at: i });
-    else if (/[a-z]/i.test(ch)) {
-      const word = /^[a-z]+/i.exec(text.slice(i))?.[0] ?? ch;
-      return { message: `I could not read the word “${word}”.`, at: i };
+    else if (/\p{L}/u.test(graphemeAt(text, i))) {
+      return { message: `I could not read the word ${quoteInput(wordAt(text, i))}.`, at: i };
     } else if (ch === '(' || ch === ')') {
       return {
         message:
@@ -126,7 +130,7 @@ function tokenize(text: string): Token[] | ReadError {
     } else if (ch === ',' || ch === '.') {
       return { message: `I could not read the “${ch}” here; it is not part of a number.`, at: i };
     } else {
-      return { message: `I could not read “${ch}”.`, at: i };
+      return { message: `I could not read ${quoteInput(graphemeAt(text, i))}.`, at: i };
     }
     i += 1;
   }
@@ -147,18 +151,18 @@ function readTerms(
         if (!read.ok) return read.error;
         terms.push({ t: 'num', value: read.value, at: tk.at });
       } else if (tk.t === 'blank') terms.push({ t: 'blank', at: tk.at });
-      else return { message: `A number should come before “${tk.text}”.`, at: tk.at };
+      else return { message: `A number should come before ${quoteInput(tk.text)}.`, at: tk.at };
     } else if (tk.t === 'op') ops.push({ op: tk.op, at: tk.at });
     else if (tk.t === 'slash') ops.push({ op: '÷', at: tk.at });
     else
       return {
-        message: `An operation sign (+, −, ×, ÷) should come before “${tk.text}”.`,
+        message: `An operation sign (+, −, ×, ÷) should come before ${quoteInput(tk.text)}.`,
         at: tk.at,
       };
   }
   if (tokens.length % 2 === 0) {
     const last = tokens[tokens.length - 1] as Token;
-    return { message: `A number should follow “${last.text}”.`, at: last.at };
+    return { message: `A number should follow ${quoteInput(last.text)}.`, at: last.at };
   }
   return { terms, ops };
 }
@@ -385,7 +389,7 @@ function parseFractions(tokens: readonly Token[]): ParsedProblem | null {
   }
   if (mid.t !== 'op' || (mid.op !== '+' && mid.op !== '−')) {
     return fail(
-      `Workback adds, subtracts and compares fractions; “${mid.text}” between fractions is not checked yet.`,
+      `Workback adds, subtracts and compares fractions; ${quoteInput(mid.text)} between fractions is not checked yet.`,
       mid.at,
     );
   }
@@ -421,7 +425,7 @@ function parseRounding(text: string, offset: number): ParsedProblem {
   const place = readPlace(placeText);
   if (place === null) {
     return fail(
-      `“${m[2] as string}” is not a place I can round to: use ten, hundred, thousand, ten thousand, hundred thousand or million.`,
+      `${quoteInput(m[2] as string)} is not a place I can round to: use ten, hundred, thousand, ten thousand, hundred thousand or million.`,
       offset + text.lastIndexOf(m[2] as string),
     );
   }
@@ -438,8 +442,9 @@ function parseRounding(text: string, offset: number): ParsedProblem {
 
 function readPlace(text: string): RoundingPlace | null {
   const singular = text.replace(/s$/, '');
-  const named = PLACES[singular];
-  if (named !== undefined) return { name: singular, exponent: named };
+  // Own keys only: “__proto__” or “constructor” is not a place.
+  if (Object.hasOwn(PLACES, singular))
+    return { name: singular, exponent: PLACES[singular] as number };
   const digits = text.replace(/,/g, '');
   if (/^10+$/.test(digits) && digits.length - 1 <= 6 && digits.length - 1 <= MAX_DIGITS) {
     const exponent = digits.length - 1;

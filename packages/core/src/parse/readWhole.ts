@@ -1,4 +1,5 @@
 import { stripLeadingZeros } from '../numbers/digits.js';
+import { quoteInput } from './quoteInput.js';
 import type { ReadError } from './types.js';
 
 /** Longest whole number Workback reads (digits), so columns stay drawable. */
@@ -20,7 +21,7 @@ export function readWhole(
       return {
         ok: false,
         error: {
-          message: `“${text}” is longer than ${MAX_DIGITS} digits, more than Workback can lay out in columns.`,
+          message: `${quoteInput(text)} is longer than ${MAX_DIGITS} digits, more than Workback can lay out in columns.`,
           ...where,
         },
       };
@@ -31,10 +32,10 @@ export function readWhole(
     return {
       ok: false,
       error: {
-        message: `“${text}” has a comma in an unexpected place; commas can only separate thousands, as in 27,493.`,
+        message: `${quoteInput(text)} has a comma in an unexpected place; commas can only separate thousands, as in 27,493.`,
         ...where,
       },
     };
   }
-  return { ok: false, error: { message: `“${text}” is not a whole number.`, ...where } };
+  return { ok: false, error: { message: `${quoteInput(text)} is not a whole number.`, ...where } };
 }
