@@ -202,6 +202,7 @@ describe('accepting', () => {
       email: 'twice-account@example.test',
     });
     expect(again.status).toBe(410);
+    expect(again.body).toMatchObject({ statusCode: 410, error: 'Gone' });
     expect(again.body.message).toMatch(/already been used/);
     const login = await new Client(t.http()).signIn(
       'twice-account@example.test',

@@ -12,9 +12,6 @@ export const PLAN_CSV_COLUMNS = [
   'miss_ids',
 ] as const;
 
-// A spreadsheet reads a cell starting with = + - @ as a formula: such cells get a leading quote.
-const guard = (cell: string) => (/^[=+\-@\t\r]/.test(cell) ? `'${cell}` : cell);
-
 /** The plan as rows for a spreadsheet: one per lesson range, fact family, miss, and practice problem. */
 export function renderReviewPlanCsv(plan: ReviewPlanJson): string {
   const rows: string[][] = [];
@@ -54,7 +51,10 @@ export function renderReviewPlanCsv(plan: ReviewPlanJson): string {
         ]);
     }
   }
-  return stringify([[...PLAN_CSV_COLUMNS], ...rows.map((r) => r.map(guard))], {
+  // A spreadsheet reads a cell starting with = + - @ (or their full-width forms, tab or CR) as a
+  // formula: csv-stringify gives such cells a leading quote, as the key CSV does.
+  return stringify([[...PLAN_CSV_COLUMNS], ...rows], {
     record_delimiter: 'windows',
+    escape_formulas: true,
   });
 }

@@ -40,6 +40,8 @@ const hostileValue: fc.Arbitrary<unknown> = fc.oneof(
   fc.string({ maxLength: 30 }),
   fc.string({ unit: 'grapheme', maxLength: 30 }),
   fc.constantFrom('', ' ', '\u0000', '😀'.repeat(300), 'x'.repeat(20_000), '<script>', '../../etc'),
+  // Control characters (NUL, bell, escape, CR, C1) inside otherwise fine text.
+  fc.constantFrom('a\u0000b', 'bell\u0007', '\u001b[31mred', 'cr\rhere', 'c1\u0085', 'two\nlines'),
   fc.integer(),
   fc.constantFrom(-1, 0, 1e308, -1e308, Number.MAX_SAFE_INTEGER, 2 ** 63, 0.5),
   fc.boolean(),
@@ -49,7 +51,23 @@ const hostileValue: fc.Arbitrary<unknown> = fc.oneof(
   fc.constantFrom('2026-02-30', '2026-13-01', '9999-99-99T99:99', 'NaN', 'true', '1e999'),
 );
 
+const hostileText: fc.Arbitrary<string> = fc.oneof(
+  fc.string({ maxLength: 30 }),
+  fc.string({ unit: 'grapheme', maxLength: 30 }),
+  fc.string({ unit: 'binary', maxLength: 12 }),
+  fc.constantFrom(...['0x13', '1e1', '19.0', '-1', '1e999', 'NaN', '2026-02-30', '\u0000']),
+);
+
 const POLLUTION = ['__proto__', 'constructor', 'prototype', 'isAdmin', 'householdId', 'role'];
+
+/** `{"field":[[[…]]]}` or `{"field":{"a":{"a":…}}}`, `levels` deep. */
+function nested(field: string, levels: number, kind: 'array' | 'object'): string {
+  const [open, close] = kind === 'array' ? ['[', ']'] : ['{"a":', '}'];
+  return `{${JSON.stringify(field)}:${open.repeat(levels)}${kind === 'array' ? '' : '1'}${close.repeat(levels)}}`;
+}
+
+/** Ids that are not plain decimal digits, each once read by a lenient parser as 19 or 10. */
+export const ODD_IDS = ['0x13', '1e1', '19.0', '+19', ' 19', '19 ', '0b10011', '019.', '１９'];
 
 /** A JSON text: known fields with hostile values, unknown or polluting keys, or any JSON at all. */
 function bodyArbitrary(fields: string[]): fc.Arbitrary<string> {
@@ -70,6 +88,16 @@ function bodyArbitrary(fields: string[]): fc.Arbitrary<string> {
   return fc.oneof(
     { weight: 6, arbitrary: shaped },
     { weight: 2, arbitrary: fc.jsonValue({ maxDepth: 3 }).map((v) => JSON.stringify(v)) },
+    {
+      weight: 1,
+      arbitrary: fc
+        .tuple(
+          fc.constantFrom(...keys),
+          fc.integer({ min: 30, max: 3000 }),
+          fc.constantFrom('array' as const, 'object' as const),
+        )
+        .map(([field, levels, kind]) => nested(field, levels, kind)),
+    },
     {
       weight: 1,
       arbitrary: fc.constantFrom(
@@ -125,7 +153,13 @@ export function fuzzWriteRoutes({ part, of }: { part: number; of: number }): voi
   let doc: {
     paths: Record<
       string,
-      Record<string, { requestBody?: { content: Record<string, { schema?: { $ref?: string } }> } }>
+      Record<
+        string,
+        {
+          requestBody?: { content: Record<string, { schema?: { $ref?: string } }> };
+          parameters?: { name: string; in: string }[];
+        }
+      >
     >;
   };
 
@@ -282,6 +316,25 @@ export function fuzzWriteRoutes({ part, of }: { part: number; of: number }): voi
           continue;
         }
 
+        // Every field holding a NUL byte, and a body nested 3,000 deep: refused, never stored.
+        for (const field of fields) {
+          for (const text of [
+            `{${JSON.stringify(field)}:"a\\u0000b"}`,
+            nested(field, 3000, 'array'),
+            nested(field, 40, 'object'),
+          ]) {
+            const res = await client.agent[method](target)
+              .set('x-csrf-token', client.token)
+              .set('Content-Type', 'application/json')
+              .send(text);
+            expect(
+              res.status,
+              `${route} with ${text.slice(0, 60)}: ${res.text}`,
+            ).toBeGreaterThanOrEqual(400);
+            await expectUnchangedIfRefused(route, res, text);
+          }
+        }
+
         await fc.assert(
           fc.asyncProperty(bodyArbitrary(fields), async (text) => {
             const res = await client.agent[method](target)
@@ -295,6 +348,59 @@ export function fuzzWriteRoutes({ part, of }: { part: number; of: number }): voi
       }
       // Pollution never reached the prototype of plain objects.
       expect(({} as Record<string, unknown>).isAdmin).toBeUndefined();
+    }, 1_200_000);
+
+    it('refuses control characters and odd ids in the queries and paths of read routes', async () => {
+      const reads = listApiRoutes(t.app)
+        .filter((r) => r.startsWith('GET /api/') && !r.startsWith('GET /api/docs'))
+        .filter((_, i) => i % of === part);
+      expect(reads.length).toBeGreaterThan(5);
+      const refusedNaming = async (url: string, name: string) => {
+        const res = await owner.get(url);
+        expect(res.status, `${url}: ${(res.text ?? '').slice(0, 200)}`).toBe(400);
+        // A CSV or PDF route's refusal is JSON under the route's own content type.
+        const body = (res.body?.fields ? res.body : JSON.parse(res.text)) as {
+          fields?: Record<string, string>;
+        };
+        expect(Object.keys(body.fields ?? {}), url).toContain(name);
+      };
+      for (const route of reads) {
+        const url = route.split(' ')[1]!;
+        const op = doc.paths[url.replace(/:(\w+)/g, '{$1}')]?.get;
+        const query = (op?.parameters ?? []).filter((p) => p.in === 'query').map((p) => p.name);
+        const base = await resolvePath(`GET ${url}`);
+        // Routes the owner may not read (the site admin's) answer 403 before any parsing.
+        if ((await owner.get(base)).status === 403) continue;
+        for (const name of query) {
+          await refusedNaming(`${base}?${name}=a%00b`, name);
+          await refusedNaming(`${base}?${name}=%07%1b`, name);
+          if (/Id$|^page/.test(name)) {
+            for (const odd of ODD_IDS)
+              await refusedNaming(`${base}?${name}=${encodeURIComponent(odd)}`, name);
+          }
+        }
+        if (url.includes(':id')) {
+          for (const odd of ODD_IDS) {
+            await refusedNaming(
+              url.replace(':id', encodeURIComponent(odd)).replace(/:(\w+)/g, '1'),
+              'id',
+            );
+          }
+        }
+        await fc.assert(
+          fc.asyncProperty(
+            fc.array(fc.tuple(fc.constantFrom(...query, 'x'), hostileText), { maxLength: 4 }),
+            async (pairs) => {
+              const qs = pairs.map(([k, v]) => `${k}=${encodeURIComponent(v)}`).join('&');
+              const res = await owner.get(`${base}?${qs}`);
+              const text = res.text ?? '';
+              const body = res.status >= 400 && !res.body?.message ? JSON.parse(text) : res.body;
+              checkRefusal(route, { status: res.status, body, text });
+            },
+          ),
+          { numRuns: Math.ceil(RUNS / 10) },
+        );
+      }
     }, 1_200_000);
   });
 }

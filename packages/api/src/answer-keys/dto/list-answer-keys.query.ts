@@ -1,12 +1,12 @@
 import { ApiPropertyOptional } from '@nestjs/swagger';
-import { Type } from 'class-transformer';
 import { IsIn, IsInt, IsOptional, Min } from 'class-validator';
 import { KEY_KINDS, type KeyKind } from '../models/answer-key.model.js';
+import { WholeNumber } from '../../common/decorators/id-param.decorator.js';
 
 export class ListAnswerKeysQuery {
   @ApiPropertyOptional()
   @IsOptional()
-  @Type(() => Number)
+  @WholeNumber()
   @IsInt({ message: 'courseId must be a whole number' })
   @Min(1, { message: 'courseId must be a whole number' })
   courseId?: number;

@@ -1,6 +1,6 @@
 import { ApiProperty, ApiPropertyOptional } from '@nestjs/swagger';
 import { CAUSES, MISS_STATUSES, type Cause, type MissStatus } from '@workback/core';
-import { Transform, Type } from 'class-transformer';
+import { Transform } from 'class-transformer';
 import {
   ArrayMaxSize,
   IsArray,
@@ -19,6 +19,8 @@ import {
 import type { WrittenSteps } from '@workback/core';
 import { Trim } from '../../common/decorators/trim.decorator.js';
 import { CalendarDate } from './calendar-date.validator.js';
+import { MultiLine } from '../../common/decorators/multi-line.decorator.js';
+import { WholeNumber } from '../../common/decorators/id-param.decorator.js';
 
 /** Multipart fields arrive as text: a JSON field is parsed, and left as text for the validator to refuse when it is not JSON. */
 export const ParseJsonField = () =>
@@ -36,7 +38,7 @@ const present = (_: object, value: unknown) => value !== undefined;
 
 export class CreateMissDto {
   @ApiProperty({ example: 1 })
-  @Type(() => Number)
+  @WholeNumber()
   @IsInt({ message: 'studentId must be a whole number' })
   @IsPositive({ message: 'studentId must be a whole number' })
   studentId: number;
@@ -70,6 +72,7 @@ export class CreateMissDto {
   @ApiPropertyOptional({ description: 'The child’s own words, kept as written', maxLength: 2000 })
   @ValidateIf(present)
   @IsString()
+  @MultiLine()
   @MaxLength(2000, { message: 'explanation must be at most 2000 characters' })
   explanation?: string;
 
@@ -81,6 +84,7 @@ export class CreateMissDto {
   @ApiPropertyOptional({ description: 'The parent’s note', maxLength: 2000 })
   @ValidateIf(present)
   @IsString()
+  @MultiLine()
   @MaxLength(2000, { message: 'note must be at most 2000 characters' })
   note?: string;
 

@@ -1,6 +1,5 @@
 import { ApiPropertyOptional } from '@nestjs/swagger';
 import { CAUSES, MISS_STATUSES, type Cause, type MissStatus } from '@workback/core';
-import { Type } from 'class-transformer';
 import {
   IsIn,
   IsInt,
@@ -12,6 +11,7 @@ import {
 } from 'class-validator';
 import { PageQuery } from '../../common/dto/page.query.js';
 import { CalendarDate } from './calendar-date.validator.js';
+import { WholeNumber } from '../../common/decorators/id-param.decorator.js';
 
 export const MISS_SORTS = [
   'occurredOn',
@@ -26,7 +26,7 @@ const SORT_VALUES = MISS_SORTS.flatMap((s) => [s, `-${s}`]);
 export class ListMissesQuery extends PageQuery {
   @ApiPropertyOptional()
   @IsOptional()
-  @Type(() => Number)
+  @WholeNumber()
   @IsInt({ message: 'studentId must be a whole number' })
   @IsPositive({ message: 'studentId must be a whole number' })
   studentId?: number;

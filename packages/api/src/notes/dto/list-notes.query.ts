@@ -1,12 +1,12 @@
 import { ApiPropertyOptional } from '@nestjs/swagger';
-import { Type } from 'class-transformer';
 import { IsInt, IsOptional, IsPositive } from 'class-validator';
 import { PageQuery } from '../../common/dto/page.query.js';
+import { WholeNumber } from '../../common/decorators/id-param.decorator.js';
 
 export class ListNotesQuery extends PageQuery {
   @ApiPropertyOptional({ description: 'The notes of one miss, oldest first' })
   @IsOptional()
-  @Type(() => Number)
+  @WholeNumber()
   @IsInt({ message: 'missId must be a whole number' })
   @IsPositive({ message: 'missId must be a whole number' })
   missId?: number;

@@ -1,11 +1,11 @@
 import { ApiProperty, ApiPropertyOptional } from '@nestjs/swagger';
-import { Type } from 'class-transformer';
 import { IsInt, IsOptional, IsPositive, Validate } from 'class-validator';
 import { CalendarDate } from '../../misses/dto/calendar-date.validator.js';
+import { WholeNumber } from '../../common/decorators/id-param.decorator.js';
 
 export class PatternsQuery {
   @ApiProperty({ example: 1 })
-  @Type(() => Number)
+  @WholeNumber()
   @IsInt({ message: 'studentId must be a whole number' })
   @IsPositive({ message: 'studentId must be a whole number' })
   studentId: number;
@@ -23,7 +23,7 @@ export class PatternsQuery {
 
 export class PatternNotesQuery {
   @ApiProperty({ example: 1 })
-  @Type(() => Number)
+  @WholeNumber()
   @IsInt({ message: 'studentId must be a whole number' })
   @IsPositive({ message: 'studentId must be a whole number' })
   studentId: number;

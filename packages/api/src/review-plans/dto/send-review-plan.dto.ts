@@ -11,6 +11,7 @@ import {
 } from 'class-validator';
 import { IfPresent } from '../../common/decorators/if-present.decorator.js';
 import { Trim } from '../../common/decorators/trim.decorator.js';
+import { MultiLine } from '../../common/decorators/multi-line.decorator.js';
 
 export class SendReviewPlanDto {
   @ApiProperty({ type: [Number], description: 'Household member ids (GET /members) to e-mail' })
@@ -26,6 +27,7 @@ export class SendReviewPlanDto {
   @IfPresent()
   @Trim()
   @IsString({ message: 'message must be text' })
+  @MultiLine()
   @MaxLength(500, { message: 'message must be at most 500 characters' })
   message?: string;
 }

@@ -13,6 +13,7 @@ import {
 } from 'class-validator';
 import { Trim } from '../../common/decorators/trim.decorator.js';
 import { IfPresent } from '../../common/decorators/if-present.decorator.js';
+import { MultiLine } from '../../common/decorators/multi-line.decorator.js';
 
 const notNull = (_: object, value: unknown) => value !== null && value !== undefined;
 
@@ -30,6 +31,7 @@ export class SittingConditionsDto {
   @ApiPropertyOptional({ example: 'a bit distracted by the rain', maxLength: 300 })
   @ValidateIf(notNull)
   @Trim()
+  @MultiLine()
   @MaxLength(300, { message: 'conditions.note must be at most 300 characters' })
   @IsString({ message: 'conditions.note must be text' })
   note?: string | null;

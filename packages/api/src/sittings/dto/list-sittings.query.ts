@@ -1,7 +1,7 @@
 import { ApiPropertyOptional } from '@nestjs/swagger';
-import { Type } from 'class-transformer';
 import { IsIn, IsInt, IsOptional, IsPositive, Max, Min, Validate } from 'class-validator';
 import { CalendarDate } from '../../misses/dto/calendar-date.validator.js';
+import { WholeNumber } from '../../common/decorators/id-param.decorator.js';
 
 export const SITTING_SORTS = ['startedAt', '-startedAt'] as const;
 
@@ -20,28 +20,28 @@ export class SittingRangeQuery {
 export class ListSittingsQuery extends SittingRangeQuery {
   @ApiPropertyOptional()
   @IsOptional()
-  @Type(() => Number)
+  @WholeNumber()
   @IsInt({ message: 'studentId must be a whole number' })
   @IsPositive({ message: 'studentId must be a whole number' })
   studentId?: number;
 
   @ApiPropertyOptional()
   @IsOptional()
-  @Type(() => Number)
+  @WholeNumber()
   @IsInt({ message: 'answerKeyId must be a whole number' })
   @IsPositive({ message: 'answerKeyId must be a whole number' })
   answerKeyId?: number;
 
   @ApiPropertyOptional({ default: 1 })
   @IsOptional()
-  @Type(() => Number)
+  @WholeNumber()
   @IsInt({ message: 'page must be a whole number' })
   @Min(1, { message: 'page must be 1 or more' })
   page?: number;
 
   @ApiPropertyOptional({ default: 50, maximum: 100 })
   @IsOptional()
-  @Type(() => Number)
+  @WholeNumber()
   @IsInt({ message: 'pageSize must be a whole number' })
   @Min(1, { message: 'pageSize must be 1 to 100' })
   @Max(100, { message: 'pageSize must be 1 to 100' })
