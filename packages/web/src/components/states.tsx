@@ -34,7 +34,7 @@ export function EmptyState({
 function describe(error: unknown): string {
   if (isApiError(error, 403)) return 'Your role in this household does not allow this.';
   if (isApiError(error, 404))
-    return 'This is not here any more, or it belongs to another household.';
+    return 'This is not here, or it has not been shared with you. If you help a family, ask them to share it from their Members page.';
   if (isApiError(error)) return error.message;
   return 'Something went wrong on this page.';
 }
@@ -52,7 +52,7 @@ export function ErrorState({
     <div className="wb-state wb-state-error" role="alert">
       <p className="wb-state-title">{title}</p>
       <p>{describe(error)}</p>
-      {onRetry ? (
+      {onRetry && !isApiError(error, 404) && !isApiError(error, 403) ? (
         <Button icon={<RefreshIcon />} onClick={onRetry} variant="outlined">
           Try again
         </Button>

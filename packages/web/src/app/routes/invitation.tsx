@@ -32,7 +32,7 @@ export default function InvitationRoute() {
         <InvitationView
           token={token}
           me={me.data ?? null}
-          caution={<PrivacyCaution />}
+          caution={(role) => <PrivacyCaution audience={role === 'tutor' ? 'tutor' : 'parent'} />}
           onJoined={(joined) => {
             toast(`Welcome to ${joined.household?.name ?? 'the household'}.`);
             void navigate(paths.app.students.getHref(), { replace: true });

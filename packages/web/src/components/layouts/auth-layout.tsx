@@ -18,7 +18,9 @@ export function AuthLayout({
     <div className="wb-auth">
       <header className="wb-auth-header">
         <Brand />
-        <p className="wb-tagline">A notebook for the math problems your child missed.</p>
+        <p className="wb-tagline">
+          A notebook for the math problems a child missed, and what to review next.
+        </p>
       </header>
       <main className="wb-auth-main" id="main">
         <section className="wb-sheet" aria-labelledby="page-title">

@@ -13,7 +13,7 @@ export type InvitationPreview = {
 export type AcceptInput = { displayName?: string; password?: string; email?: string };
 
 export const ROLE_PROMISE: Readonly<Record<Role, string>> = {
-  owner: 'As an owner you can change everything in the household.',
+  owner: 'An owner can change everything in the household.',
   parent: 'As a parent you will see and change everything in the household.',
   tutor:
     'As a tutor you will see the work of the children they chose for you, add notes and build review plans. Only the family changes their details.',

@@ -39,7 +39,9 @@ describe('invitation page', () => {
     expect((await screen.findByText('kit@example.test')).closest('p')).toHaveTextContent(
       'Sam invited kit@example.test to join Maple Table as a tutor.',
     );
-    expect(screen.getByText('About your children’s data')).toBeInTheDocument();
+    // A tutor is spoken to as a tutor: the children are the family's, not theirs.
+    expect(screen.getByText('About the children’s data you will see')).toBeInTheDocument();
+    expect(screen.queryByText(/your child|As the owner you can export/i)).not.toBeInTheDocument();
     expect(screen.getByRole('link', { name: 'Sign in, then join' })).toHaveAttribute(
       'href',
       `/sign-in?redirectTo=${encodeURIComponent(`/invitations/${TOKEN}`)}`,

@@ -110,7 +110,8 @@ export function InvitationView({
 }: {
   token: string;
   me: Me | null;
-  caution: ReactNode;
+  /** The data caution, worded for the role the invitation is for. */
+  caution: (role: InvitationPreview['role']) => ReactNode;
   onJoined: (me: Me) => void;
 }) {
   const invitation = useInvitation(token);
@@ -148,7 +149,7 @@ export function InvitationView({
               token={token}
               invitedEmail={preview.email}
               householdName={preview.householdName}
-              caution={caution}
+              caution={caution(preview.role)}
               onJoined={onJoined}
             />
           </section>

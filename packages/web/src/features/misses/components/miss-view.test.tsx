@@ -245,6 +245,8 @@ describe('The miss page', () => {
     });
     renderApp('/misses/12');
     expect(await screen.findByText('This miss could not be loaded.')).toBeInTheDocument();
-    expect(screen.getByText(/belongs to another household/)).toBeInTheDocument();
+    expect(screen.getByText(/has not been shared with you/)).toBeInTheDocument();
+    // Nothing to retry: the miss is not there for this reader.
+    expect(screen.queryByRole('button', { name: 'Try again' })).not.toBeInTheDocument();
   });
 });
