@@ -116,7 +116,14 @@ export class HouseholdDataService {
       zip.addBuffer(Buffer.from(JSON.stringify(rows, null, 2)), `tables/${name}.json`);
     }
     for (const [file, inside] of snap.files) zip.addFile(file, inside);
-    for (const [key, inside] of snap.objects) zip.addBuffer(await this.storage.read(key), inside);
+    for (const [key, inside] of snap.objects) {
+      // As with the local folder, a row whose file is gone is exported without it.
+      const data = await this.storage.read(key).catch((err: NodeJS.ErrnoException) => {
+        if (err.code === 'ENOENT') return undefined;
+        throw err;
+      });
+      if (data) zip.addBuffer(data, inside);
+    }
     zip.end();
     return zip;
   }
