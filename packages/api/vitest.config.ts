@@ -8,6 +8,8 @@ export default defineConfig({
   test: {
     name: 'api',
     include: ['src/**/*.spec.ts', 'test/**/*.test.ts'],
+    // *.pg.test.ts need PostgreSQL (the api-pg project, vitest.pg.config.ts).
+    exclude: ['test/**/*.pg.test.ts'],
     globalSetup: ['test/support/global-setup.ts'],
     environment: 'node',
     testTimeout: 30_000,
