@@ -2,6 +2,7 @@ import { createHash } from 'node:crypto';
 import { QueryTypes } from 'sequelize';
 import { Sequelize } from 'sequelize-typescript';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { DemoSeeder } from '../src/seed/demo-seeder.js';
 import { linkPath, outbox, waitForMail } from './support/mail.js';
 import {
   Client,
@@ -139,6 +140,22 @@ describe('a new account confirms its address', () => {
     for (const email of [DEMO.owner, DEMO.parent, DEMO.tutor, DEMO.admin]) {
       expect((await me(await signedIn(t, email))).user.emailVerified, email).toBe(true);
     }
+  });
+});
+
+describe('a demo seeded before addresses were confirmed', () => {
+  it('has its accounts confirmed at the next start, and nobody else’s', async () => {
+    const c = await registered(t, 'not-demo@example.test', 'Not the demo');
+    const db = t.app.get(Sequelize);
+    await db.query('UPDATE users SET email_verified_at = NULL WHERE email LIKE ?', {
+      replacements: ['%@workback.test'],
+    });
+    expect((await me(await signedIn(t, DEMO.owner))).user.emailVerified).toBe(false);
+    expect(await t.app.get(DemoSeeder).seedIfEmpty()).toBe(false);
+    for (const email of [DEMO.owner, DEMO.parent, DEMO.tutor, DEMO.admin]) {
+      expect((await me(await signedIn(t, email))).user.emailVerified, email).toBe(true);
+    }
+    expect((await me(c)).user.emailVerified).toBe(false);
   });
 });
 
