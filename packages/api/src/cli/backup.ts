@@ -1,11 +1,17 @@
 import path from 'node:path';
 import { parseArgs } from 'node:util';
 import { createBackup } from '../backup/archive.js';
+import { postgresGuidance } from '../backup/postgres-guidance.js';
 import { validateEnv } from '../config/env.validation.js';
 
 // npm run backup -- --out FILE   (safe while the server runs)
 const { values } = parseArgs({ options: { out: { type: 'string' } } });
-const dataDir = path.resolve(validateEnv(process.env).DATA_DIR);
+const env = validateEnv(process.env);
+if (env.DATABASE_URL) {
+  console.error(postgresGuidance(env, 'backup'));
+  process.exit(2);
+}
+const dataDir = path.resolve(env.DATA_DIR);
 const out = values.out ?? `workback-backup-${new Date().toISOString().slice(0, 10)}.tar.gz`;
 
 createBackup(dataDir, out).then(
