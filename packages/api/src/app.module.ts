@@ -1,4 +1,3 @@
-import { randomUUID } from 'node:crypto';
 import { Module } from '@nestjs/common';
 import { ConfigModule, ConfigService } from '@nestjs/config';
 import { APP_FILTER, APP_GUARD } from '@nestjs/core';
@@ -6,7 +5,6 @@ import { getConnectionToken } from '@nestjs/sequelize';
 import { ThrottlerModule } from '@nestjs/throttler';
 import type { Request } from 'express';
 import type { Sequelize } from 'sequelize-typescript';
-import { LoggerModule } from 'nestjs-pino';
 import { AnswerKeysModule } from './answer-keys/answer-keys.module.js';
 import { AuthModule } from './auth/auth.module.js';
 import { CheckUpsModule } from './check-ups/check-ups.module.js';
@@ -43,25 +41,6 @@ const emailOf = (req: Request) =>
 @Module({
   imports: [
     ConfigModule.forRoot({ isGlobal: true, ignoreEnvFile: true, load: [appConfig] }),
-    LoggerModule.forRootAsync({
-      inject: [ConfigService],
-      useFactory: (config: ConfigService) => ({
-        pinoHttp: {
-          level: config.getOrThrow<AppConfig>('app').logLevel,
-          genReqId: (req, res) => {
-            const id = randomUUID();
-            res.setHeader('x-request-id', id);
-            return id;
-          },
-          // Never log credentials or session ids.
-          redact: [
-            'req.headers.cookie',
-            'req.headers["x-csrf-token"]',
-            'res.headers["set-cookie"]',
-          ],
-        },
-      }),
-    }),
     ThrottlerModule.forRootAsync({
       inject: [ConfigService, getConnectionToken()],
       useFactory: (config: ConfigService, sequelize: Sequelize) => {

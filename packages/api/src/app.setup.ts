@@ -3,12 +3,12 @@ import path from 'node:path';
 import type { NestExpressApplication } from '@nestjs/platform-express';
 import { DocumentBuilder, SwaggerModule } from '@nestjs/swagger';
 import compression from 'compression';
-import type { NextFunction, Request, Response } from 'express';
+import express, { type NextFunction, type Request, type Response } from 'express';
 import session from 'express-session';
 import expressStaticGzip from 'express-static-gzip';
 import helmet from 'helmet';
-import { Logger } from 'nestjs-pino';
 import passport from 'passport';
+import { createLogger, PinoNestLogger, requestLog } from './common/logging/request-log.js';
 import { createValidationPipe } from './common/pipes/validation.pipe.js';
 import type { AppConfig } from './config/app.config.js';
 import { API_VERSION } from './health/health.controller.js';
@@ -31,7 +31,13 @@ const strictCsp = {
 
 /** Everything the HTTP app needs around its modules: security headers, sessions, docs, the web app. */
 export function configureApp(app: NestExpressApplication, config: AppConfig): void {
-  app.useLogger(app.get(Logger));
+  // Pretty lines only for a person at a terminal running the development server.
+  const logger = createLogger(
+    config.logLevel,
+    config.env === 'development' && process.stdout.isTTY === true,
+  );
+  app.useLogger(new PinoNestLogger(logger));
+  app.use(requestLog(logger));
   app.setGlobalPrefix('api');
   if (config.trustProxy) app.set('trust proxy', 1);
   app.disable('x-powered-by');
@@ -59,7 +65,10 @@ export function configureApp(app: NestExpressApplication, config: AppConfig): vo
     next();
   });
 
-  app.use(
+  // Sessions (a store read, passport) only where a route may use them: not for /api/health,
+  // the API docs, or the web app's files and pages.
+  const sessions = express.Router();
+  sessions.use(
     session({
       name: config.session.cookieName,
       secret: config.session.secret,
@@ -76,9 +85,12 @@ export function configureApp(app: NestExpressApplication, config: AppConfig): vo
       },
     }),
   );
-  app.use(absoluteLifetime(config.session.maxAgeMs));
-  app.use(passport.initialize());
-  app.use(passport.session());
+  sessions.use(absoluteLifetime(config.session.maxAgeMs));
+  sessions.use(passport.initialize());
+  sessions.use(passport.session());
+  app.use((req: Request, res: Response, next: NextFunction) =>
+    needsSession(req.path) ? sessions(req, res, next) : next(),
+  );
 
   app.useGlobalPipes(createValidationPipe());
 
@@ -108,6 +120,16 @@ function securityHeaders(config: AppConfig, directives: typeof strictCsp) {
   const xFrameOptions = { action: 'deny' as const };
   return {
     https: helmet({
+/** Public routes that never read or write the session, and everything outside /api. */
+const SESSIONLESS = ['/api/health', '/api/docs'];
+
+export function needsSession(path: string): boolean {
+  return (
+    path.startsWith('/api/') &&
+    !SESSIONLESS.some((p) => path === p || path.startsWith(`${p}/`) || path.startsWith(`${p}-`))
+  );
+}
+
       xFrameOptions,
       strictTransportSecurity: config.env === 'production' ? undefined : false,
       contentSecurityPolicy: { directives: { ...directives, upgradeInsecureRequests: [] } },

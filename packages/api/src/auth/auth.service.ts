@@ -4,6 +4,7 @@ import { InjectConnection } from '@nestjs/sequelize';
 import type { Sequelize } from 'sequelize-typescript';
 import type { AppConfig } from '../config/app.config.js';
 import type { SessionUser } from '../common/member-context.js';
+import { MemberCache } from '../households/member-cache.js';
 import { HouseholdsService } from '../households/households.service.js';
 import type { User } from '../users/models/user.model.js';
 import { UsersService } from '../users/users.service.js';
@@ -17,6 +18,7 @@ export class AuthService {
   constructor(
     private readonly users: UsersService,
     private readonly households: HouseholdsService,
+    private readonly cache: MemberCache,
     private readonly passwords: PasswordService,
     @InjectConnection() private readonly sequelize: Sequelize,
     config: ConfigService,
@@ -47,9 +49,12 @@ export class AuthService {
     return this.toSessionUser(user);
   }
 
-  async findSessionUser(id: number): Promise<SessionUser | null> {
-    const user = await this.users.findById(id);
-    return user ? this.toSessionUser(user) : null;
+  /** Read through MemberCache: a signed-in request does not read `users` each time. */
+  findSessionUser(id: number): Promise<SessionUser | null> {
+    return this.cache.user(id, async () => {
+      const user = await this.users.findById(id);
+      return user ? this.toSessionUser(user) : null;
+    });
   }
 
   async describe(user: SessionUser, householdId: number | undefined) {

@@ -10,6 +10,7 @@ import yazl from 'yazl';
 import type { MemberContext } from '../common/member-context.js';
 import { fieldsError } from '../common/pipes/validation.pipe.js';
 import type { AppConfig } from '../config/app.config.js';
+import { MemberCache } from '../households/member-cache.js';
 import { HouseholdsService } from '../households/households.service.js';
 import { SessionStoreService } from '../sessions/session-store.service.js';
 import { LocalPhotoStorage } from '../storage/local-photo-storage.js';
@@ -56,6 +57,7 @@ export class HouseholdDataService {
   constructor(
     @InjectConnection() private readonly sequelize: Sequelize,
     private readonly households: HouseholdsService,
+    private readonly memberCache: MemberCache,
     private readonly sessions: SessionStoreService,
     @Inject(PHOTO_STORAGE) private readonly storage: PhotoStorage,
     config: ConfigService,
@@ -172,6 +174,8 @@ export class HouseholdDataService {
       }
       return closing;
     });
+    // The rows went in raw SQL, past the models' hooks: forget every cached membership.
+    this.memberCache.clear();
     await this.sessions.destroyForUsers(closed);
     let files = 0;
     for (const file of snap.files.keys()) {

@@ -3,6 +3,7 @@ import { SequelizeModule } from '@nestjs/sequelize';
 import { StudentsModule } from '../students/students.module.js';
 import { HouseholdsController } from './households.controller.js';
 import { HouseholdsService } from './households.service.js';
+import { MemberCache } from './member-cache.js';
 import { MembersController } from './members.controller.js';
 import { MembersService } from './members.service.js';
 import { Household } from './models/household.model.js';
@@ -12,7 +13,7 @@ import { StudentGrant } from './models/student-grant.model.js';
 @Module({
   imports: [SequelizeModule.forFeature([Household, Membership, StudentGrant]), StudentsModule],
   controllers: [HouseholdsController, MembersController],
-  providers: [HouseholdsService, MembersService],
-  exports: [HouseholdsService, MembersService],
+  providers: [HouseholdsService, MembersService, MemberCache],
+  exports: [HouseholdsService, MembersService, MemberCache],
 })
 export class HouseholdsModule {}

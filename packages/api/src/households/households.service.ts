@@ -3,6 +3,7 @@ import { InjectModel } from '@nestjs/sequelize';
 import { Role } from '@workback/core';
 import type { Transaction } from 'sequelize';
 import type { MemberContext } from '../common/member-context.js';
+import { type CachedMembership, MemberCache } from './member-cache.js';
 import { Household } from './models/household.model.js';
 import { Membership } from './models/membership.model.js';
 import { StudentGrant } from './models/student-grant.model.js';
@@ -19,32 +20,55 @@ export class HouseholdsService {
     @InjectModel(Household) private readonly householdModel: typeof Household,
     @InjectModel(Membership) private readonly membershipModel: typeof Membership,
     @InjectModel(StudentGrant) private readonly grantModel: typeof StudentGrant,
+    private readonly cache: MemberCache,
   ) {}
 
-  /** The membership a request acts under: the session's household if still a member, else the first. */
+  /**
+   * The membership a request acts under: the session's household if still a member, else the
+   * first. Read through MemberCache, which forgets a user's memberships when any change.
+   */
   async resolveMember(
     userId: number,
     preferredHouseholdId?: number,
   ): Promise<MemberContext | null> {
-    const memberships = await this.membershipModel.findAll({
-      where: { userId },
-      order: [['id', 'ASC']],
-    });
+    const memberships = await this.cache.membershipsOf(userId, () => this.loadMemberships(userId));
     const membership =
       memberships.find((m) => m.householdId === preferredHouseholdId) ?? memberships[0];
     if (!membership) return null;
-    let studentIds: number[] | null = null;
-    if (membership.role === Role.tutor) {
-      const grants = await this.grantModel.findAll({ where: { membershipId: membership.id } });
-      studentIds = grants.map((g) => g.studentId);
-    }
     return {
       userId,
       membershipId: membership.id,
       householdId: membership.householdId,
       role: membership.role,
-      studentIds,
+      studentIds: membership.studentIds,
     };
+  }
+
+  /** Every membership of the user, oldest first, with a tutor's granted students: one query. */
+  private async loadMemberships(userId: number): Promise<CachedMembership[]> {
+    const rows = await this.membershipModel.findAll({
+      attributes: ['id', 'householdId', 'role'],
+      where: { userId },
+      order: [['id', 'ASC']],
+      raw: true,
+    });
+    const tutors = rows.filter((m) => m.role === Role.tutor).map((m) => m.id);
+    const grants = tutors.length
+      ? await this.grantModel.findAll({
+          attributes: ['membershipId', 'studentId'],
+          where: { membershipId: tutors },
+          raw: true,
+        })
+      : [];
+    return rows.map((m) => ({
+      id: m.id,
+      householdId: m.householdId,
+      role: m.role,
+      studentIds:
+        m.role === Role.tutor
+          ? grants.filter((g) => g.membershipId === m.id).map((g) => g.studentId)
+          : null,
+    }));
   }
 
   async listForUser(userId: number): Promise<HouseholdSummary[]> {

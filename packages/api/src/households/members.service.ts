@@ -91,7 +91,7 @@ export class MembersService {
     return this.findOne(member, id);
   }
 
-  /** Takes effect on the member's next request: AccessGuard reads memberships fresh each time. */
+  /** Takes effect on the member's next request: the destroy empties MemberCache. */
   async remove(member: MemberContext, id: number): Promise<void> {
     const target = await this.findModel(member, id);
     this.assertMayManage(member, target);

@@ -3,6 +3,7 @@ import { SequelizeModule } from '@nestjs/sequelize';
 import { DiagnoseModule } from '../diagnose/diagnose.module.js';
 import { PhotosModule } from '../photos/photos.module.js';
 import { StudentsModule } from '../students/students.module.js';
+import { CountCache } from './count-cache.js';
 import { MissesController } from './misses.controller.js';
 import { MissesService } from './misses.service.js';
 import { MissDiagnosis } from './models/miss-diagnosis.model.js';
@@ -17,7 +18,7 @@ import { Miss } from './models/miss.model.js';
     DiagnoseModule,
   ],
   controllers: [MissesController],
-  providers: [MissesService],
+  providers: [MissesService, CountCache],
   exports: [MissesService],
 })
 export class MissesModule {}

@@ -31,6 +31,7 @@ import { StudentsService } from '../students/students.service.js';
 import type { CreateMissDto } from './dto/create-miss.dto.js';
 import type { ListMissesQuery } from './dto/list-misses.query.js';
 import { toPatternMiss } from './pattern-miss.js';
+import { CountCache } from './count-cache.js';
 import type { UpdateMissDto } from './dto/update-miss.dto.js';
 import { missScope } from './miss-scope.js';
 import { MissDiagnosis } from './models/miss-diagnosis.model.js';
@@ -57,6 +58,7 @@ export class MissesService {
     @InjectModel(MissDiagnosis) private readonly diagnosisModel: typeof MissDiagnosis,
     @InjectConnection() private readonly sequelize: Sequelize,
     private readonly students: StudentsService,
+    private readonly counts: CountCache,
     private readonly photos: PhotosService,
     private readonly diagnoser: DiagnoseService,
   ) {}
@@ -190,16 +192,24 @@ export class MissesService {
     const pageSize = query.pageSize ?? 25;
     const where = this.listWhere(member, query);
     const offset = (page - 1) * pageSize;
-    const rows = await this.missModel.findAll({
+    // Plain rows, not model instances: a page is read, never saved.
+    const found = (await this.missModel.findAll({
+      attributes: [...SUMMARY_ATTRIBUTES],
       where,
       order: sortOrder(query.sort ?? '-occurredOn'),
       limit: pageSize,
       offset,
-    });
+      raw: true,
+    })) as unknown as RawMissRow[];
+    const rows = found.map(fromRawRow);
     // A short page (or an empty first one) already says how many there are; counting a big
-    // notebook is the costliest part of a list.
+    // notebook is the costliest part of a list, so a full page's count is kept a few seconds.
     const known = rows.length < pageSize && (rows.length > 0 || page === 1);
-    const total = known ? offset + rows.length : await this.missModel.count({ where });
+    const total = known
+      ? offset + rows.length
+      : await this.counts.count(member.householdId, countKey(member, query), () =>
+          this.missModel.count({ where }),
+        );
     const thumbs = await this.photos.thumbnails(rows.map((r) => r.id));
     const items = rows.map((m) => ({
       ...toMissSummary(m),
@@ -650,7 +660,76 @@ function sortOrder(sort: string): Order {
 }
 
 /** A row of the notebook: everything but the full diagnosis. */
-export function toMissSummary(m: Miss) {
+/** The columns a notebook page shows (toMissSummary). */
+const SUMMARY_ATTRIBUTES = [
+  'id',
+  'studentId',
+  'occurredOn',
+  'sittingId',
+  'keyItemId',
+  'problem',
+  'answer',
+  'steps',
+  'explanation',
+  'cause',
+  'note',
+  'status',
+  'skills',
+  'revisit',
+  'notCheckedReason',
+  'expected',
+  'correct',
+  'ruleIds',
+  'suggestedCause',
+  'engineVersion',
+  'createdBy',
+  'updatedBy',
+  'createdAt',
+  'updatedAt',
+] as const satisfies readonly (keyof Miss)[];
+
+type SummaryFields = Pick<Miss, (typeof SUMMARY_ATTRIBUTES)[number]>;
+type RawMissRow = Record<(typeof SUMMARY_ATTRIBUTES)[number], unknown>;
+
+/**
+ * A raw row as the model would read it: JSON text parsed, SQLite's 0/1 as a boolean and its
+ * date text ('2026-12-03 13:36:39.111 +00:00') as a Date. PostgreSQL's driver hands back
+ * booleans and Dates already.
+ */
+function fromRawRow(r: RawMissRow): SummaryFields {
+  const json = <T>(v: unknown, fallback: T): T =>
+    typeof v === 'string' ? (JSON.parse(v) as T) : ((v as T | null) ?? fallback);
+  const date = (v: unknown): Date =>
+    v instanceof Date ? v : new Date(String(v).replace(' ', 'T').replace(' ', ''));
+  return {
+    ...(r as unknown as SummaryFields),
+    steps: json(r.steps, null),
+    skills: json(r.skills, []),
+    revisit: json(r.revisit, []),
+    ruleIds: json(r.ruleIds, []),
+    correct: r.correct === null ? null : Boolean(r.correct),
+    createdAt: date(r.createdAt),
+    updatedAt: date(r.updatedAt),
+  };
+}
+
+/** Everything that decides which misses a list counts, but the page. */
+function countKey(member: MemberContext, q: ListMissesQuery): string {
+  const { studentId, cause, status, from, to, rule, skill } = q;
+  return JSON.stringify([
+    member.studentIds,
+    studentId,
+    cause,
+    status,
+    from,
+    to,
+    rule,
+    skill,
+    q.q?.trim(),
+  ]);
+}
+
+export function toMissSummary(m: SummaryFields) {
   return {
     id: m.id,
     studentId: m.studentId,

@@ -6,7 +6,7 @@ import {
   HttpStatus,
   Logger,
 } from '@nestjs/common';
-import type { Response } from 'express';
+import type { Request, Response } from 'express';
 import { MetricsService } from '../../metrics/metrics.service.js';
 import {
   DatabaseError,
@@ -52,7 +52,8 @@ export class HttpExceptionFilter implements ExceptionFilter {
     // Only what identifies the fault: errors from the ORM carry row values (children's data).
     if (body.statusCode >= 500) {
       const e = exception instanceof Error ? exception : new Error(String(exception));
-      this.logger.error({ name: e.name, message: e.message, stack: e.stack });
+      const reqId = host.switchToHttp().getRequest<Request>().id;
+      this.logger.error({ reqId, name: e.name, message: e.message, stack: e.stack });
     }
     if (res.headersSent) return;
     res.status(body.statusCode).json(body);

@@ -14,7 +14,8 @@ import { ADMIN_ONLY, ROLES_KEY } from '../decorators/roles.decorator.js';
 
 /**
  * Protected by default: signed in, then a membership of the session's household
- * (loaded fresh on every request, so a revoked member is out at once), then the
+ * (through MemberCache, emptied by every change to memberships or grants, so a
+ * revoked member is out at their next request), then the
  * route's roles. Data scoping itself happens in each service's queries.
  */
 @Injectable()
