@@ -267,6 +267,85 @@ describe('household scoping', () => {
   });
 });
 
+describe('tutor aggregates', () => {
+  it('counts and lists only the granted child’s sittings in a key’s totals and corrections', async () => {
+    const owner = clients.owner;
+    const key = (
+      await owner
+        .post('/api/answer-keys', {
+          title: 'Aggregate key',
+          kind: 'review',
+          items: [{ number: 1, prompt: '47 x 24', answer: '1,138' }],
+        })
+        .expect(201)
+    ).body;
+    const item = key.items[0].id as number;
+    const sittingOf: Record<number, number> = {};
+    for (const student of [granted, ungranted]) {
+      const s = await owner
+        .post('/api/sittings', {
+          studentId: student,
+          answerKeyId: key.id,
+          startedAt: '2026-01-07T09:00',
+        })
+        .expect(201);
+      sittingOf[student] = s.body.id;
+      await owner
+        .send('put', `/api/sittings/${s.body.id}/marks`, {
+          marks: [{ keyItemId: item, correct: false, answer: '1,128' }],
+        })
+        .expect(200);
+    }
+    await owner
+      .send('patch', `/api/answer-keys/${key.id}`, {
+        reason: 'The printed key had a typo',
+        items: [{ id: item, number: 1, prompt: '47 x 24', answer: '1,128' }],
+      })
+      .expect(200);
+
+    const countIn = async (c: Client) =>
+      (
+        (await c.get('/api/answer-keys').expect(200)).body.items as {
+          id: number;
+          sittingCount: number;
+        }[]
+      ).find((k) => k.id === key.id)!.sittingCount;
+    const remarkedIn = async (c: Client) =>
+      (await c.get(`/api/answer-keys/${key.id}`).expect(200)).body.corrections[0]
+        .remarkedSittingIds;
+
+    expect(await countIn(owner)).toBe(2);
+    expect(await countIn(clients.tutor)).toBe(1);
+    expect(
+      (await clients.tutor.get(`/api/answer-keys/${key.id}`).expect(200)).body.sittingCount,
+    ).toBe(1);
+    expect(await remarkedIn(owner)).toEqual(
+      [sittingOf[granted], sittingOf[ungranted]].sort((a, b) => a! - b!),
+    );
+    expect(await remarkedIn(clients.tutor)).toEqual([sittingOf[granted]]);
+  });
+});
+
+describe('odd ids', () => {
+  it.each(['0x13', '1e1', '19.0', '+19', '0', '-1'])(
+    'answers 400 naming id for %j in a path',
+    async (odd) => {
+      const res = await clients.owner.get(`/api/students/${encodeURIComponent(odd)}`);
+      expect(res.status).toBe(400);
+      expect(Object.keys(res.body.fields)).toEqual(['id']);
+    },
+  );
+
+  it.each(['0x13', '1e1', '19.0'])(
+    'answers 400 naming studentId for %j in a query',
+    async (odd) => {
+      const res = await clients.owner.get(`/api/misses?studentId=${encodeURIComponent(odd)}`);
+      expect(res.status).toBe(400);
+      expect(Object.keys(res.body.fields)).toEqual(['studentId']);
+    },
+  );
+});
+
 describe('access matrix', () => {
   it('covers every route the app serves', () => {
     const served = listApiRoutes(t.app).filter((r) => !r.startsWith('GET /api/docs'));

@@ -10,7 +10,11 @@ import { validateSync } from 'class-validator';
 import { Op, type Transaction } from 'sequelize';
 import type { Sequelize } from 'sequelize-typescript';
 import type { MemberContext } from '../common/member-context.js';
-import { fieldsError, flattenValidationErrors } from '../common/pipes/validation.pipe.js';
+import {
+  controlCharacterAt,
+  fieldsError,
+  flattenValidationErrors,
+} from '../common/pipes/validation.pipe.js';
 import { CurriculumService } from '../curriculum/curriculum.service.js';
 import { UsersService } from '../users/users.service.js';
 import { checkItem } from './cross-check.js';
@@ -46,7 +50,18 @@ export interface RemarkedSitting {
 
 /** What the sittings module tells keys about their use, and how it re-marks after a correction. */
 export interface KeyUsage {
-  sittingCounts(keyIds: readonly number[], transaction?: Transaction): Promise<Map<number, number>>;
+  /** Sittings per key; with `studentIds` (a tutor's grant), only those students' sittings. */
+  sittingCounts(
+    keyIds: readonly number[],
+    transaction?: Transaction,
+    studentIds?: readonly number[] | null,
+  ): Promise<Map<number, number>>;
+  /** Which of these sittings are of these students. */
+  sittingsOf(
+    sittingIds: readonly number[],
+    studentIds: readonly number[],
+    transaction?: Transaction,
+  ): Promise<Set<number>>;
   markCounts(itemIds: readonly number[], transaction?: Transaction): Promise<Map<number, number>>;
   remark(
     member: MemberContext,
@@ -106,7 +121,7 @@ export class AnswerKeysService {
     const items = ids.length
       ? await this.itemModel.findAll({ where: { answerKeyId: ids }, order: [['number', 'ASC']] })
       : [];
-    const sittings = await this.sittingCounts(ids);
+    const sittings = await this.sittingCounts(ids, undefined, member.studentIds);
     const list = keys.map((k) => {
       const own = items.filter((i) => i.answerKeyId === k.id);
       return {
@@ -150,7 +165,7 @@ export class AnswerKeysService {
 
   async findOne(member: MemberContext, id: number, transaction?: Transaction) {
     const key = await this.findKeyModel(member, id, transaction);
-    return this.toKeyJson(key, transaction);
+    return this.toKeyJson(key, transaction, member.studentIds);
   }
 
   /** 404 both for what does not exist and for another household's key. */
@@ -243,6 +258,12 @@ export class AnswerKeysService {
         for (const [field, message] of Object.entries(flattenValidationErrors(errors))) {
           shapeErrors[`line ${line}.${field}`] = message;
         }
+        // The file's cells are text fields like any other: no NUL or other control characters.
+        const control = controlCharacterAt(item);
+        if (control) {
+          shapeErrors[`line ${line}.${control.path.split('.')[0]}`] =
+            `${control.path} must not hold control characters`;
+        }
         return item;
       });
       const lines = read.rows.map((r) => r.line);
@@ -315,7 +336,7 @@ export class AnswerKeysService {
       );
       return {
         ...(await this.toKeyJson(key, transaction)),
-        newCorrections: corrections.map(toCorrectionJson),
+        newCorrections: corrections.map((c) => toCorrectionJson(c)),
         remarkedSittings: remarked,
       };
     });
@@ -538,14 +559,27 @@ export class AnswerKeysService {
     }
   }
 
-  private async toKeyJson(key: AnswerKey, transaction?: Transaction) {
+  /** A key as `studentIds` may see it: a tutor's counts and re-marked sittings are of their students. */
+  private async toKeyJson(
+    key: AnswerKey,
+    transaction?: Transaction,
+    studentIds: readonly number[] | null = null,
+  ) {
     const items = await this.itemsOf(key.id, transaction);
     const corrections = await this.correctionModel.findAll({
       where: { answerKeyId: key.id },
       order: [['id', 'ASC']],
       transaction,
     });
-    const sittings = await this.sittingCounts([key.id], transaction);
+    const sittings = await this.sittingCounts([key.id], transaction, studentIds);
+    const visible =
+      studentIds === null || !this.usage
+        ? null
+        : await this.usage.sittingsOf(
+            corrections.flatMap((c) => c.remarked),
+            studentIds,
+            transaction,
+          );
     const checked = items.map((i) => ({ item: i, check: checkItem(i) }));
     return {
       ...toKeySummary(key),
@@ -575,13 +609,19 @@ export class AnswerKeysService {
             ]
           : [],
       ),
-      corrections: corrections.map(toCorrectionJson),
+      corrections: corrections.map((c) =>
+        toCorrectionJson(c, visible ? c.remarked.filter((id) => visible.has(id)) : c.remarked),
+      ),
     };
   }
 
-  private async sittingCounts(keyIds: readonly number[], transaction?: Transaction) {
+  private async sittingCounts(
+    keyIds: readonly number[],
+    transaction?: Transaction,
+    studentIds: readonly number[] | null = null,
+  ) {
     return this.usage && keyIds.length
-      ? this.usage.sittingCounts(keyIds, transaction)
+      ? this.usage.sittingCounts(keyIds, transaction, studentIds)
       : new Map<number, number>();
   }
 
@@ -663,7 +703,7 @@ function toKeySummary(k: AnswerKey) {
   };
 }
 
-function toCorrectionJson(c: KeyCorrection) {
+function toCorrectionJson(c: KeyCorrection, remarked: readonly number[] = c.remarked) {
   return {
     id: c.id,
     itemId: c.keyItemId,
@@ -672,6 +712,6 @@ function toCorrectionJson(c: KeyCorrection) {
     reason: c.reason,
     madeBy: { userId: c.madeByUserId, name: c.madeByName },
     createdAt: c.createdAt,
-    remarkedSittingIds: c.remarked,
+    remarkedSittingIds: remarked,
   };
 }

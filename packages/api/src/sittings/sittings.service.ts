@@ -53,7 +53,8 @@ export class SittingsService implements OnModuleInit {
 
   onModuleInit(): void {
     this.keys.registerUsage({
-      sittingCounts: (ids, t) => this.sittingCounts(ids, t),
+      sittingCounts: (ids, t, studentIds) => this.sittingCounts(ids, t, studentIds),
+      sittingsOf: (ids, studentIds, t) => this.sittingsOf(ids, studentIds, t),
       markCounts: (ids, t) => this.markCounts(ids, t),
       remark: (member, changes, reason, t) => this.remark(member, changes, reason, t),
     });
@@ -485,13 +486,34 @@ export class SittingsService implements OnModuleInit {
     return out;
   }
 
-  private async sittingCounts(keyIds: readonly number[], transaction?: Transaction) {
+  private async sittingCounts(
+    keyIds: readonly number[],
+    transaction?: Transaction,
+    studentIds: readonly number[] | null = null,
+  ) {
     const rows = (await this.sittingModel.count({
-      where: { answerKeyId: { [Op.in]: [...keyIds] } },
+      where: {
+        answerKeyId: { [Op.in]: [...keyIds] },
+        ...(studentIds !== null && { studentId: { [Op.in]: [...studentIds] } }),
+      },
       group: ['answerKeyId'],
       transaction,
     })) as unknown as { answerKeyId: number; count: number }[];
     return new Map(rows.map((r) => [r.answerKeyId, r.count]));
+  }
+
+  private async sittingsOf(
+    sittingIds: readonly number[],
+    studentIds: readonly number[],
+    transaction?: Transaction,
+  ): Promise<Set<number>> {
+    if (sittingIds.length === 0 || studentIds.length === 0) return new Set();
+    const rows = await this.sittingModel.findAll({
+      attributes: ['id'],
+      where: { id: { [Op.in]: [...new Set(sittingIds)] }, studentId: { [Op.in]: [...studentIds] } },
+      transaction,
+    });
+    return new Set(rows.map((r) => r.id));
   }
 
   private async markCounts(itemIds: readonly number[], transaction?: Transaction) {
