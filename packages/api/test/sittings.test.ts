@@ -217,6 +217,7 @@ describe('marks and misses', () => {
     const first = await putMarks(s.id, marks).expect(200);
     const second = await putMarks(s.id, marks).expect(200);
     expect(second.body.misses).toEqual({
+      heldItemIds: [],
       createdMissIds: [],
       reopenedMissIds: [],
       resolvedMissIds: [],

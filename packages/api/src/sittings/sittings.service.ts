@@ -10,6 +10,7 @@ import {
 } from '../answer-keys/answer-keys.service.js';
 import { AnswerKey } from '../answer-keys/models/answer-key.model.js';
 import type { KeyItem } from '../answer-keys/models/key-item.model.js';
+import { checkItem } from '../answer-keys/cross-check.js';
 import { revisitLessons } from '../answer-keys/revisit.js';
 import { sameAnswer as sameAnswerOf } from '../answer-keys/same-answer.js';
 import type { MemberContext } from '../common/member-context.js';
@@ -31,6 +32,8 @@ export interface Tally {
 
 /** What a mark save or a re-marking did to the sitting's misses. */
 export interface MissChanges {
+  /** Wrong marks on items whose key answer the checker flags: no miss until the key is checked. */
+  heldItemIds: number[];
   createdMissIds: number[];
   reopenedMissIds: number[];
   resolvedMissIds: number[];
@@ -111,6 +114,12 @@ export class SittingsService implements OnModuleInit {
           correct: m.correct,
           answer: m.answer,
           missId: misses.get(m.keyItemId)?.id ?? null,
+          // Wrong, but on an item whose key answer the checker flags: no miss until it is checked.
+          held:
+            !m.correct &&
+            !misses.has(m.keyItemId) &&
+            byItem.has(m.keyItemId) &&
+            keyFlagged(byItem.get(m.keyItemId)!),
         }))
         .sort((a, b) => (a.number ?? 0) - (b.number ?? 0)),
     };
@@ -195,7 +204,23 @@ export class SittingsService implements OnModuleInit {
         const answer = m.answer === undefined || m.answer === '' ? null : m.answer;
         const before = existing.get(m.keyItemId);
         existing.delete(m.keyItemId);
-        if (before && before.correct === m.correct && before.answer === answer) continue;
+        const item = byId.get(m.keyItemId)!;
+        const hold = keyFlagged(item) && m.keyAnswerRight !== true;
+        if (before && before.correct === m.correct && before.answer === answer) {
+          // The same wrong mark, now with the key's answer said to be right: its miss is made.
+          if (!m.correct && !hold && keyFlagged(item) && !misses.has(item.id))
+            await this.followMark(
+              member,
+              sitting,
+              item,
+              null,
+              { correct: false, answer, cause: m.cause ?? undefined },
+              '',
+              { changes, misses },
+              transaction,
+            );
+          continue;
+        }
         const was = before ? { correct: before.correct, answer: before.answer } : null;
         if (before) await before.update({ correct: m.correct, answer }, { transaction });
         else added.push({ sittingId: id, keyItemId: m.keyItemId, correct: m.correct, answer });
@@ -206,7 +231,7 @@ export class SittingsService implements OnModuleInit {
           was,
           { correct: m.correct, answer, cause: m.cause ?? undefined },
           'the mark was changed to right',
-          { changes, misses },
+          { changes, misses, hold },
           transaction,
         );
       }
@@ -358,7 +383,24 @@ export class SittingsService implements OnModuleInit {
         // A right mark with no answer typed means the child wrote what the key said then.
         const childAnswer = mark.answer ?? (mark.correct ? change.from : null);
         const correct = childAnswer !== null && sameAnswerOf(childAnswer, change.to);
-        if (correct === mark.correct) continue;
+        if (correct === mark.correct) {
+          // A wrong mark held while the key was flagged gets its miss once the key is checked.
+          const item = items.get(mark.keyItemId)!;
+          if (!correct && !misses.has(item.id) && !keyFlagged(item)) {
+            await this.followMark(
+              member,
+              sitting,
+              item,
+              null,
+              { correct: false, answer: mark.answer },
+              '',
+              { changes: missChanges, misses },
+              transaction,
+            );
+            itemIds.push(mark.keyItemId);
+          }
+          continue;
+        }
         const was = { correct: mark.correct, answer: mark.answer };
         await mark.update({ correct, answer: childAnswer }, { transaction });
         itemIds.push(mark.keyItemId);
@@ -406,13 +448,22 @@ export class SittingsService implements OnModuleInit {
     {
       changes,
       misses,
-    }: { changes: MissChanges; misses: Map<number, { id: number; status: string }> },
+      hold = false,
+    }: {
+      changes: MissChanges;
+      misses: Map<number, { id: number; status: string }>;
+      hold?: boolean;
+    },
     transaction: Transaction,
   ): Promise<void> {
     const wasWrong = was !== null && !was.correct;
     const nowWrong = now !== null && !now.correct;
     if (!wasWrong && !nowWrong) return;
     const existing = misses.get(item.id);
+    if (nowWrong && !wasWrong && hold && !existing) {
+      changes.heldItemIds.push(item.id);
+      return;
+    }
     if (nowWrong && !wasWrong) {
       if (existing) {
         await this.misses.reopenFromMark(member, existing.id, now.answer ?? '', transaction);
@@ -526,7 +577,14 @@ export class SittingsService implements OnModuleInit {
   }
 }
 
+/** Whether the checker disagrees with (or cannot read) the key's answer to this item. */
+function keyFlagged(item: { number: number; prompt: string; answer: string }): boolean {
+  const status = checkItem(item).status;
+  return status === 'disagrees' || status === 'unreadable-answer';
+}
+
 const emptyChanges = (): MissChanges => ({
+  heldItemIds: [],
   createdMissIds: [],
   reopenedMissIds: [],
   resolvedMissIds: [],

@@ -13,6 +13,7 @@ import {
   ValidateIf,
   ValidateNested,
 } from 'class-validator';
+import { IfPresent } from '../../common/decorators/if-present.decorator.js';
 import { Trim } from '../../common/decorators/trim.decorator.js';
 
 export class MarkDto {
@@ -43,6 +44,15 @@ export class MarkDto {
   @ValidateIf((_, v) => v !== null && v !== undefined)
   @IsIn(CAUSES, { message: `cause must be one of ${CAUSES.join(', ')}` })
   cause?: Cause | null;
+
+  @ApiPropertyOptional({
+    example: true,
+    description:
+      'When the checker flags the key’s answer to this item: true says the key’s answer is right, so a wrong mark makes a miss now (without it, no miss is made until the key is checked)',
+  })
+  @IfPresent()
+  @IsBoolean({ message: 'keyAnswerRight must be true or false' })
+  keyAnswerRight?: boolean;
 }
 
 export class PutMarksDto {

@@ -41,11 +41,14 @@ export type SittingMark = {
   correct: boolean;
   answer: string | null;
   missId: number | null;
+  /** Wrong on an item whose key answer is flagged: no miss until the key is checked. */
+  held?: boolean;
 };
 
 export type Sitting = SittingSummary & { marks: SittingMark[] };
 
 export type MissChanges = {
+  heldItemIds?: number[];
   createdMissIds: number[];
   reopenedMissIds: number[];
   resolvedMissIds: number[];
@@ -69,7 +72,13 @@ export type SittingInput = {
   conditions: Conditions;
 };
 
-export type MarkInput = { keyItemId: number; correct: boolean; answer: string | null };
+export type MarkInput = {
+  keyItemId: number;
+  correct: boolean;
+  answer: string | null;
+  /** Sent when the checker flags the key's answer and the parent says the key is right. */
+  keyAnswerRight?: boolean;
+};
 
 /** What the marking grid needs of a key item (the route passes them from the answer key). */
 export type MarkableItem = {
@@ -79,7 +88,14 @@ export type MarkableItem = {
   answer: string;
   revisitLessons: number[];
   facts: string[];
+  /** The checker's look at the key's answer (a flag means: check the key before trusting it). */
+  check?: { status: string; expected?: string; message?: string };
 };
+
+/** `true` when the checker disagrees with the key's answer, or cannot read it. */
+export function keyFlagged(item: Pick<MarkableItem, 'check'>): boolean {
+  return item.check?.status === 'disagrees' || item.check?.status === 'unreadable-answer';
+}
 
 type Group = {
   sittings: number;

@@ -119,3 +119,41 @@ describe('MarkingGrid', () => {
     expect(screen.getByRole('button', { name: 'Save marks' })).toBeDisabled();
   });
 });
+
+describe('MarkingGrid with a flagged key answer', () => {
+  // The key says 239 for 304 − 75; the checker works out 229 (DESIGN.md's catalog example).
+  const flagged: MarkableItem[] = [
+    {
+      id: 21,
+      number: 1,
+      prompt: '304 - 75',
+      answer: '239',
+      revisitLessons: [],
+      facts: [],
+      check: { status: 'disagrees', expected: '229', message: 'item 1: the key says 239' },
+    },
+    { id: 22, number: 2, prompt: '58 + 67', answer: '125', revisitLessons: [], facts: [] },
+  ];
+
+  it('says so on that item, and makes a miss only when the parent says the key is right', async () => {
+    const onSave = vi.fn();
+    render(<MarkingGrid items={flagged} saved={[]} saving={false} onSave={onSave} />);
+    const user = userEvent.setup();
+    const row = screen.getByTestId('mark-row-1');
+    expect(within(row).getByRole('note')).toHaveTextContent(
+      'The checker works this out as 229: check the key. No miss is made from this item until you say which answer is right.',
+    );
+    expect(within(screen.getByTestId('mark-row-2')).queryByRole('note')).toBeNull();
+    await user.click(wrongButton(1));
+    await user.keyboard('229');
+    await user.click(screen.getByRole('button', { name: 'Save marks' }));
+    expect(onSave).toHaveBeenLastCalledWith([{ keyItemId: 21, correct: false, answer: '229' }]);
+    await user.click(
+      within(row).getByRole('checkbox', { name: 'The key’s 239 is right: make a miss' }),
+    );
+    await user.click(screen.getByRole('button', { name: 'Save marks' }));
+    expect(onSave).toHaveBeenLastCalledWith([
+      { keyItemId: 21, correct: false, answer: '229', keyAnswerRight: true },
+    ]);
+  });
+});

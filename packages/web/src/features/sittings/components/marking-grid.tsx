@@ -1,10 +1,13 @@
-import { Button, InputGroup, Intent } from '@blueprintjs/core';
+import { Button, Checkbox, InputGroup, Intent } from '@blueprintjs/core';
 import { CrossIcon, TickIcon } from '@blueprintjs/icons';
 import { useEffect, useRef, useState, type KeyboardEvent } from 'react';
 
-import type { MarkableItem, MarkInput, SittingMark } from '../types';
+import { Link } from 'react-router-dom';
 
-type Mark = { correct: boolean | null; answer: string };
+import { paths } from '../../../config/paths';
+import { keyFlagged, type MarkableItem, type MarkInput, type SittingMark } from '../types';
+
+type Mark = { correct: boolean | null; answer: string; keyAnswerRight?: boolean };
 
 const RIGHT_KEYS = new Set(['1', 'r', 'R']);
 const WRONG_KEYS = new Set(['2', 'w', 'W']);
@@ -29,11 +32,14 @@ export function MarkingGrid({
   saved,
   saving,
   onSave,
+  answerKeyId,
 }: {
   items: readonly MarkableItem[];
   saved: readonly SittingMark[];
   saving: boolean;
   onSave: (marks: MarkInput[]) => void;
+  /** For the link to check a flagged key answer. */
+  answerKeyId?: number;
 }) {
   const [marks, setMarks] = useState(() => initialMarks(items, saved));
   const rowButtons = useRef<(HTMLButtonElement | null)[]>([]);
@@ -123,6 +129,9 @@ export function MarkingGrid({
                 keyItemId: item.id,
                 correct: mark.correct,
                 answer: mark.correct ? null : mark.answer.trim() || null,
+                ...(!mark.correct && keyFlagged(item) && mark.keyAnswerRight
+                  ? { keyAnswerRight: true }
+                  : {}),
               },
             ],
       ),
@@ -165,6 +174,13 @@ export function MarkingGrid({
                 </td>
                 <td data-label="Key" className="wb-digits wb-mark-key">
                   {item.answer}
+                  {keyFlagged(item) ? (
+                    <span className="wb-key-flag" role="note">
+                      The checker works this out as{' '}
+                      <span className="wb-digits">{item.check?.expected}</span>: check the key. No
+                      miss is made from this item until you say which answer is right.
+                    </span>
+                  ) : null}
                 </td>
                 <td data-label="Mark" className="wb-mark-buttons">
                   <Button
@@ -208,6 +224,22 @@ export function MarkingGrid({
                       aria-label={`What the child wrote for item ${item.number}`}
                       placeholder="What they wrote"
                     />
+                  ) : null}
+                  {state === 'wrong' && keyFlagged(item) ? (
+                    <div className="wb-key-choice">
+                      <Checkbox
+                        checked={mark.keyAnswerRight === true}
+                        onChange={(e) =>
+                          setMark(item.id, { keyAnswerRight: e.currentTarget.checked })
+                        }
+                        label={`The key’s ${item.answer} is right: make a miss`}
+                      />
+                      {answerKeyId !== undefined ? (
+                        <Link to={paths.app.answerKey.getHref(answerKeyId)}>
+                          Or fix the key’s answer
+                        </Link>
+                      ) : null}
+                    </div>
                   ) : null}
                 </td>
               </tr>

@@ -40,13 +40,20 @@ export function SittingMarking({
         <MarkingGrid
           items={items}
           saved={sitting.marks}
+          answerKeyId={sitting.answerKeyId}
           saving={save.isPending}
           onSave={(marks) =>
             save.mutate(
               { sittingId: sitting.id, marks },
               {
                 onSuccess: (saved) => {
-                  toast(`Saved: ${scoreText(saved.score)}.`);
+                  const held = saved.misses.heldItemIds?.length ?? 0;
+                  toast(
+                    `Saved: ${scoreText(saved.score)}.` +
+                      (held > 0
+                        ? ` ${held === 1 ? '1 item waits' : `${held} items wait`} for the key to be checked before it counts as a miss.`
+                        : ''),
+                  );
                   void navigate(paths.app.sittingMisses.getHref(saved.id));
                 },
               },
