@@ -1,10 +1,12 @@
 // Diagnoses per second and median microseconds per diagnosis, for 2-, 3- and 4-digit
-// problems of each operation, with the full catalog and pairs. Run: npm run bench -w packages/core
+// problems of each operation, with the full catalog and pairs; then answers made by a rule
+// with one fact slip. Run: npm run bench -w packages/core
 import { appendFileSync } from 'node:fs';
 import { diagnose } from '../src/index.js';
 import { applyRule } from '../src/rules/applyRule.js';
 import { parseProblem } from '../src/parse/parseProblem.js';
 import { seededRandom } from '../src/practice/seededRandom.js';
+import { evaluationCases } from '../src/testing/evaluationCases.js';
 
 const random = seededRandom(2026);
 const digitsOf = (n: number): string => {
@@ -96,6 +98,33 @@ for (const kind of Object.keys(makers)) {
 }
 console.log('operation       digits   diagnoses/s   median µs   CPU µs/diag');
 for (const r of rows) console.log(r);
+
+// Answers a rule and one fact slip make together: nothing simpler gives them, so the engine
+// searches every slip inside every rule's working — its slowest path.
+const compounds = evaluationCases(2026, 150).filter((c) => c.kind === 'compound');
+console.log('\nrule + one slip answers (2–4 digits)   median µs   slowest 1% µs');
+for (const operation of ['addition', 'subtraction', 'multiplication'] as const) {
+  const set = compounds.filter((c) => c.operation === operation);
+  for (const c of set) diagnose(c.problem, c.answer);
+  const times: number[] = [];
+  for (let rep = 0; rep < 5; rep += 1)
+    for (const c of set) {
+      const t0 = process.hrtime.bigint();
+      diagnose(c.problem, c.answer);
+      times.push(Number(process.hrtime.bigint() - t0) / 1000);
+    }
+  times.sort((x, y) => x - y);
+  const median = times[Math.floor(times.length / 2)] as number;
+  const p99 = times[Math.floor(times.length * 0.99)] as number;
+  figures.push({
+    area: 'engine',
+    measure: `diagnose ${operation}, rule + one slip (median)`,
+    value: `${median.toFixed(1)} µs`,
+  });
+  console.log(
+    `${operation.padEnd(38)} ${median.toFixed(1).padStart(9)}   ${p99.toFixed(1).padStart(13)}`,
+  );
+}
 // The root `npm run bench` prints these with the other packages' figures in one table.
 if (process.env.BENCH_REPORT) {
   appendFileSync(process.env.BENCH_REPORT, figures.map((f) => `${JSON.stringify(f)}\n`).join(''));

@@ -194,7 +194,10 @@ function searchAddition(
       });
     }
   }
-  for (const { rule, run } of singles) {
+  // A rule with a slip ranks below every other kind of explanation: look for one only
+  // when nothing simpler gives the answer (the first-ranked explanation is the same, and
+  // the search, the costliest, is skipped).
+  for (const { rule, run } of matches.length > 0 ? [] : singles) {
     if (run.result === expected || run.result === written) continue;
     const method = rule.method;
     const found = slipsInRule(

@@ -224,16 +224,16 @@ export function diagnoseMultiplication(
 
   const outcome = describeOutcome(problem.text, written);
   const matches: Candidate[] = [];
-  const singles = MULTIPLICATION_METHOD_RULES.map((rule) => ({
-    rule,
-    run: multiplyLong(top, bottom, rule.method),
-  }));
+  // Trial runs add the partial products as numbers; a run that matches is drawn again whole.
+  const trial = (method: MultiplicationMethod): MultiplicationRun =>
+    multiplyLong(top, bottom, method, false);
+  const singles = MULTIPLICATION_METHOD_RULES.map((rule) => ({ rule, run: trial(rule.method) }));
   for (const { rule, run } of singles) {
     if (run.result === written && stepsFit(run.trace)) {
       matches.push({
         ids: [rule.id],
         explanation: `${rule.explain(run)} ${outcome}`,
-        trace: run.trace,
+        trace: multiplyLong(top, bottom, rule.method).trace,
         facts: [],
       });
     }
@@ -320,7 +320,7 @@ export function diagnoseMultiplication(
     for (let j = i + 1; j < singles.length; j += 1) {
       const b = singles[j] as (typeof singles)[number];
       if (b.run.result === written || conflict(a.rule.method, b.rule.method)) continue;
-      const run = multiplyLong(top, bottom, { ...a.rule.method, ...b.rule.method });
+      const run = trial({ ...a.rule.method, ...b.rule.method });
       if (
         run.result !== written ||
         run.result === a.run.result ||
@@ -331,16 +331,19 @@ export function diagnoseMultiplication(
       matches.push({
         ids: [a.rule.id, b.rule.id],
         explanation: `Two things happened together. ${a.rule.explain(run)} ${b.rule.explain(run)} ${outcome}`,
-        trace: run.trace,
+        trace: multiplyLong(top, bottom, { ...a.rule.method, ...b.rule.method }).trace,
         facts: [],
       });
     }
   }
-  for (const { rule, run } of singles) {
+  // A rule with a slip ranks below every other kind of explanation: look for one only
+  // when nothing simpler gives the answer (the first-ranked explanation is the same, and
+  // the search, the costliest, is skipped).
+  for (const { rule, run } of matches.length > 0 ? [] : singles) {
     if (run.result === expected || run.result === written) continue;
     const method = rule.method;
     const found = slipsInRule(run.result, written, slipSites(run, method), (slip) => {
-      const r = multiplyLong(top, bottom, { ...method, slip });
+      const r = trial({ ...method, slip });
       return stepsFit(r.trace) ? r.result : null;
     });
     const best = found[0];

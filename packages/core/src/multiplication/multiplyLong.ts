@@ -1,6 +1,11 @@
 import { addColumns } from '../addition/addColumns.js';
 import { digitsOf, stripLeadingZeros } from '../numbers/digits.js';
-import type { LongMultiplicationTrace, PartialProduct, ProductCell } from '../trace/types.js';
+import type {
+  ColumnAdditionTrace,
+  LongMultiplicationTrace,
+  PartialProduct,
+  ProductCell,
+} from '../trace/types.js';
 
 /**
  * How carries are handled inside a partial product: `add` (correct: add the carry after
@@ -36,6 +41,8 @@ export interface MultiplicationRun {
 /**
  * Long multiplication of `top` by `bottom` (top written above): one partial product per
  * multiplier digit, each shifted one place further left, then added in columns.
+ * `record: false` (for the many trial runs of diagnosis) adds the partial products as numbers
+ * and leaves the column addition out of the trace (`sum: null`); the result is the same.
  * `multiplyLong('27', '4').result` → `'108'`;
  * `multiplyLong('27', '4', { carry: 'drop' }).result` → `'88'`.
  */
@@ -43,6 +50,7 @@ export function multiplyLong(
   top: string,
   bottom: string,
   method: MultiplicationMethod = {},
+  record = true,
 ): MultiplicationRun {
   const carryHabit = method.carry ?? 'add';
   const zeroDigit = method.zeroDigit ?? 'zero';
@@ -116,8 +124,18 @@ export function multiplyLong(
     const value = digits === '0' ? '0' : digits + '0'.repeat(shift);
     partials.push({ multiplierIndex: j, multiplierDigit: d, cells, digits, shift, value });
   }
-  const sum = partials.length > 1 ? addColumns(partials.map((p) => p.value)).trace : null;
-  const result = sum === null ? (partials[0] as PartialProduct).value : sum.result;
+  let sum: ColumnAdditionTrace | null = null;
+  let result = (partials[0] as PartialProduct).value;
+  if (partials.length > 1) {
+    if (record) {
+      sum = addColumns(partials.map((p) => p.value)).trace;
+      result = sum.result;
+    } else {
+      let total = 0n;
+      for (const p of partials) total += BigInt(p.value);
+      result = total.toString();
+    }
+  }
   return {
     result,
     trace: { kind: 'long-multiplication', top, bottom, partials, sum, zeros: null, result },

@@ -244,7 +244,10 @@ function searchSubtraction(
       });
     }
   }
-  for (const { rule, run: trial } of singles) {
+  // A rule with a slip ranks below every other kind of explanation: look for one only
+  // when nothing simpler gives the answer (the first-ranked explanation is the same, and
+  // the search, the costliest, is skipped).
+  for (const { rule, run: trial } of matches.length > 0 ? [] : singles) {
     if (trial === null || trial.result === expected || trial.result === written) continue;
     const run = traced(rule.method);
     const found = slipsInRule(
