@@ -9,6 +9,7 @@ import expressStaticGzip from 'express-static-gzip';
 import helmet from 'helmet';
 import passport from 'passport';
 import { createLogger, PinoNestLogger, requestLog } from './common/logging/request-log.js';
+import { JSON_BODY_LIMIT_BYTES, requestBodyLimits } from './common/middleware/request-body.js';
 import { createValidationPipe } from './common/pipes/validation.pipe.js';
 import type { AppConfig } from './config/app.config.js';
 import { API_VERSION } from './health/health.controller.js';
@@ -41,7 +42,8 @@ export function configureApp(app: NestExpressApplication, config: AppConfig): vo
   app.setGlobalPrefix('api');
   if (config.trustProxy) app.set('trust proxy', 1);
   app.disable('x-powered-by');
-  app.useBodyParser('json', { limit: '256kb' });
+  app.use(requestBodyLimits(config.limits.bodyTimeoutMs));
+  app.useBodyParser('json', { limit: JSON_BODY_LIMIT_BYTES });
 
   // JSON and pages compressed on the fly; the web app's files come precompressed (serveWebApp).
   // Images, PDFs and zips are not compressible types, so downloads stream as they are.

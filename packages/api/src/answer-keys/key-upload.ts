@@ -13,8 +13,10 @@ import { ApiConsumes } from '@nestjs/swagger';
 import { memoryStorage } from 'multer';
 import { catchError, type Observable, throwError } from 'rxjs';
 import { fieldsError } from '../common/pipes/validation.pipe.js';
+import { DeclaredLengthLimit } from '../common/middleware/request-body.js';
 
 export const MAX_CSV_BYTES = 2 * 1024 * 1024;
+const TOO_LARGE = { message: 'The CSV may be at most 2 MiB', fields: { file: 'is over 2 MiB' } };
 
 /** Multer's refusals in our words, naming the field. */
 @Injectable()
@@ -29,10 +31,7 @@ function explain(err: unknown): unknown {
   const cause = err.cause as { code?: string; field?: string } | undefined;
   switch (cause?.code) {
     case 'LIMIT_FILE_SIZE':
-      return new PayloadTooLargeException({
-        message: 'The CSV may be at most 2 MiB',
-        fields: { file: 'is over 2 MiB' },
-      });
+      return new PayloadTooLargeException(TOO_LARGE);
     case 'LIMIT_FILE_COUNT':
     case 'LIMIT_UNEXPECTED_FILE':
       return fieldsError({
@@ -53,6 +52,7 @@ export const KeyUpload = () =>
   applyDecorators(
     ApiConsumes('multipart/form-data'),
     UseInterceptors(
+      DeclaredLengthLimit(MAX_CSV_BYTES + 64 * 1024, TOO_LARGE),
       KeyUploadErrorsInterceptor,
       FileInterceptor('file', {
         storage: memoryStorage(),

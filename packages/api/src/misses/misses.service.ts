@@ -80,7 +80,7 @@ export class MissesService {
       throw fieldsError({ photos: `attach at most ${MAX_PHOTOS_PER_MISS} photos` });
     }
     const checked = this.check(dto.problem, dto.answer, dto.steps ?? null);
-    const processed = await this.photos.process(files);
+    const processed = await this.photos.process(files, member);
     const staged = await this.photos.stage(processed);
     try {
       const id = await this.sequelize.transaction(async (transaction) => {
@@ -162,7 +162,7 @@ export class MissesService {
   async addPhotos(member: MemberContext, id: number, files: readonly UploadedPhoto[]) {
     const miss = await this.findModel(member, id);
     if (files.length === 0) throw fieldsError({ photos: 'attach 1 to 4 photos' });
-    const processed = await this.photos.process(files);
+    const processed = await this.photos.process(files, member);
     let staged: StagedPhoto[] = [];
     try {
       staged = await this.photos.stage(processed);

@@ -12,10 +12,13 @@ import { ApiConsumes } from '@nestjs/swagger';
 import { FilesInterceptor } from '@nestjs/platform-express';
 import { memoryStorage } from 'multer';
 import { catchError, type Observable, throwError } from 'rxjs';
+import { DeclaredLengthLimit } from '../common/middleware/request-body.js';
 import { fieldsError } from '../common/pipes/validation.pipe.js';
 import { MAX_PHOTO_BYTES, MAX_PHOTOS_PER_MISS } from './photo-limits.js';
 
 export const PHOTOS_FIELD = 'photos';
+/** The text fields and multipart framing around the photos (20 fields of up to 64 KiB). */
+const FORM_ROOM_BYTES = 20 * 64 * 1024 + 64 * 1024;
 
 /** Turns multer's refusals into our error body, naming the field. */
 @Injectable()
@@ -56,6 +59,10 @@ export const PhotoUpload = () =>
   applyDecorators(
     ApiConsumes('multipart/form-data', 'application/json'),
     UseInterceptors(
+      DeclaredLengthLimit(MAX_PHOTOS_PER_MISS * MAX_PHOTO_BYTES + FORM_ROOM_BYTES, {
+        message: `Attach at most ${MAX_PHOTOS_PER_MISS} photos of ${MAX_PHOTO_BYTES / 1024 / 1024} MiB each`,
+        fields: { [PHOTOS_FIELD]: `more than ${MAX_PHOTOS_PER_MISS} photos' worth of bytes` },
+      }),
       UploadErrorsInterceptor,
       FilesInterceptor(PHOTOS_FIELD, MAX_PHOTOS_PER_MISS, {
         storage: memoryStorage(),

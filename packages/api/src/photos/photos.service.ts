@@ -6,15 +6,20 @@ import {
   Injectable,
   Logger,
   NotFoundException,
+  PayloadTooLargeException,
 } from '@nestjs/common';
+import { ConfigService } from '@nestjs/config';
 import { InjectConnection, InjectModel } from '@nestjs/sequelize';
 import { Op, type Transaction } from 'sequelize';
 import type { Sequelize } from 'sequelize-typescript';
+import sharp from 'sharp';
 import type { MemberContext } from '../common/member-context.js';
+import type { AppConfig } from '../config/app.config.js';
 import { missScope } from '../misses/miss-scope.js';
 import { Miss } from '../misses/models/miss.model.js';
 import { PHOTO_STORAGE, type PhotoStorage } from '../storage/photo-storage.js';
 import type { MarkDto } from './dto/set-marks.dto.js';
+import { DecodeSlots } from './decode-slots.js';
 import { PhotoMark } from './models/photo-mark.model.js';
 import { Photo } from './models/photo.model.js';
 import { PhotoPipeline, type ProcessedPhoto } from './photo-pipeline.service.js';
@@ -56,6 +61,8 @@ export interface MarkJson {
 @Injectable()
 export class PhotosService {
   private readonly logger = new Logger(PhotosService.name);
+  private readonly decodes: DecodeSlots;
+  private readonly pixelBudget: number;
 
   constructor(
     @InjectModel(Photo) private readonly photoModel: typeof Photo,
@@ -63,17 +70,51 @@ export class PhotosService {
     @Inject(PHOTO_STORAGE) private readonly storage: PhotoStorage,
     @InjectConnection() private readonly sequelize: Sequelize,
     private readonly pipeline: PhotoPipeline,
-  ) {}
+    config: ConfigService,
+  ) {
+    const { limits } = config.getOrThrow<AppConfig>('app');
+    this.decodes = new DecodeSlots(limits.photoDecodesPerMember);
+    this.pixelBudget = limits.photoPixelsPerRequest;
+  }
 
-  /** Checks and re-encodes every upload in memory; nothing is written yet (415/422 refuse the lot). */
-  async process(files: readonly UploadedPhoto[]): Promise<ProcessedPhoto[]> {
-    const out: ProcessedPhoto[] = [];
-    for (const [i, file] of files.entries()) {
-      out.push(
-        await this.pipeline.process(file.buffer, files.length > 1 ? `photo ${i + 1}` : 'photo'),
-      );
+  /**
+   * Checks and re-encodes every upload in memory; nothing is written yet (415/422 refuse the
+   * lot). A request's photos together stay within the pixel budget (413, read from the
+   * headers before any decoding), and one member decodes at most a few requests at a time.
+   */
+  async process(
+    files: readonly UploadedPhoto[],
+    member?: Pick<MemberContext, 'userId'>,
+  ): Promise<ProcessedPhoto[]> {
+    if (files.length === 0) return [];
+    await this.refuseOverPixelBudget(files);
+    return this.decodes.run(String(member?.userId ?? 0), async () => {
+      const out: ProcessedPhoto[] = [];
+      for (const [i, file] of files.entries()) {
+        out.push(
+          await this.pipeline.process(file.buffer, files.length > 1 ? `photo ${i + 1}` : 'photo'),
+        );
+      }
+      return out;
+    });
+  }
+
+  private async refuseOverPixelBudget(files: readonly UploadedPhoto[]): Promise<void> {
+    let pixels = 0;
+    for (const file of files) {
+      // Only the header is read; a file sharp cannot read is the pipeline's to refuse (415/422).
+      const meta = await sharp(file.buffer)
+        .metadata()
+        .catch(() => undefined);
+      if (meta?.width && meta.height) pixels += meta.width * meta.height;
     }
-    return out;
+    if (pixels > this.pixelBudget) {
+      const megapixels = Math.round(this.pixelBudget / 1_000_000);
+      throw new PayloadTooLargeException({
+        message: `These photos are too large together (over ${megapixels} megapixels): send fewer or smaller photos`,
+        fields: { photos: `together over ${megapixels} megapixels` },
+      });
+    }
   }
 
   /** Writes the files under fresh server-made names; on any failure removes what it wrote. */
