@@ -32,6 +32,27 @@ describe('POST /api/diagnose', () => {
     expect(res.body).toMatchObject({ expected: String(34 * 12), correct: true, rules: [] });
   });
 
+  it('draws the written partial products beside the usual ones and marks the first that differs', async () => {
+    // 347 × 6 = 2082 and 347 × 20 = 6940; the child wrote 6840 (issue 11 §1).
+    const res = await tutor
+      .post('/api/diagnose', {
+        problem: '347 x 26',
+        answer: '8,922',
+        steps: { partials: ['2,082', '6840'] },
+      })
+      .expect(200);
+    expect(res.body.rules).toEqual([]);
+    expect(res.body.writtenSteps).toMatchObject({
+      kind: 'partials',
+      firstDiffers: 1,
+      steps: [
+        { label: 'partial product 1', expected: String(347 * 6), written: '2082', ok: true },
+        { label: 'partial product 2', expected: String(347 * 20), written: '6840', ok: false },
+      ],
+    });
+    expect(res.body.writtenSteps.steps[1].finding).toMatchObject({ oneOff: true });
+  });
+
   it.each([
     [{ problem: '304 $ 75', answer: '1' }, 422, 'problem'],
     [{ problem: '304 - 75', answer: 'lots' }, 422, 'answer'],
@@ -40,6 +61,11 @@ describe('POST /api/diagnose', () => {
     [{ problem: '1 + 1' }, 400, 'answer'],
     [{ problem: '1 + 1', answer: '2', steps: [1] }, 400, 'steps'],
     [{ problem: 'x'.repeat(201), answer: '2' }, 400, 'problem'],
+    // Issue 11 §3: these used to get past the parser and throw inside the engine.
+    [{ problem: 'round 3456 to nearest __proto__', answer: '3500' }, 422, 'problem'],
+    [{ problem: 'round 3456 to nearest constructor', answer: '3500' }, 422, 'problem'],
+    [{ problem: '34 x 12', answer: '408', steps: { partials: ['68', '340', '0'] } }, 422, 'steps'],
+    [{ problem: '45 ÷ 6', answer: '7 rem 3' }, 422, 'answer'],
   ])('refuses %j with %i naming %s', async (body, status, field) => {
     const res = await tutor.post('/api/diagnose', body).expect(status);
     expect(res.body.fields).toHaveProperty(field);
