@@ -1,7 +1,7 @@
 import {
   CAUSE_GUIDE,
   MISS_STATUS_LABEL,
-  ruleInfo,
+  ruleName,
   type Cause,
   type Diagnosis,
   type MissStatus,
@@ -111,12 +111,27 @@ export const causeLabel = (cause: Cause): string => CAUSE_GUIDE[cause]?.label ??
 /** `statusLabel('discussed')` → `'Talked through'`. */
 export const statusLabel = (status: MissStatus): string => MISS_STATUS_LABEL[status] ?? status;
 
-/** `ruleTitle('sub.borrow-across-zero')` → the catalog's short title; a pair joins both. */
+/**
+ * `ruleTitle('add.no-carry')` → `'Carry dropped (addition)'`: the catalog's title, made unique
+ * with the operation where two rules share it; a pair joins both.
+ */
 export function ruleTitle(id: string): string {
-  return id
-    .split('+')
-    .map((part) => ruleInfo(part)?.title ?? part)
-    .join(' + ');
+  return id.split('+').map(ruleName).join(' + ');
+}
+
+/**
+ * The rule a notebook row names: the one the list is filtered by when the miss has it (alone
+ * or in a pair), else its best-ranked rule. So a filtered list never names another rule.
+ */
+export function shownRule(
+  ruleIds: readonly string[],
+  filterRule: string | null,
+): string | undefined {
+  if (filterRule) {
+    const hit = ruleIds.find((id) => id === filterRule || id.split('+').includes(filterRule));
+    if (hit) return hit;
+  }
+  return ruleIds[0];
 }
 
 /** `formatDay('2026-03-04')` → `'4 Mar 2026'` (a calendar day, so no time-zone shift). */

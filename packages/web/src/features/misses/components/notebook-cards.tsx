@@ -1,8 +1,15 @@
 import { Card, Tag } from '@blueprintjs/core';
-import { Link } from 'react-router-dom';
+import { Link, useSearchParams } from 'react-router-dom';
 
 import { paths } from '../../../config/paths';
-import { causeLabel, formatDay, ruleTitle, statusLabel, type MissSummary } from '../types';
+import {
+  causeLabel,
+  formatDay,
+  ruleTitle,
+  shownRule,
+  statusLabel,
+  type MissSummary,
+} from '../types';
 
 /** The same misses as cards, for phones; each card opens its miss. */
 export function NotebookCards({
@@ -12,6 +19,8 @@ export function NotebookCards({
   misses: readonly MissSummary[];
   studentName: (id: number) => string;
 }) {
+  // The rule the list is filtered by, so each card names that rule (see shownRule).
+  const filterRule = useSearchParams()[0].get('rule');
   return (
     <ul className="wb-cards" aria-label="Misses">
       {misses.map((miss) => (
@@ -45,8 +54,10 @@ export function NotebookCards({
                 <Tag minimal round>
                   {statusLabel(miss.status)}
                 </Tag>
-                {miss.ruleIds[0] ? (
-                  <span className="wb-muted">{ruleTitle(miss.ruleIds[0])}</span>
+                {shownRule(miss.ruleIds, filterRule) ? (
+                  <span className="wb-muted">
+                    {ruleTitle(shownRule(miss.ruleIds, filterRule)!)}
+                  </span>
                 ) : null}
               </span>
             </div>

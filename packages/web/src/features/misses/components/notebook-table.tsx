@@ -1,9 +1,16 @@
 import { Cell, Column } from '@blueprintjs/table';
-import { Link, useNavigate } from 'react-router-dom';
+import { Link, useNavigate, useSearchParams } from 'react-router-dom';
 
 import { ListTable } from '../../../components/list-table';
 import { paths } from '../../../config/paths';
-import { causeLabel, formatDay, ruleTitle, statusLabel, type MissSummary } from '../types';
+import {
+  causeLabel,
+  formatDay,
+  ruleTitle,
+  shownRule,
+  statusLabel,
+  type MissSummary,
+} from '../types';
 
 const ROW_HEIGHT = 56;
 const WIDTHS = [64, 100, 108, 168, 80, 108, 170, 120];
@@ -17,6 +24,8 @@ export function NotebookTable({
   studentName: (id: number) => string;
 }) {
   const navigate = useNavigate();
+  // The rule the list is filtered by, so each row names that rule (see shownRule).
+  const filterRule = useSearchParams()[0].get('rule');
   const open = (row: number) => {
     const miss = misses[row];
     if (miss) void navigate(paths.app.miss.getHref(miss.id));
@@ -93,7 +102,7 @@ export function NotebookTable({
       name="Step error"
       cellRenderer={(row) => {
         const miss = misses[row];
-        const first = miss?.ruleIds[0];
+        const first = miss ? shownRule(miss.ruleIds, filterRule) : undefined;
         const title = first ? ruleTitle(first) : miss?.checked ? '—' : 'Not checked';
         return cell(row, title, first ? undefined : 'wb-muted', first ? title : undefined);
       }}

@@ -37,7 +37,7 @@ const SECTIONS: readonly { kind: PlanItemKind; title: string; intro: string }[] 
   {
     kind: 'miss',
     title: 'Problems to re-work',
-    intro: 'Ask your child to work each one again and say out loud how they solve it.',
+    intro: 'Ask the child to work each one again and say out loud how they solve it.',
   },
 ];
 
