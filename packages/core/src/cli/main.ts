@@ -276,10 +276,15 @@ function describeDiagnosis(d: Diagnosis): string {
       lines.push('Ways of working that give exactly this answer (best first):');
       d.rules.forEach((r, i) => lines.push(`  ${i + 1}. ${r.id}: ${r.explanation}`));
     }
-    for (const f of d.facts)
+    for (const f of d.facts) {
+      const sign = f.op === 'x' ? '×' : f.op === '-' ? '−' : f.op;
+      // The first explanation usually says it already ("13 − 5 was taken as 9"): not twice.
+      if (d.rules[0]?.explanation.includes(`${f.a} ${sign} ${f.b} was taken as ${f.written}`))
+        continue;
       lines.push(
-        `Fact to look at: ${f.a} ${f.op === 'x' ? '×' : f.op === '-' ? '−' : f.op} ${f.b} = ${f.expected} (written ${f.written}, ${f.where})`,
+        `Fact to look at: ${f.a} ${sign} ${f.b} = ${f.expected} (written ${f.written}, ${f.where})`,
       );
+    }
   }
   for (const n of d.notes) lines.push(`Note: ${n}`);
   lines.push('', 'Usual working:', ...formatTrace(d.trace.expected).map((l) => `  ${l}`));
