@@ -41,6 +41,12 @@ export function checkByResidues(problem: Problem, answer: Answer, modulus: 9 | 1
     );
   if (problem.kind === 'fraction-sum' || problem.kind === 'fraction-comparison')
     return notApplicable('Digit checks work on whole numbers, not on fractions.');
+  if (problem.kind === 'decimal' || problem.kind === 'decimal-comparison')
+    return notApplicable(
+      'Digit checks here are for whole numbers; check a decimal answer by estimating (4.5 + 2.25 is about 7).',
+    );
+  if (problem.kind === 'clock')
+    return notApplicable('Digit checks do not work on hours and minutes; count on the clock instead.');
 
   if (problem.kind === 'division') {
     let q: string;

@@ -7,6 +7,8 @@ const pad = (s: string, width: number): string => s.padStart(width, ' ');
  * `formatTrace(subtractionTrace)` → `['  304', '−  75', '─────', '  229', 'regrouping: …']`.
  */
 export function formatTrace(trace: WorkingTrace): string[] {
+  if ('point' in trace && trace.point !== undefined && trace.point > 0)
+    return withPoint(formatTrace({ ...trace, point: 0 }), trace.point);
   switch (trace.kind) {
     case 'column-addition': {
       const rows = trace.rows.map((r) => r.digits + ' '.repeat(r.shift));
@@ -91,6 +93,14 @@ export function formatTrace(trace: WorkingTrace): string[] {
           : []),
         `  = ${trace.unsimplified.numerator}/${trace.unsimplified.denominator}${trace.simplified.divisor > 1 ? ` = ${trace.simplified.numerator}/${trace.simplified.denominator}` : ''}${trace.mixed === null ? '' : ` = ${trace.mixed}`}`,
       ];
+    case 'decimal-comparison':
+      return [`${trace.left} ? ${trace.right}`, `  ${trace.basis}`, `= ${trace.result}`];
+    case 'clock':
+      return [
+        `${trace.left} ${trace.op} ${trace.right}`,
+        ...trace.steps.map((s) => `  ${s}`),
+        `= ${trace.result}`,
+      ];
     case 'fraction-comparison':
       return trace.basis === 'denominators'
         ? [
@@ -102,4 +112,16 @@ export function formatTrace(trace: WorkingTrace): string[] {
             `${trace.left.numerator}/${trace.left.denominator} ${trace.sign} ${trace.right.numerator}/${trace.right.denominator}`,
           ];
   }
+}
+
+/** Column lines with the point put back `places` digits from the right of every number row. */
+function withPoint(lines: readonly string[], places: number): string[] {
+  return lines.map((line) => {
+    if (/^─+$/.test(line)) return `${line}─`;
+    const m = /^([+−×\s]*)(\d+)(\s*)$/.exec(line);
+    if (m === null) return line;
+    const digits = (m[2] as string).padStart(places + 1, '0');
+    const at = digits.length - places;
+    return `${m[1]}${digits.slice(0, at)}.${digits.slice(at)}${m[3]}`;
+  });
 }

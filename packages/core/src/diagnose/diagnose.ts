@@ -11,6 +11,9 @@ import { diagnoseDivision } from '../division/diagnoseDivision.js';
 import { diagnoseRounding } from '../rounding/diagnoseRounding.js';
 import { diagnoseMissing } from '../missing/diagnoseMissing.js';
 import { diagnoseFractions } from '../fractions/diagnoseFractions.js';
+import { diagnoseDecimal } from '../decimals/diagnoseDecimal.js';
+import { diagnoseDecimalComparison } from '../decimals/diagnoseDecimalComparison.js';
+import { diagnoseClock } from '../time/diagnoseClock.js';
 import { adjacentSwap } from './adjacentSwap.js';
 import { ENGINE_VERSION } from './engineVersion.js';
 import { rankMatches } from './rankMatches.js';
@@ -100,6 +103,12 @@ function findingsFor(problem: Problem, answer: Answer, steps: WrittenSteps | und
     case 'fraction-sum':
     case 'fraction-comparison':
       return diagnoseFractions(problem, answer);
+    case 'decimal':
+      return diagnoseDecimal(problem, answer);
+    case 'decimal-comparison':
+      return diagnoseDecimalComparison(problem, answer);
+    case 'clock':
+      return diagnoseClock(problem, answer);
   }
 }
 

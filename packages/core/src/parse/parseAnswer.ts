@@ -22,6 +22,20 @@ export function parseAnswer(text: string): ParsedAnswer {
   if (s === '<' || s === '>' || s === '=')
     return { ok: true, answer: { kind: 'comparison', sign: s, text: s } };
 
+  // Money: "$8.75" is read as 8.75.
+  if (/^\$\s*[\d.]/.test(s)) {
+    const amount = parseAnswer(s.replace(/^\$\s*/, ''));
+    if (amount.ok && (amount.answer.kind === 'whole' || amount.answer.kind === 'decimal'))
+      return amount;
+    return fail('After “$” write an amount, such as $8.75.', offset);
+  }
+  const clock = /^(\d{1,3}):(\d{2,3})$/.exec(s);
+  if (clock !== null) {
+    const hours = String(Number(clock[1]));
+    const minutes = clock[2] as string;
+    return { ok: true, answer: { kind: 'clock', hours, minutes, text: `${hours}:${minutes}` } };
+  }
+
   const rem = /^([\d,]+)\s*[rR]\s*([\d,]*)$/.exec(s);
   if (rem !== null) {
     if ((rem[2] as string) === '')

@@ -1,5 +1,6 @@
 import { compareWhole } from '../numbers/digits.js';
 import { formatExpression, formatFraction } from './formatProblem.js';
+import { parseMeasured } from './parseMeasured.js';
 import { graphemeAt } from './graphemeAt.js';
 import { quoteInput } from './quoteInput.js';
 import { MAX_DIGITS, readWhole } from './readWhole.js';
@@ -57,6 +58,8 @@ export function parseProblem(text: string): ParsedProblem {
   const trimmed = text.trim();
   if (trimmed === '') return fail('Type a problem, for example 304 − 75.');
   if (/^round\b/i.test(trimmed)) return parseRounding(trimmed, text.indexOf(trimmed));
+  const measured = parseMeasured(trimmed);
+  if (measured !== null) return measured;
 
   const tokens = tokenize(text);
   if (!Array.isArray(tokens)) return { ok: false, error: tokens };

@@ -23,6 +23,18 @@ export interface RoundingPlace {
   readonly exponent: number;
 }
 
+/** A decimal as written, split at the point: 12.50 → `{ whole: '12', decimals: '50' }`; 7 → `{ whole: '7', decimals: '' }`. */
+export interface DecimalNumber {
+  readonly whole: string;
+  readonly decimals: string;
+}
+
+/** A clock time or a duration `h:mm`: 3:15 → `{ hours: 3, minutes: 15 }`. */
+export interface ClockTime {
+  readonly hours: number;
+  readonly minutes: number;
+}
+
 /**
  * A problem Workback can work. `text` is the problem written the way Workback prints it,
  * e.g. `'304 − 75'`.
@@ -73,6 +85,30 @@ export type Problem =
       readonly left: Fraction;
       readonly right: Fraction;
       readonly text: string;
+    }
+  | {
+      /** Decimals (or money, with `$`) added, subtracted or multiplied: `4.5 + 2.25`, `$12.50 − $3.75`. */
+      readonly kind: 'decimal';
+      readonly op: '+' | '−' | '×';
+      readonly left: DecimalNumber;
+      readonly right: DecimalNumber;
+      readonly money: boolean;
+      readonly text: string;
+    }
+  | {
+      /** Two decimals compared: `0.45 ? 0.5` (answer `<`, `>` or `=`). */
+      readonly kind: 'decimal-comparison';
+      readonly left: DecimalNumber;
+      readonly right: DecimalNumber;
+      readonly text: string;
+    }
+  | {
+      /** Clock times or durations added or subtracted: `3:15 − 1:50`. */
+      readonly kind: 'clock';
+      readonly op: '+' | '−';
+      readonly left: ClockTime;
+      readonly right: ClockTime;
+      readonly text: string;
     };
 
 export type ProblemKind = Problem['kind'];
@@ -101,7 +137,14 @@ export type Answer =
       readonly denominator: number;
       readonly text: string;
     }
-  | { readonly kind: 'comparison'; readonly sign: '<' | '>' | '='; readonly text: string };
+  | { readonly kind: 'comparison'; readonly sign: '<' | '>' | '='; readonly text: string }
+  | {
+      /** A time `h:mm` as the child wrote it; the minutes may be 60 or more (1:65). */
+      readonly kind: 'clock';
+      readonly hours: string;
+      readonly minutes: string;
+      readonly text: string;
+    };
 
 /** What could not be read, in words for a parent; `at` is the character position when known. */
 export interface ReadError {

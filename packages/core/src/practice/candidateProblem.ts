@@ -102,5 +102,34 @@ export function candidateProblem(info: RuleInfo, random: Random, digits: number)
       const s = int(random, 2, max);
       return `${int(random, 1, q - 1)}/${q} + ${int(random, 1, s - 1)}/${s}`;
     }
+    case 'decimal': {
+      const w = () => String(int(random, 0, 10 ** Math.max(1, d - 2) - 1));
+      const places = (n: number) => Array.from({ length: n }, () => int(random, 0, 9)).join('');
+      if (info.id === 'dec.longer-is-larger' || info.id === 'dec.shorter-is-larger') {
+        const whole = w();
+        const a = int(random, 1, 9);
+        const b = info.id === 'dec.longer-is-larger' ? int(random, 0, a - 1) : int(random, a, 9);
+        const long = `${whole}.${b}${int(random, 1, 9)}`;
+        const short = `${whole}.${a}`;
+        return random() < 0.5 ? `${long} ? ${short}` : `${short} ? ${long}`;
+      }
+      if (info.id === 'dec.point-as-in-addition')
+        return `${w()}.${int(random, 1, 9)} x ${int(random, 0, 9)}.${int(random, 1, 9)}`;
+      const a = `${int(random, 1, 10 ** Math.max(1, d - 1) - 1)}.${places(int(random, 1, 2))}`;
+      const b = `${w()}.${places(info.id === 'dec.right-aligned' ? 3 - (a.split('.')[1] ?? '').length : int(random, 1, 2))}`;
+      const [x, y] = Number(a) >= Number(b) ? [a, b] : [b, a];
+      return random() < 0.5 ? `${x} + ${y}` : `${x} - ${y}`;
+    }
+    case 'time': {
+      const h = () => int(random, 1, 11);
+      const m = (lo: number, hi: number) => String(int(random, lo, hi)).padStart(2, '0');
+      if (info.id === 'time.minutes-not-carried') {
+        const m1 = int(random, 30, 55);
+        return `${h()}:${String(m1)} + ${h()}:${m(60 - m1, 59)}`;
+      }
+      const h1 = int(random, 2, 11);
+      const m1 = int(random, 0, 45);
+      return `${h1}:${String(m1).padStart(2, '0')} - ${int(random, 1, h1 - 1)}:${m(m1 + 1, 59)}`;
+    }
   }
 }

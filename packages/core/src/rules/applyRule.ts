@@ -4,6 +4,9 @@ import { divideDigitByDigit } from '../division/divideDigitByDigit.js';
 import { divideLong } from '../division/divideLong.js';
 import { addFractions } from '../fractions/addFractions.js';
 import { compareFractions } from '../fractions/compareFractions.js';
+import { compareAs } from '../decimals/diagnoseDecimalComparison.js';
+import { decimalRuleAnswers } from '../decimals/decimalRuleAnswers.js';
+import { workClock } from '../time/diagnoseClock.js';
 import { solveMissing } from '../missing/solveMissing.js';
 import { layoutOf, MULTIPLICATION_METHOD_RULES } from '../multiplication/diagnoseMultiplication.js';
 import { multiplyLong } from '../multiplication/multiplyLong.js';
@@ -95,6 +98,24 @@ export function applyRule(ruleId: string, problem: Problem): string[] {
     case 'fraction-comparison':
       if (ruleId === 'frac.larger-denominator-larger')
         push(compareFractions(problem.left, problem.right, 'denominators')?.sign);
+      break;
+    case 'decimal':
+      for (const answer of decimalRuleAnswers(ruleId, problem)) push(answer);
+      break;
+    case 'decimal-comparison':
+      if (ruleId === 'dec.longer-is-larger' || ruleId === 'dec.shorter-is-larger')
+        push(
+          compareAs(
+            problem.left,
+            problem.right,
+            ruleId === 'dec.longer-is-larger' ? 'longer-is-larger' : 'shorter-is-larger',
+          ).sign,
+        );
+      break;
+    case 'clock':
+      if (ruleId === 'time.hundred-minutes') push(workClock(problem, 'hundred-minutes')?.result);
+      if (ruleId === 'time.minutes-not-carried')
+        push(workClock(problem, 'minutes-not-carried')?.result);
       break;
   }
   return out;

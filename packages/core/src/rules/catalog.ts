@@ -11,7 +11,9 @@ export interface RuleInfo {
     | 'division'
     | 'missing'
     | 'rounding'
-    | 'fraction';
+    | 'fraction'
+    | 'decimal'
+    | 'time';
   /** `systematic` — a consistent wrong method; `fact` — one basic fact wrong, the method right. */
   readonly kind: 'systematic' | 'fact';
   readonly title: string;
@@ -331,6 +333,57 @@ export const RULES: readonly RuleInfo[] = [
     'Only the tops added',
     'With unlike denominators, adds the numerators and keeps one of the denominators.',
     ['1/4 + 1/2', '2/4', '3/4'],
+  ),
+  // Decimals and money: once the points are lined up, the column rules above keep their ids.
+  rule(
+    'dec.right-aligned',
+    'decimal',
+    'Last digits lined up, not the points',
+    'Lines up the last digits instead of the points, works the columns as whole numbers, and places the point as many places from the right as the longer decimal part.',
+    ['4.5 + 2.25', '2.70', '6.75'],
+  ),
+  rule(
+    'dec.point-dropped',
+    'decimal',
+    'Point left out',
+    'Works the digits correctly but writes no point.',
+    ['4.5 + 2.25', '675', '6.75'],
+  ),
+  rule(
+    'dec.longer-is-larger',
+    'decimal',
+    'More decimal digits taken as larger',
+    'Comparing, takes the number with more digits after the point as larger.',
+    ['0.45 ? 0.5', '>', '<'],
+  ),
+  rule(
+    'dec.shorter-is-larger',
+    'decimal',
+    'Fewer decimal digits taken as larger',
+    'Comparing, takes the number with fewer digits after the point as larger.',
+    ['0.4 ? 0.45', '>', '<'],
+  ),
+  rule(
+    'dec.point-as-in-addition',
+    'decimal',
+    'Point placed as in addition',
+    'Multiplying, places the point as in addition: as many places as the factor with the most.',
+    ['0.3 × 0.2', '0.6', '0.06'],
+  ),
+  // Clock times h:mm.
+  rule(
+    'time.hundred-minutes',
+    'time',
+    'An hour taken as 100 minutes',
+    'Subtracts clock times as if an hour had 100 minutes.',
+    ['3:15 − 1:50', '1:65', '1:25'],
+  ),
+  rule(
+    'time.minutes-not-carried',
+    'time',
+    '60 minutes not made an hour',
+    'Adding, leaves 60 or more minutes unconverted.',
+    ['2:45 + 1:30', '3:75', '4:15'],
   ),
 ];
 

@@ -52,6 +52,43 @@ const problems: Record<string, fc.Arbitrary<string>> = {
   fraction: fc
     .tuple(digits(1, 9), digits(1, 12), digits(1, 9), digits(1, 12), fc.constantFrom('+', '?'))
     .map(([a, b, c, d, op]) => `${a}/${b} ${op} ${op === '?' ? a : c}/${d}`),
+  // Decimals and money: + − × and comparisons, with one to three places on either side.
+  decimal: fc
+    .tuple(
+      fc.integer({ min: 1, max: 3 }).chain(num),
+      fc.integer({ min: 1, max: 3 }).chain(num),
+      fc.integer({ min: 1, max: 3 }),
+      fc.integer({ min: 0, max: 3 }),
+      fc.constantFrom('+', '-', 'x', '?', '?'),
+      fc.boolean(),
+    )
+    .map(([a, b, pa, pb, op, money]) => {
+      const point = (n: string, p: number) =>
+        p === 0 ? n : `${n.slice(0, -p) || '0'}.${n.slice(-p).padStart(p, '0')}`;
+      const x = point(a.padStart(pa + 1, '1'), pa);
+      const y = point(
+        op === '?' ? `${x.split('.')[0]}${b}` : b.padStart(pb + 1, '1'),
+        op === '?' ? b.length : pb,
+      );
+      const [l, r] = op === '-' && Number(x) < Number(y) ? [y, x] : [x, y];
+      const $ = money && op !== '?' && op !== 'x' ? '$' : '';
+      return `${$}${l} ${op} ${$}${r}`;
+    }),
+  time: fc
+    .tuple(
+      fc.integer({ min: 1, max: 12 }),
+      fc.integer({ min: 0, max: 59 }),
+      fc.integer({ min: 0, max: 11 }),
+      fc.integer({ min: 0, max: 59 }),
+      fc.boolean(),
+    )
+    .map(([h1, m1, h2, m2, add]) => {
+      const t = (h: number, m: number) => `${h}:${String(m).padStart(2, '0')}`;
+      if (add) return `${t(h1, m1)} + ${t(h2, m2)}`;
+      return h1 * 60 + m1 >= h2 * 60 + m2
+        ? `${t(h1, m1)} - ${t(h2, m2)}`
+        : `${t(h2, m2)} - ${t(h1, m1)}`;
+    }),
 };
 
 const systematic = RULES.filter(

@@ -33,6 +33,8 @@ export interface ColumnAdditionTrace {
   readonly rows: readonly Row[];
   readonly columns: readonly AdditionColumn[];
   readonly result: string;
+  /** For decimals: the point stands this many columns from the right, in every row (rows and result are digits only). */
+  readonly point?: number;
 }
 
 /** One column of column subtraction. */
@@ -73,6 +75,8 @@ export interface ColumnSubtractionTrace {
   /** Regroupings in the order they were done. */
   readonly regroupings: readonly Regrouping[];
   readonly result: string;
+  /** For decimals: the point stands this many columns from the right (digits only elsewhere). */
+  readonly point?: number;
 }
 
 /** One digit-by-digit product inside a partial product. */
@@ -116,6 +120,8 @@ export interface LongMultiplicationTrace {
     readonly appended: number;
   } | null;
   readonly result: string;
+  /** For decimals: the point stands this many columns from the right (digits only elsewhere). */
+  readonly point?: number;
 }
 
 /** One divide–multiply–subtract–bring-down step of long division. */
@@ -221,6 +227,30 @@ export interface FractionComparisonTrace {
   readonly result: string;
 }
 
+/** Two decimals compared: each written with as many places as the other, then compared. */
+export interface DecimalComparisonTrace {
+  readonly kind: 'decimal-comparison';
+  readonly left: string;
+  readonly right: string;
+  /** Both with the same number of digits after the point (0.5 → 0.50 beside 0.45). */
+  readonly padded: readonly [string, string];
+  /** What the comparison went by, in words. */
+  readonly basis: string;
+  readonly sign: '<' | '>' | '=';
+  readonly result: string;
+}
+
+/** Hours and minutes added or subtracted, a line of working a step. */
+export interface ClockTrace {
+  readonly kind: 'clock';
+  readonly op: '+' | '−';
+  readonly left: string;
+  readonly right: string;
+  /** The working in words and numbers, e.g. `['15 min is less than 50 min: take 1 h as 60 min', …]`. */
+  readonly steps: readonly string[];
+  readonly result: string;
+}
+
 /** A working laid out for drawing; see each member's doc. */
 export type WorkingTrace =
   | ColumnAdditionTrace
@@ -230,6 +260,8 @@ export type WorkingTrace =
   | RoundingTrace
   | MissingNumberTrace
   | FractionSumTrace
-  | FractionComparisonTrace;
+  | FractionComparisonTrace
+  | DecimalComparisonTrace
+  | ClockTrace;
 
 export type WorkingTraceKind = WorkingTrace['kind'];

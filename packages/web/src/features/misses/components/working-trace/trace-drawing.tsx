@@ -8,7 +8,7 @@ import {
   layoutRounding,
   layoutSubtraction,
 } from './layouts';
-import { Paper } from './paper';
+import { Paper, type PaperLayout } from './paper';
 
 type DrawingProps = {
   trace: WorkingTrace;
@@ -32,16 +32,25 @@ export const PAPER_KINDS: ReadonlySet<WorkingTrace['kind']> = new Set([
 
 /** One working, drawn the way it is written on paper; every kind the engine produces. */
 export function TraceDrawing({ trace, label, differsPlace, answer, showCheck }: DrawingProps) {
-  const options = { differsPlace, answer };
+  // Decimals are worked on lined-up columns with the point set aside: name the columns as the
+  // working does, and draw the point back in.
+  const point = 'point' in trace ? (trace.point ?? 0) : 0;
+  const options = {
+    differsPlace: point > 0 ? scaledPlace(differsPlace, point) : differsPlace,
+    answer: point > 0 && answer !== undefined ? answer.replace('.', '') : answer,
+  };
+  const paper = (layout: PaperLayout) => (
+    <Paper layout={point > 0 ? withPoint(layout, point) : layout} label={label} />
+  );
   switch (trace.kind) {
     case 'column-addition':
-      return <Paper layout={layoutAddition(trace, options)} label={label} />;
+      return paper(layoutAddition(trace, options));
     case 'column-subtraction':
-      return <Paper layout={layoutSubtraction(trace, options)} label={label} />;
+      return paper(layoutSubtraction(trace, options));
     case 'long-multiplication':
       return (
         <>
-          <Paper layout={layoutMultiplication(trace, options)} label={label} />
+          {paper(layoutMultiplication(trace, options))}
           {trace.zeros && answer === undefined ? (
             <p className="wb-trace-aside">
               The zeros at the ends were set aside ({trace.zeros.top} from {trace.top},{' '}
@@ -101,5 +110,71 @@ export function TraceDrawing({ trace, label, differsPlace, answer, showCheck }: 
       return <FractionSumDrawing trace={trace} differsPlace={differsPlace} label={label} />;
     case 'fraction-comparison':
       return <FractionComparisonDrawing trace={trace} differsPlace={differsPlace} label={label} />;
+    case 'decimal-comparison':
+      return (
+        <div className="wb-trace-missing" aria-label={label} role="group">
+          <p className="wb-mono wb-trace-equation">
+            {trace.left} ? {trace.right}
+          </p>
+          <p className="wb-trace-aside">
+            {trace.basis}: <span className="wb-mono">{answer ?? trace.result}</span>
+          </p>
+        </div>
+      );
+    case 'clock':
+      return (
+        <div className="wb-trace-missing" aria-label={label} role="group">
+          <p className="wb-mono wb-trace-equation">
+            {trace.left} {trace.op} {trace.right} = {answer ?? trace.result}
+          </p>
+          {answer === undefined ? (
+            <ul className="wb-trace-aside">
+              {trace.steps.map((step) => (
+                <li key={step}>{step}</li>
+              ))}
+            </ul>
+          ) : null}
+        </div>
+      );
   }
+}
+
+const WHOLE_PLACES = [
+  'ones',
+  'tens',
+  'hundreds',
+  'thousands',
+  'ten thousands',
+  'hundred thousands',
+  'millions',
+  'ten millions',
+  'hundred millions',
+];
+const DECIMAL_PLACES = ['tenths', 'hundredths', 'thousandths', 'ten-thousandths'];
+
+/** A decimal place named as its column of the lined-up working: with 2 places, tenths → tens. */
+export function scaledPlace(place: string | null | undefined, point: number): string | null {
+  if (!place) return null;
+  const whole = WHOLE_PLACES.indexOf(place);
+  const decimal = DECIMAL_PLACES.indexOf(place);
+  const index = whole >= 0 ? whole + point : decimal >= 0 ? point - 1 - decimal : -1;
+  return index >= 0 ? (WHOLE_PLACES[index] ?? null) : place;
+}
+
+/** The point drawn after the ones digit of every row of figures (a 0 before it where none is written). */
+function withPoint(layout: PaperLayout, point: number): PaperLayout {
+  const at = layout.width - 1 - point;
+  return {
+    ...layout,
+    rows: layout.rows.map((row) => {
+      if (row.small || !row.cells.some((c) => c !== null && /\d/.test(String(c.text)))) return row;
+      const cells = row.cells.slice();
+      const ones = cells[at];
+      cells[at] =
+        ones === null || ones === undefined
+          ? { text: '0.', quiet: true }
+          : { ...ones, text: <>{ones.text}.</> };
+      return { ...row, cells };
+    }),
+  };
 }

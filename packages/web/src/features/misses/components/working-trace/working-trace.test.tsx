@@ -231,3 +231,28 @@ describe('WorkingTrace', () => {
     expect(screen.getByText(/not a grade or an assessment of your child/)).toBeInTheDocument();
   });
 });
+
+describe('WorkingTrace for decimals, money and clock times (issue 16)', () => {
+  it('draws the point after the ones digit of every row, the columns lined up', () => {
+    show('12.50 - 3.75', '19.85');
+    const rows = paperRows(usual()).filter((r) => r.some((c) => /\d/.test(c)));
+    const figures = rows.slice(-3).map((r) => r.join('').replace(/\s/g, ''));
+    expect(figures).toEqual(['12.50', '−3.75', '8.75']);
+    // The tenths column, where the child's working first went differently, is shaded.
+    expect(shadedColumn(usual()).length).toBe(1);
+  });
+
+  it('writes the steps of a clock problem', () => {
+    show('3:15 - 1:50', '1:65');
+    expect(screen.getAllByText(/1 h taken as 60 min/).length).toBeGreaterThan(0);
+    expect(screen.getAllByText(/1 h taken as 100 min/).length).toBeGreaterThan(0);
+  });
+
+  it('says how a decimal comparison was made', () => {
+    show('0.45 ? 0.5', '>');
+    expect(
+      screen.getAllByText(/more digits after the point taken as larger/).length,
+    ).toBeGreaterThan(0);
+    expect(screen.getAllByText(/0\.45 < 0\.50/).length).toBeGreaterThan(0);
+  });
+});
