@@ -27,6 +27,17 @@ const makers: Record<string, Maker> = {
   division: (d) => `${digitsOf(d)} ÷ ${digitsOf(1)}`,
   rounding: (d) => `round ${digitsOf(d)} to the nearest ${d > 3 ? 'hundred' : 'ten'}`,
   missing: (d) => `? + ${digitsOf(d)} = ${digitsOf(d + 1)}`,
+  // Decimals and money: d digits in all, two after the point.
+  decimal: (d) => {
+    const a = `${digitsOf(Math.max(1, d - 2))}.${digitsOf(2)}`;
+    const b = `${digitsOf(Math.max(1, d - 2))}.${digitsOf(1)}`;
+    return Number(a) >= Number(b) ? `$${a} - $${b}` : `$${b} - $${a}`;
+  },
+  time: () => {
+    const h = 2 + Math.floor(random() * 9);
+    const m = 10 + Math.floor(random() * 40);
+    return `${h}:${m} - ${h - 1}:${m + 5 + Math.floor(random() * 10)}`;
+  },
 };
 const ruleFor: Record<string, string> = {
   addition: 'add.no-carry',
@@ -35,6 +46,8 @@ const ruleFor: Record<string, string> = {
   division: 'div.remainders-dropped',
   rounding: 'round.truncated',
   missing: 'missing.used-wrong-operation',
+  decimal: 'sub.borrow-no-decrement',
+  time: 'time.hundred-minutes',
 };
 
 /** Problems with a wrong answer (a rule's answer when it differs, else the right answer plus one). */

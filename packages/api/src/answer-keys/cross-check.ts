@@ -51,6 +51,7 @@ function sentenceFor(problem: { kind: string; text: string }, expected: string):
     case 'missing':
       return `the missing number in ${text} is ${value}`;
     case 'fraction-comparison':
+    case 'decimal-comparison':
       return text.replace('?', value);
     default:
       return `${text} = ${value}`;
@@ -59,5 +60,7 @@ function sentenceFor(problem: { kind: string; text: string }, expected: string):
 
 /** `1128` → `1,128` for whole numbers of four digits or more. */
 function withCommas(text: string): string {
-  return text.replace(/\d{4,}/g, (digits) => digits.replace(/\B(?=(\d{3})+(?!\d))/g, ','));
+  return text.replace(/(?<![.\d])\d{4,}/g, (digits) =>
+    digits.replace(/\B(?=(\d{3})+(?!\d))/g, ','),
+  );
 }

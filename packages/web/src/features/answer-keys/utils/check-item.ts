@@ -7,14 +7,15 @@ export type LocalCheck =
 
 /** `1128` → `1,128` (whole numbers of four digits or more). */
 const withCommas = (text: string) =>
-  text.replace(/\d{4,}/g, (digits) => digits.replace(/\B(?=(\d{3})+(?!\d))/g, ','));
+  text.replace(/(?<![.\d])\d{4,}/g, (digits) => digits.replace(/\B(?=(\d{3})+(?!\d))/g, ','));
 
 function workedOut(problem: { kind: string; text: string }, expected: string): string {
   const text = withCommas(problem.text);
   const value = withCommas(expected);
   if (problem.kind === 'rounding') return `${text} is ${value}`;
   if (problem.kind === 'missing') return `the missing number in ${text} is ${value}`;
-  if (problem.kind === 'fraction-comparison') return text.replace('?', value);
+  if (problem.kind === 'fraction-comparison' || problem.kind === 'decimal-comparison')
+    return text.replace('?', value);
   return `${text} = ${value}`;
 }
 
