@@ -3,6 +3,7 @@ import type { Diagnosis } from '@workback/core';
 import { ruleTitle } from '../../types';
 import { ChecksSection } from './checks';
 import { PAPER_KINDS, TraceDrawing } from './trace-drawing';
+import { WrittenSteps } from './written-steps';
 
 const OP_SIGN: Record<string, string> = { '+': '+', '-': '−', x: '×', '÷': '÷' };
 
@@ -83,6 +84,9 @@ export function WorkingTrace({ diagnosis }: { diagnosis: Diagnosis }) {
           />
         </figure>
       </div>
+      {diagnosis.writtenSteps && diagnosis.writtenSteps.steps.length > 0 ? (
+        <WrittenSteps report={diagnosis.writtenSteps} />
+      ) : null}
       {firstWrongStep ? (
         <p className="wb-trace-where">
           <span className="wb-trace-swatch" aria-hidden="true" />
