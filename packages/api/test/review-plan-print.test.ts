@@ -64,6 +64,8 @@ beforeAll(async () => {
   await miss('2026-12-01', '4006 - 989', '3127', { revisit: ['15'] });
   await miss('2026-12-02', '7 x 8', '54', { revisit: ['13'] });
   await miss('2026-12-02', '58 + 67', '115', { revisit: ['4'] });
+  // Issue 11's example: 347 × 26 answered 8,922 with partials 2,082 and 6,840 (347 × 20 = 6,940).
+  await miss('2026-12-03', '347 x 26', '8922', { steps: { partials: ['2082', '6840'] } });
   // Marked wrong, but the engine works 304 − 75 out as 229: nothing to re-work.
   await miss('2026-12-02', '304 - 75', '229', { revisit: ['8'] });
   const res = await owner.post('/api/review-plans', {
@@ -85,7 +87,7 @@ afterAll(() => t.close());
 describe('a plan never misleads', () => {
   it('never asks to re-work an answer the engine finds right, and says why it is left out', async () => {
     expect(plan.misses.map((m) => `${m.problem} ${m.answer}`)).not.toContain('304 - 75 229');
-    expect(plan.items.filter((i) => i.kind === 'miss')).toHaveLength(5);
+    expect(plan.items.filter((i) => i.kind === 'miss')).toHaveLength(6);
     expect(plan.notes.join(' ')).toMatch(/304 - 75 answered 229 is right by the checker/);
     // Lesson 8 was asked for only by the right answer: it is not on the plan.
     expect(plan.lessons.ranges.map((r) => [r.from, r.to])).toEqual([
@@ -175,6 +177,14 @@ describe('the printed plan', () => {
     expect(text).not.toMatch(/→|tens 0 > 10 > 9/);
     for (const p of plan.practice.flatMap((b) => b.problems))
       expect(text).toContain(`${p.number}. ${printedProblem(p.problem)} = ${p.answer}`);
+  });
+
+  it('draws the partial products the child wrote and marks the first that differs', async () => {
+    const text = (await pages(pdf)).join('\n');
+    expect(text).toContain('The partial products the child wrote, beside the usual ones:');
+    expect(text).toMatch(
+      /partial product 2 \(347 × 2[^)]*\): wrote 6840 · usual 6940 · the first that differs/,
+    );
   });
 
   it('renders to PNG pages with pdftoppm (Debian poppler-utils)', () => {
