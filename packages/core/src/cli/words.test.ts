@@ -38,7 +38,7 @@ describe('words for a parent', () => {
       ];
       for (const s of said) expect(s, `${p} → ${a}`).not.toMatch(negative);
     }
-  });
+  }, 60_000);
 
   it('says the 0 becomes 9 when the lending digit is 0', () => {
     const d = diagnose('904 - 37', '977');

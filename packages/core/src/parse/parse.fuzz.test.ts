@@ -73,20 +73,21 @@ function expectReadOrRefused(result: { ok: boolean; error?: { message: string } 
   }
 }
 
+// Generous timeouts: thousands of runs on a shared 2-core machine (never a speed check).
 describe('the parser under random input', () => {
   it('parses or refuses with a message for any problem text', () => {
     fc.assert(
       fc.property(anyText, (text) => expectReadOrRefused(parseProblem(text))),
       { numRuns: 5000 },
     );
-  });
+  }, 60_000);
 
   it('parses or refuses with a message for any answer text', () => {
     fc.assert(
       fc.property(anyText, (text) => expectReadOrRefused(parseAnswer(text))),
       { numRuns: 5000 },
     );
-  });
+  }, 60_000);
 
   it('diagnoses or names the unreadable part for any pair of texts', () => {
     fc.assert(
@@ -101,7 +102,7 @@ describe('the parser under random input', () => {
       }),
       { numRuns: 3000 },
     );
-  });
+  }, 60_000);
 
   it('diagnoses or refuses any written steps, never throws (partials and lines of any length)', () => {
     const problem = fc.oneof(
@@ -121,5 +122,5 @@ describe('the parser under random input', () => {
       }),
       { numRuns: 3000 },
     );
-  });
+  }, 60_000);
 });
