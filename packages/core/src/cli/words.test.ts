@@ -70,5 +70,5 @@ describe('words for a parent', () => {
         `${p} → ${a}`,
       ).toEqual([]);
     }
-  });
+  }, 60_000);
 });
