@@ -29,6 +29,8 @@ declare module 'autocannon' {
     url: string;
     connections?: number;
     duration?: number;
+    /** Requests per second from all connections together: an open-loop offered load. */
+    overallRate?: number;
     headers?: Record<string, string>;
     requests?: Request[];
   }

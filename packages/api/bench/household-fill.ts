@@ -147,3 +147,215 @@ async function count(run: (sql: string) => Promise<unknown>, table: string): Pro
   if (n === 0) throw new Error(`the demo household has no ${table} rows to copy`);
   return n;
 }
+
+export interface FamiliesOptions {
+  /** Copies of the demo household (its owner, students, keys, sittings, misses, a plan). */
+  households: number;
+  misses: number;
+  /** Copies whose misses also get the templates' full diagnoses (the ones the load signs in). */
+  diagnosed: number;
+}
+
+/**
+ * Many households, each a copy of the demo household made by the app's services: its owner
+ * (`family-N@workback.test`, the demo password), its students, answer keys and key items,
+ * sittings and marks, `misses` misses (the demo's, repeated in turn) with their rules and photo
+ * rows (keys renamed, since each row names its own file), and its review plan with its items.
+ * Pure SQL with ids worked out from each copy's number, so 600,000 misses take a minute, not
+ * hours. SQLite's SQL (date and string functions); run inside one transaction.
+ */
+export async function fillFamilies(sequelize: Sequelize, o: FamiliesOptions): Promise<void> {
+  await sequelize.transaction(async (transaction) => {
+    const run = async <T = Record<string, number>>(
+      sql: string,
+      replacements: Record<string, unknown> = {},
+    ) => ((await sequelize.query(sql, { transaction, replacements })) as [T[], unknown])[0];
+    const one = async (sql: string, r: Record<string, unknown> = {}) =>
+      Object.values((await run(sql, r))[0] ?? {})[0] as number;
+    const columns = async (table: string) =>
+      (await run<{ name: string }>(`PRAGMA table_info(${table})`)).map((c) => c.name);
+    /** INSERT INTO table (every column) SELECT each column from `t`, or its override. */
+    const copy = async (
+      table: string,
+      from: string,
+      set: Record<string, string>,
+      r: Record<string, unknown> = {},
+    ) => {
+      const cols = await columns(table);
+      await run(
+        `INSERT INTO ${table} (${cols.join(', ')}) SELECT ${cols
+          .map((c) => set[c] ?? `t.${c}`)
+          .join(', ')} ${from}`,
+        r,
+      );
+    };
+    const [demo] = await run<{ household: number; user: number }>(
+      `SELECT m.household_id AS household, u.id AS user FROM users u
+       JOIN memberships m ON m.user_id = u.id WHERE u.email = 'parent@workback.test'`,
+    );
+    const h = demo!.household;
+    const base = async (table: string) => one(`SELECT COALESCE(MAX(id), 0) FROM ${table}`);
+    const b = {
+      household: await base('households'),
+      user: await base('users'),
+      membership: await base('memberships'),
+      student: await base('students'),
+      key: await base('answer_keys'),
+      item: await base('key_items'),
+      sitting: await base('sittings'),
+      miss: await base('misses'),
+      plan: await base('review_plans'),
+      planItem: await base('review_plan_items'),
+    };
+    const n = o.households;
+    const per = o.misses;
+    await run(`CREATE TEMP TABLE k AS WITH RECURSIVE s(k) AS (SELECT 0 UNION ALL
+      SELECT k + 1 FROM s WHERE k < ${n - 1}) SELECT k FROM s`);
+    // Each demo row's rank, and from it the id of its copy in household k.
+    const rank = async (name: string, sql: string) => {
+      await run(`CREATE TEMP TABLE ${name} AS SELECT row_number() OVER (ORDER BY id) - 1 AS rn,
+        id FROM (${sql})`);
+      return one(`SELECT COUNT(*) FROM ${name}`);
+    };
+    const S = await rank('d_students', `SELECT id FROM students WHERE household_id = ${h}`);
+    const K = await rank('d_keys', `SELECT id FROM answer_keys WHERE household_id = ${h}`);
+    const I = await rank(
+      'd_items',
+      `SELECT id FROM key_items WHERE answer_key_id IN (SELECT id FROM d_keys)`,
+    );
+    const T = await rank('d_sittings', `SELECT id FROM sittings WHERE household_id = ${h}`);
+    const M = await rank('d_misses', `SELECT id FROM misses WHERE household_id = ${h}`);
+    const P = await rank('d_plans', `SELECT id FROM review_plans WHERE household_id = ${h}`);
+    const PI = await rank(
+      'd_plan_items',
+      `SELECT id FROM review_plan_items WHERE plan_id IN (SELECT id FROM d_plans)`,
+    );
+    const map = (name: string, ranks: string, b0: number, size: number) =>
+      run(`CREATE TEMP TABLE ${name} AS SELECT k.k, d.id AS old, ${b0} + k.k * ${size} + d.rn + 1
+        AS new FROM k, ${ranks} d`);
+    await map('m_students', 'd_students', b.student, S);
+    await map('m_keys', 'd_keys', b.key, K);
+    await map('m_items', 'd_items', b.item, I);
+    await map('m_sittings', 'd_sittings', b.sitting, T);
+    await map('m_plans', 'd_plans', b.plan, P);
+    await map('m_plan_items', 'd_plan_items', b.planItem, PI);
+    await run(`CREATE TEMP TABLE m_misses AS WITH RECURSIVE j(j) AS (SELECT 0 UNION ALL
+      SELECT j + 1 FROM j WHERE j < ${per - 1})
+      SELECT k.k, j.j, d.id AS old, ${b.miss} + k.k * ${per} + j.j + 1 AS new
+      FROM k, j JOIN d_misses d ON d.rn = j.j % ${M}`);
+    await run('CREATE INDEX m_misses_old ON m_misses (old)');
+    const hh = `${b.household} + k.k + 1`;
+    const uu = `${b.user} + k.k + 1`;
+
+    await run(`INSERT INTO households (id, name, created_at, updated_at)
+      SELECT ${hh}, 'Family ' || (k.k + 1), datetime('now'), datetime('now') FROM k`);
+    await copy('users', `FROM k, users t WHERE t.id = ${demo!.user}`, {
+      id: uu,
+      email: `'family-' || (k.k + 1) || '@workback.test'`,
+      display_name: `'Parent ' || (k.k + 1)`,
+    });
+    await run(`INSERT INTO memberships (id, household_id, user_id, role, created_at, updated_at)
+      SELECT ${b.membership} + k.k + 1, ${hh}, ${uu}, 'owner', datetime('now'), datetime('now')
+      FROM k`);
+    await copy('students', 'FROM m_students m JOIN students t ON t.id = m.old', {
+      id: 'm.new',
+      household_id: `${b.household} + m.k + 1`,
+    });
+    await copy('answer_keys', 'FROM m_keys m JOIN answer_keys t ON t.id = m.old', {
+      id: 'm.new',
+      household_id: `${b.household} + m.k + 1`,
+      course_id: 'NULL',
+    });
+    await copy(
+      'key_items',
+      'FROM m_items m JOIN key_items t ON t.id = m.old JOIN m_keys a ON a.old = t.answer_key_id AND a.k = m.k',
+      { id: 'm.new', answer_key_id: 'a.new' },
+    );
+    await copy(
+      'sittings',
+      `FROM m_sittings m JOIN sittings t ON t.id = m.old
+       JOIN m_students s ON s.old = t.student_id AND s.k = m.k
+       JOIN m_keys a ON a.old = t.answer_key_id AND a.k = m.k`,
+      {
+        id: 'm.new',
+        household_id: `${b.household} + m.k + 1`,
+        student_id: 's.new',
+        answer_key_id: 'a.new',
+      },
+    );
+    await copy(
+      'sitting_marks',
+      `FROM m_sittings m JOIN sitting_marks t ON t.sitting_id = m.old
+       JOIN m_items i ON i.old = t.key_item_id AND i.k = m.k`,
+      { id: 'NULL', sitting_id: 'm.new', key_item_id: 'i.new' },
+    );
+    await copy(
+      'misses',
+      `FROM m_misses m JOIN misses t ON t.id = m.old
+       JOIN m_students s ON s.old = t.student_id AND s.k = m.k
+       LEFT JOIN m_sittings st ON st.old = t.sitting_id AND st.k = m.k
+       LEFT JOIN m_items i ON i.old = t.key_item_id AND i.k = m.k`,
+      {
+        id: 'm.new',
+        household_id: `${b.household} + m.k + 1`,
+        student_id: 's.new',
+        // The demo's misses again, a week further back each time round.
+        occurred_on: `date(t.occurred_on, '-' || (7 * (m.j / ${M})) || ' days')`,
+        sitting_id: 'st.new',
+        key_item_id: 'i.new',
+        idempotency_key: 'NULL',
+        request_digest: 'NULL',
+        created_by: `${b.user} + m.k + 1`,
+        updated_by: `${b.user} + m.k + 1`,
+      },
+    );
+    await run(`INSERT INTO miss_rules (miss_id, rule_id, household_id)
+      SELECT m.new, t.rule_id, ${b.household} + m.k + 1 FROM m_misses m
+      JOIN miss_rules t ON t.miss_id = m.old`);
+    await run(`INSERT INTO miss_diagnoses (miss_id, diagnosis)
+      SELECT m.new, t.diagnosis FROM m_misses m JOIN miss_diagnoses t ON t.miss_id = m.old
+      WHERE m.k < ${o.diagnosed}`);
+    await copy('photos', 'FROM m_misses m JOIN photos t ON t.miss_id = m.old', {
+      id: 'NULL',
+      miss_id: 'm.new',
+      storage_key: `t.storage_key || '.' || m.new`,
+      thumb_key: `t.thumb_key || '.' || m.new`,
+    });
+    await copy(
+      'review_plans',
+      `FROM m_plans m JOIN review_plans t ON t.id = m.old
+       JOIN m_students s ON s.old = t.student_id AND s.k = m.k`,
+      { id: 'm.new', household_id: `${b.household} + m.k + 1`, student_id: 's.new' },
+    );
+    await copy(
+      'review_plan_items',
+      `FROM m_plan_items m JOIN review_plan_items t ON t.id = m.old
+       JOIN m_plans p ON p.old = t.plan_id AND p.k = m.k`,
+      { id: 'm.new', plan_id: 'p.new', done_by: 'NULL' },
+    );
+    await run(`INSERT INTO review_plan_item_misses (item_id, miss_id)
+      SELECT i.new, mm.new FROM review_plan_item_misses t
+      JOIN m_plan_items i ON i.old = t.item_id
+      JOIN m_misses mm ON mm.old = t.miss_id AND mm.k = i.k AND mm.j < ${M}`);
+    for (const t of [
+      'k',
+      'd_students',
+      'd_keys',
+      'd_items',
+      'd_sittings',
+      'd_misses',
+      'd_plans',
+      'd_plan_items',
+      'm_students',
+      'm_keys',
+      'm_items',
+      'm_sittings',
+      'm_plans',
+      'm_plan_items',
+      'm_misses',
+    ]) {
+      await run(`DROP TABLE ${t}`);
+    }
+  });
+  await sequelize.query('ANALYZE');
+}

@@ -1,9 +1,13 @@
 import 'reflect-metadata';
 import { benchLoadMix } from './load-mix.bench.js';
+import { benchManyFamilies } from './many-families.bench.js';
+import { benchPerRequest } from './per-request.bench.js';
 import { benchPhotoPipeline } from './photo-pipeline.bench.js';
 
-// Figures only; not part of `npm test`. `npm run bench -w packages/api -- photos|load` runs one;
-// BENCH_DURATION=5 BENCH_MISSES=20000 for a quick load run.
+// Figures only; not part of `npm test`. `npm run bench -w packages/api -- photos|request|load|families`
+// runs one; BENCH_DURATION=5 BENCH_MISSES=20000 for a quick load run.
 const only = process.argv[2];
 if (!only || only === 'photos') await benchPhotoPipeline();
+if (!only || only === 'request') await benchPerRequest();
 if (!only || only === 'load') await benchLoadMix();
+if (!only || only === 'families') await benchManyFamilies();

@@ -1,0 +1,370 @@
+import { mkdtempSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import path from 'node:path';
+import { getConnectionToken } from '@nestjs/sequelize';
+import autocannon, { type Request, type Result } from 'autocannon';
+import sharp from 'sharp';
+import type { Sequelize } from 'sequelize-typescript';
+import { createApp } from '../src/app.factory.js';
+import { startServerProcess } from '../test/support/server-process.js';
+import { report } from './figures.js';
+import { fillFamilies } from './household-fill.js';
+import { type Session, signIn } from './sign-in.js';
+import { percentile, table } from './stats.js';
+
+const HOUSEHOLDS = Number(process.env.BENCH_FAMILIES ?? 2000);
+const MISSES_EACH = Number(process.env.BENCH_FAMILY_MISSES ?? 300);
+const MEMBERS = Math.min(HOUSEHOLDS, Number(process.env.BENCH_FAMILY_MEMBERS ?? 200));
+const RATES = (process.env.BENCH_RATES ?? '50,100,150,200,300')
+  .split(',')
+  .map(Number)
+  .filter((r) => r > 0);
+const SECONDS = Number(process.env.BENCH_RATE_SECONDS ?? 10);
+const TARGET_P99_MS = 100;
+const TARGET_RATE = 150;
+
+/** Drawn from at random: notebook lists 50%, open 20%, log with a photo 10%, patterns 10%, PDF 5%, marks 5%. */
+const CYCLE = 'LOLSLPLOLFLOLSLPLOLM';
+const KINDS = {
+  L: 'notebook list (with and without filters)',
+  O: 'open a miss',
+  S: 'log a miss with a small photo',
+  P: 'patterns',
+  F: 'a review plan’s PDF',
+  M: 'mark a sitting',
+} as const;
+type Kind = keyof typeof KINDS;
+
+export interface Family {
+  email: string;
+  students: number[];
+  missIds: { min: number; max: number };
+  planId: number;
+  sitting: { id: number; keyItemIds: number[] };
+}
+
+interface Member extends Family, Session {}
+
+/**
+ * The database of the many-families load: the demo seeded through the app's services, then
+ * HOUSEHOLDS copies of it (fillFamilies). `env` is the server's: pass DATABASE_URL in it to
+ * build the same load on PostgreSQL (the fill's SQL is SQLite's today). Returns the first
+ * MEMBERS families, the ones the load signs in.
+ */
+export async function prepareFamilies(env: Record<string, string>): Promise<Family[]> {
+  Object.assign(process.env, env);
+  const { app } = await createApp();
+  try {
+    const sequelize = app.get<Sequelize>(getConnectionToken());
+    const started = Date.now();
+    await fillFamilies(sequelize, {
+      households: HOUSEHOLDS,
+      misses: MISSES_EACH,
+      diagnosed: MEMBERS,
+    });
+    const q = async <T>(sql: string, replacements: unknown[] = []) =>
+      (await sequelize.query(sql, { replacements }))[0] as T[];
+    const [counts] = await q<Record<string, number>>(
+      `SELECT (SELECT COUNT(*) FROM households) AS households, (SELECT COUNT(*) FROM misses) AS misses,
+       (SELECT COUNT(*) FROM photos) AS photos, (SELECT COUNT(*) FROM sittings) AS sittings,
+       (SELECT COUNT(*) FROM sitting_marks) AS marks, (SELECT COUNT(*) FROM review_plans) AS plans`,
+    );
+    console.log(
+      `\nbuilt ${HOUSEHOLDS.toLocaleString('en')} more households in ${((Date.now() - started) / 1000).toFixed(0)} s: ` +
+        Object.entries(counts!)
+          .map(([k, v]) => `${v.toLocaleString('en')} ${k}`)
+          .join(', '),
+    );
+    const families: Family[] = [];
+    for (let i = 1; i <= MEMBERS; i++) {
+      const email = `family-${i}@workback.test`;
+      const [home] = await q<{ id: number }>(
+        'SELECT m.household_id AS id FROM users u JOIN memberships m ON m.user_id = u.id WHERE u.email = ?',
+        [email],
+      );
+      const h = home!.id;
+      const students = await q<{ id: number }>(
+        'SELECT id FROM students WHERE household_id = ? ORDER BY id',
+        [h],
+      );
+      const [range] = await q<{ min: number; max: number }>(
+        'SELECT MIN(id) AS min, MAX(id) AS max FROM misses WHERE household_id = ?',
+        [h],
+      );
+      const [plan] = await q<{ id: number }>(
+        'SELECT id FROM review_plans WHERE household_id = ? LIMIT 1',
+        [h],
+      );
+      const [sitting] = await q<{ id: number; items: string }>(
+        `SELECT s.id, group_concat(k.key_item_id) AS items FROM sittings s
+         JOIN sitting_marks k ON k.sitting_id = s.id WHERE s.household_id = ?
+         GROUP BY s.id ORDER BY s.id LIMIT 1`,
+        [h],
+      );
+      families.push({
+        email,
+        students: students.map((s) => s.id),
+        missIds: range!,
+        planId: plan!.id,
+        sitting: { id: sitting!.id, keyItemIds: sitting!.items.split(',').map(Number) },
+      });
+    }
+    return families;
+  } finally {
+    await app.close();
+  }
+}
+
+/** A small photo as the web form sends it, in a multipart body with the miss's fields. */
+async function photoForm(): Promise<{ boundary: string; head: string; photo: Buffer }> {
+  const photo = await sharp({
+    create: { width: 320, height: 240, channels: 3, background: { r: 240, g: 238, b: 230 } },
+  })
+    .jpeg({ quality: 70 })
+    .toBuffer();
+  return { boundary: 'workbackbenchboundary', head: '', photo };
+}
+
+function multipart(boundary: string, fields: Record<string, string>, photo: Buffer): Buffer {
+  const parts: Buffer[] = [];
+  for (const [name, value] of Object.entries(fields)) {
+    parts.push(
+      Buffer.from(
+        `--${boundary}\r\nContent-Disposition: form-data; name="${name}"\r\n\r\n${value}\r\n`,
+      ),
+    );
+  }
+  parts.push(
+    Buffer.from(
+      `--${boundary}\r\nContent-Disposition: form-data; name="photos"; filename="page.jpg"\r\nContent-Type: image/jpeg\r\n\r\n`,
+    ),
+    photo,
+    Buffer.from(`\r\n--${boundary}--\r\n`),
+  );
+  return Buffer.concat(parts);
+}
+
+/** A small seeded generator, so every run asks for the same requests. */
+function seeded(seed: number): () => number {
+  let s = seed >>> 0;
+  return () => {
+    s = (s + 0x6d2b79f5) >>> 0;
+    let t = Math.imul(s ^ (s >>> 15), 1 | s);
+    t = (t + Math.imul(t ^ (t >>> 7), 61 | t)) ^ t;
+    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+  };
+}
+
+function mixRequests(
+  members: Member[],
+  photo: Buffer,
+  today: string,
+  onAnswer: (kind: Kind) => void,
+): Request[] {
+  const random = seeded(2026);
+  const pick = <T>(list: readonly T[]): T => list[Math.floor(random() * list.length)]!;
+  const from = new Date(Date.parse(today) - 84 * 86_400_000).toISOString().slice(0, 10);
+  const boundary = 'workbackbenchboundary';
+  const headersOf = (m: Member, extra: Record<string, string> = {}) => ({
+    cookie: m.cookie,
+    'x-csrf-token': m.token,
+    ...extra,
+  });
+  const path = (kind: Kind, m: Member): Partial<Request> => {
+    const s = pick(m.students);
+    switch (kind) {
+      case 'L':
+        return {
+          method: 'GET',
+          path: pick([
+            '/api/misses',
+            '/api/misses?page=2',
+            `/api/misses?studentId=${s}`,
+            `/api/misses?studentId=${s}&status=logged`,
+            `/api/misses?cause=fact&from=${from}`,
+            `/api/misses?rule=sub.borrow-across-zero`,
+            `/api/misses?q=zero`,
+            `/api/misses?sort=-createdAt&page=3`,
+          ]),
+        };
+      case 'O':
+        return {
+          method: 'GET',
+          path: `/api/misses/${m.missIds.min + Math.floor(random() * (m.missIds.max - m.missIds.min + 1))}`,
+        };
+      case 'S': {
+        const [problem, answer, explanation] = pick([
+          ['304 - 75', '139', 'I took from the 3 because the zero had nothing.'],
+          ['7 x 8', '54', 'I counted up by sevens and lost one.'],
+          ['58 + 67', '115', 'I forgot to carry the one.'],
+        ] as const);
+        return {
+          method: 'POST',
+          path: '/api/misses',
+          headers: headersOf(m, { 'content-type': `multipart/form-data; boundary=${boundary}` }),
+          body: multipart(
+            boundary,
+            {
+              studentId: String(s),
+              occurredOn: today,
+              problem,
+              answer,
+              explanation,
+              cause: 'step',
+            },
+            photo,
+          ) as unknown as string,
+        };
+      }
+      case 'P':
+        return { method: 'GET', path: `/api/patterns?studentId=${s}&from=${from}` };
+      case 'F':
+        return { method: 'GET', path: `/api/review-plans/${m.planId}/export.pdf` };
+      case 'M':
+        return {
+          method: 'PUT',
+          path: `/api/sittings/${m.sitting.id}/marks`,
+          headers: headersOf(m, { 'content-type': 'application/json' }),
+          body: JSON.stringify({
+            marks: m.sitting.keyItemIds.map((keyItemId) => ({ keyItemId, correct: true })),
+          }),
+        };
+    }
+  };
+  // One request entry whose kind is drawn at each send, so every connection runs the whole
+  // mix however few requests it makes; the kind rides in the connection's context.
+  return [
+    {
+      setupRequest: (r: Request, context: object) => {
+        const kind = CYCLE[Math.floor(random() * CYCLE.length)] as Kind;
+        (context as { kind?: Kind }).kind = kind;
+        const m = pick(members);
+        const req = path(kind, m);
+        return { ...r, body: undefined, ...req, headers: req.headers ?? headersOf(m) };
+      },
+      onResponse: (_status: number, _body: string, context: object) =>
+        onAnswer((context as { kind: Kind }).kind),
+    },
+  ];
+}
+
+async function runAt(base: string, rate: number, requests: () => Request[], tag: () => Kind) {
+  const byKind = new Map<Kind, { times: number[]; failed: number }>(
+    (Object.keys(KINDS) as Kind[]).map((k) => [k, { times: [], failed: 0 }]),
+  );
+  const instance = autocannon({
+    url: base,
+    connections: Math.min(100, rate),
+    overallRate: rate,
+    duration: SECONDS,
+    requests: requests(),
+  });
+  instance.on('response', (_client, status, _bytes, time) => {
+    const stats = byKind.get(tag())!;
+    stats.times.push(time);
+    if (status < 200 || status >= 300) stats.failed += 1;
+  });
+  return { result: await instance, byKind };
+}
+
+/**
+ * Many families on one machine: HOUSEHOLDS households of MISSES_EACH misses each, MEMBERS of
+ * them signed in, an open-loop mix at each offered rate of BENCH_RATES (autocannon's
+ * overallRate), each for BENCH_RATE_SECONDS.
+ */
+export async function benchManyFamilies(): Promise<void> {
+  const dataDir = mkdtempSync(path.join(tmpdir(), 'workback-bench-'));
+  const env = {
+    NODE_ENV: 'production',
+    DATA_DIR: dataDir,
+    SEED_DEMO: 'true',
+    LOG_LEVEL: 'silent',
+    SIGN_IN_LIMIT_PER_MINUTE: '100000',
+    PHOTO_DECODES_PER_MEMBER: '100000',
+    // Production refuses to start without them; nothing is mailed during the bench.
+    SMTP_URL: 'smtp://127.0.0.1:9',
+    PUBLIC_URL: 'http://localhost',
+  };
+  const today = new Date().toISOString().slice(0, 10);
+  try {
+    const families = await prepareFamilies(env);
+    const server = await startServerProcess(env);
+    try {
+      const members: Member[] = [];
+      for (const f of families) members.push({ ...f, ...(await signIn(server.url, f.email)) });
+      const { photo } = await photoForm();
+      let last: Kind = 'L';
+      const rows: Record<string, string | number>[] = [];
+      const results: {
+        rate: number;
+        result: Result;
+        byKind: Map<Kind, { times: number[]; failed: number }>;
+      }[] = [];
+      for (const rate of RATES) {
+        const { result, byKind } = await runAt(
+          server.url,
+          rate,
+          () => mixRequests(members, photo, today, (kind) => (last = kind)),
+          () => last,
+        );
+        results.push({ rate, result, byKind });
+        const failures = result.errors + result.timeouts + result.non2xx;
+        rows.push({
+          offered: rate,
+          'answered/s': Math.round(result.requests.average),
+          'p50 ms': result.latency.p50,
+          'p99 ms': result.latency.p99,
+          'errors + non-2xx': failures,
+          ...Object.fromEntries(
+            [...byKind].map(([k, s]) => [
+              `${k} p99`,
+              Math.round(
+                percentile(
+                  [...s.times].sort((a, b) => a - b),
+                  99,
+                ),
+              ),
+            ]),
+          ),
+        });
+      }
+      table(
+        `many families: ${HOUSEHOLDS.toLocaleString('en')} households × ${MISSES_EACH} misses, ${MEMBERS} signed in, ${SECONDS} s per offered rate (req/s); p99 per kind: ${Object.entries(
+          KINDS,
+        )
+          .map(([k, v]) => `${k} ${v}`)
+          .join(', ')}`,
+        rows,
+      );
+      const passes = (r: (typeof results)[number]) =>
+        r.result.latency.p99 <= TARGET_P99_MS &&
+        r.result.errors + r.result.timeouts + r.result.non2xx === 0;
+      const best = Math.max(0, ...results.filter(passes).map((r) => r.rate));
+      const at100 = results.find((r) => r.rate === 100);
+      report([
+        {
+          area: 'many families',
+          measure: `highest offered req/s with p99 ≤ ${TARGET_P99_MS} ms and 0 errors`,
+          value: best ? `${best}` : `none of ${RATES.join(', ')}`,
+          target: `≥ ${TARGET_RATE}`,
+          met: best >= TARGET_RATE,
+        },
+        {
+          area: 'many families',
+          measure: 'p99 at 100 req/s offered',
+          value: at100 ? `${at100.result.latency.p99} ms` : 'not run',
+        },
+        {
+          area: 'many families',
+          measure: 'households × misses, members signed in',
+          value: `${HOUSEHOLDS} × ${MISSES_EACH}, ${MEMBERS}`,
+        },
+      ]);
+    } finally {
+      server.child.kill('SIGTERM');
+      await server.exited;
+    }
+  } finally {
+    rmSync(dataDir, { recursive: true, force: true });
+  }
+}
