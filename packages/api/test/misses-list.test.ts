@@ -119,6 +119,27 @@ describe('GET /api/misses filters', () => {
     expect(await ids(query())).toEqual(expected);
   });
 
+  it('sends query text to SQL as bound values, quotes and $ included', async () => {
+    const e = encodeURIComponent;
+    for (const query of [
+      `rule=${e("x' OR '1'='1")}`,
+      `skill=${e("') OR 1=1 --")}`,
+      `q=${e("zz' OR 'a'='a")}`,
+      `q=${e('$rule')}`,
+      `q=${e('"; DROP TABLE misses; --')}`,
+    ]) {
+      expect(await ids(query), query).toEqual([]);
+    }
+    // A full page counts the rest with the same bound values.
+    const borrow = idsWhere((m) =>
+      m.ruleIds.some((r) => r.split('+').includes('sub.borrow-across-zero')),
+    );
+    expect(borrow.length).toBeGreaterThan(1);
+    const page = await parent.get('/api/misses?pageSize=1&rule=sub.borrow-across-zero&q=a');
+    expect(page.status, page.text).toBe(200);
+    expect(page.body.items).toHaveLength(1);
+  });
+
   it('keeps the text search in step with edits and deletions', async () => {
     const target = seeded.find((m) => m.problem.includes('jar'))!;
     const search = async (q: string) => ids(`q=${encodeURIComponent(q)}`);

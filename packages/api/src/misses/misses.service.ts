@@ -12,6 +12,7 @@ import {
   literal,
   Op,
   UniqueConstraintError,
+  type CountOptions,
   type Order,
   type Transaction,
   type WhereOptions,
@@ -31,8 +32,8 @@ import { StudentsService } from '../students/students.service.js';
 import type { CreateMissDto } from './dto/create-miss.dto.js';
 import type { ListMissesQuery } from './dto/list-misses.query.js';
 import { toPatternMiss } from './pattern-miss.js';
-import { CountCache } from './count-cache.js';
 import type { UpdateMissDto } from './dto/update-miss.dto.js';
+import { CountCache } from './count-cache.js';
 import { missScope } from './miss-scope.js';
 import { MissDiagnosis } from './models/miss-diagnosis.model.js';
 import { MissRule } from './models/miss-rule.model.js';
@@ -58,9 +59,9 @@ export class MissesService {
     @InjectModel(MissDiagnosis) private readonly diagnosisModel: typeof MissDiagnosis,
     @InjectConnection() private readonly sequelize: Sequelize,
     private readonly students: StudentsService,
-    private readonly counts: CountCache,
     private readonly photos: PhotosService,
     private readonly diagnoser: DiagnoseService,
+    private readonly counts: CountCache,
   ) {}
 
   /**
@@ -190,7 +191,7 @@ export class MissesService {
     }
     const page = query.page ?? 1;
     const pageSize = query.pageSize ?? 25;
-    const where = this.listWhere(member, query);
+    const { where, bind } = this.listWhere(member, query);
     const offset = (page - 1) * pageSize;
     // Plain rows, not model instances: a page is read, never saved.
     const found = (await this.missModel.findAll({
@@ -200,6 +201,7 @@ export class MissesService {
       limit: pageSize,
       offset,
       raw: true,
+      bind,
     })) as unknown as RawMissRow[];
     const rows = found.map(fromRawRow);
     // A short page (or an empty first one) already says how many there are; counting a big
@@ -208,7 +210,8 @@ export class MissesService {
     const total = known
       ? offset + rows.length
       : await this.counts.count(member.householdId, countKey(member, query), () =>
-          this.missModel.count({ where }),
+          // CountOptions does not declare `bind`, but count passes its options to the query.
+          this.missModel.count({ where, bind } as CountOptions<Miss>),
         );
     const thumbs = await this.photos.thumbnails(rows.map((r) => r.id));
     const items = rows.map((m) => ({
@@ -514,19 +517,30 @@ export class MissesService {
     );
   }
 
-  private listWhere(member: MemberContext, q: ListMissesQuery): WhereOptions<Miss> {
+  /**
+   * The list's conditions. Text from the query goes to SQL as bound parameters (`$rule`, …),
+   * never written into the SQL, so pass `bind` with `where` to every query that uses it.
+   */
+  private listWhere(
+    member: MemberContext,
+    q: ListMissesQuery,
+  ): { where: WhereOptions<Miss>; bind: Record<string, string | number> } {
     const and: WhereOptions<Miss>[] = [missScope(member)];
     if (q.studentId !== undefined) and.push({ studentId: q.studentId });
     if (q.cause) and.push({ cause: q.cause });
     if (q.status) and.push({ status: q.status });
     if (q.from) and.push({ occurredOn: { [Op.gte]: q.from } });
     if (q.to) and.push({ occurredOn: { [Op.lte]: q.to } });
-    const esc = (v: string | number) => this.sequelize.escape(v);
+    const bind: Record<string, string | number> = {};
+    const param = (name: string, value: string | number) => {
+      bind[name] = value;
+      return `$${name}`;
+    };
     if (q.rule) {
       and.push({
         id: {
           [Op.in]: literal(
-            `(SELECT miss_id FROM miss_rules WHERE household_id = ${esc(member.householdId)} AND rule_id = ${esc(q.rule)})`,
+            `(SELECT miss_id FROM miss_rules WHERE household_id = ${param('household', member.householdId)} AND rule_id = ${param('rule', q.rule)})`,
           ),
         },
       });
@@ -539,13 +553,15 @@ export class MissesService {
         : `json_each("Miss"."skills") AS skill`;
       and.push(
         literal(
-          `EXISTS (SELECT 1 FROM ${elements} WHERE skill.value = ${esc(q.skill)})`,
+          `EXISTS (SELECT 1 FROM ${elements} WHERE skill.value = ${param('skill', q.skill)})`,
         ) as unknown as WhereOptions<Miss>,
       );
     }
     const text = q.q?.trim();
-    if (text) and.push(postgres ? likeCondition('ILIKE', text, esc) : textCondition(text, esc));
-    return { [Op.and]: and };
+    if (text) {
+      and.push(postgres ? likeCondition('ILIKE', text, param) : textCondition(text, param));
+    }
+    return { where: { [Op.and]: and }, bind };
   }
 }
 
@@ -553,30 +569,28 @@ export class MissesService {
  * Problem or explanation containing `text`, any case. From three characters on, the trigram
  * index (migration 0006) finds the rows; shorter text has no trigram and scans the household's.
  */
-function textCondition(text: string, esc: (v: string) => string): WhereOptions<Miss> {
+type Param = (name: string, value: string) => string;
+
+function textCondition(text: string, param: Param): WhereOptions<Miss> {
   if ([...text].length >= 3) {
     const phrase = `"${text.replace(/"/g, '""')}"`;
     return {
       id: {
         [Op.in]: literal(
-          `(SELECT rowid FROM misses_search WHERE misses_search MATCH ${esc(phrase)})`,
+          `(SELECT rowid FROM misses_search WHERE misses_search MATCH ${param('phrase', phrase)})`,
         ),
       },
     };
   }
-  return likeCondition('LIKE', text, esc);
+  return likeCondition('LIKE', text, param);
 }
 
 /**
  * Problem or explanation containing `text` by (I)LIKE: SQLite's LIKE ignores ASCII case, and on
  * PostgreSQL ILIKE uses the pg_trgm indexes of migration 0006 from three characters on.
  */
-function likeCondition(
-  operator: 'LIKE' | 'ILIKE',
-  text: string,
-  esc: (v: string) => string,
-): WhereOptions<Miss> {
-  const pattern = esc(`%${text.replace(/[\\%_]/g, (c) => `\\${c}`)}%`);
+function likeCondition(operator: 'LIKE' | 'ILIKE', text: string, param: Param): WhereOptions<Miss> {
+  const pattern = param('pattern', `%${text.replace(/[\\%_]/g, (c) => `\\${c}`)}%`);
   return literal(
     `("Miss"."problem" ${operator} ${pattern} ESCAPE '\\' OR "Miss"."explanation" ${operator} ${pattern} ESCAPE '\\')`,
   ) as unknown as WhereOptions<Miss>;
