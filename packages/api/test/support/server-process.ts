@@ -17,7 +17,15 @@ export async function startServerProcess(env: Record<string, string>): Promise<S
     ['--conditions=workback-source', '--import', '@swc-node/register/esm-register', 'src/main.ts'],
     {
       cwd: apiRoot,
-      env: { ...process.env, NODE_ENV: 'test', PORT: '0', HOST: '127.0.0.1', ...env },
+      // DATABASE_URL only when the test gives one: process.env may hold the last test app's.
+      env: {
+        ...process.env,
+        NODE_ENV: 'test',
+        PORT: '0',
+        HOST: '127.0.0.1',
+        DATABASE_URL: '',
+        ...env,
+      },
       stdio: ['ignore', 'pipe', 'pipe'],
     },
   );
