@@ -174,6 +174,20 @@ describe('taking a check-up', () => {
       .body as { diagnosis: { rules: { id: string }[] } };
     expect(miss.diagnosis.rules[0]!.id).toBe('sub.borrow-across-zero');
 
+    // The patterns card of those rules now says what the check-up found.
+    const patterns = (await owner.get(`/api/patterns?studentId=${wren}`).expect(200)).body as {
+      difficulties: {
+        ruleIds: string[];
+        checkUp: { id: number; status: string; fits: string | null } | null;
+      }[];
+    };
+    const card = patterns.difficulties.find((d) => d.ruleIds.includes('sub.borrow-across-zero'));
+    expect(card?.checkUp).toMatchObject({
+      id: checkUp.id,
+      status: 'confirmed',
+      fits: 'sub.borrow-across-zero',
+    });
+
     // Taken once: a second set of answers is refused, and nothing changes.
     const again = await owner.post(`/api/check-ups/${checkUp.id}/answers`, {
       startedAt: '2026-11-21T16:45',

@@ -46,6 +46,30 @@ export class CheckUpsService {
     return { items, total: items.length };
   }
 
+  /**
+   * For patterns: what the student's latest check-up on any of these rules says, or null.
+   * `(await latestOn(member, 1))(['sub.borrow-from-zero'])` → `{ id: 4, status: 'confirmed', fits: 'sub.borrow-from-zero', … }`.
+   */
+  async latestOn(member: MemberContext, studentId: number) {
+    const rows = await this.checkUpModel.findAll({
+      where: { [Op.and]: [this.scope(member), { studentId }] },
+      order: [['id', 'DESC']],
+    });
+    return (ruleIds: readonly string[]) => {
+      const row = rows.find((r) => r.sheet.hypotheses.some((h) => ruleIds.includes(h)));
+      if (row === undefined) return null;
+      const json = this.toJson(row);
+      return {
+        id: json.id,
+        createdAt: json.createdAt,
+        status: json.status,
+        fits: json.reading?.confirmed ?? null,
+        ruledOut: json.reading?.ruledOut ?? [],
+        sentence: json.reading?.sentence ?? null,
+      };
+    };
+  }
+
   async findOne(member: MemberContext, id: number) {
     return this.toJson(await this.findModel(member, id));
   }

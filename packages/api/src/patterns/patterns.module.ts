@@ -1,5 +1,6 @@
 import { Module } from '@nestjs/common';
 import { SequelizeModule } from '@nestjs/sequelize';
+import { CheckUpsModule } from '../check-ups/check-ups.module.js';
 import { MissesModule } from '../misses/misses.module.js';
 import { ReviewPlansModule } from '../review-plans/review-plans.module.js';
 import { SittingsModule } from '../sittings/sittings.module.js';
@@ -15,6 +16,7 @@ import { PatternsService } from './patterns.service.js';
     MissesModule,
     SittingsModule,
     ReviewPlansModule,
+    CheckUpsModule,
   ],
   controllers: [PatternsController],
   providers: [PatternsService],

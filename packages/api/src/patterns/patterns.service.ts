@@ -2,6 +2,7 @@ import { Injectable, NotFoundException } from '@nestjs/common';
 import { InjectModel } from '@nestjs/sequelize';
 import { computePatterns } from '@workback/core';
 import { Op } from 'sequelize';
+import { CheckUpsService } from '../check-ups/check-ups.service.js';
 import type { MemberContext } from '../common/member-context.js';
 import { fieldsError } from '../common/pipes/validation.pipe.js';
 import { MissesService } from '../misses/misses.service.js';
@@ -22,6 +23,7 @@ export class PatternsService {
     private readonly misses: MissesService,
     private readonly sittings: SittingsService,
     private readonly plans: ReviewPlansService,
+    private readonly checkUps: CheckUpsService,
   ) {}
 
   /** One student's patterns over a day range, the maths done by `@workback/core`. */
@@ -30,11 +32,12 @@ export class PatternsService {
       throw fieldsError({ to: 'to must be on or after from' });
     const student = await this.students.findModel(member, query.studentId);
     const range = { from: query.from, to: query.to };
-    const [misses, rightItems, plans, notes] = await Promise.all([
+    const [misses, rightItems, plans, notes, checkUpOn] = await Promise.all([
       this.misses.patternMisses(member, { studentId: student.id, ...range }),
       this.sittings.rightItemsOf(member, student.id, range),
       this.plans.coverage(member, student.id),
       this.notesOf(member, student.id),
+      this.checkUps.latestOn(member, student.id),
     ]);
     const patterns = computePatterns(misses, {
       rightItems,
@@ -56,6 +59,8 @@ export class PatternsService {
       difficulties: patterns.difficulties.map((d) => ({
         ...d,
         notes: notes.filter((n) => d.patternKeys.includes(n.patternKey)),
+        // What the latest check-up on its rules said (made, taken, settled or still open).
+        checkUp: d.ruleIds.length > 0 ? checkUpOn(d.ruleIds) : null,
       })),
       notes,
       caution:

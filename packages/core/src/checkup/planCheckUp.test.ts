@@ -101,39 +101,43 @@ describe('planCheckUp', () => {
   });
 
   describe.each(OPERATIONS)('every pair of %s rules', (operation) => {
-    it.each(pairsOf(operation))('%s and %s are told apart at least twice', (a, b) => {
-      for (const seed of [1, 2]) {
-        const plan = planCheckUp([a, b], { seed });
-        expect(plan.ok, `${a} ${b} seed ${seed}`).toBe(true);
-        if (!plan.ok) return;
-        expect(plan.problems.length).toBeGreaterThanOrEqual(4);
-        expect(plan.problems.length).toBeLessThanOrEqual(6);
-        const h = plan.hypotheses;
-        for (let i = 0; i < h.length; i += 1)
-          for (let j = i + 1; j < h.length; j += 1)
-            expect(
-              differences(plan.problems, h[i] as string, h[j] as string),
-              `${h[i]} vs ${h[j]} (seed ${seed})`,
-            ).toBeGreaterThanOrEqual(2);
-        for (const p of plan.problems) {
-          const parsed = parseProblem(p.problem);
-          expect(parsed.ok).toBe(true);
-          if (!parsed.ok) return;
-          for (const id of [a, b]) {
-            const answer = p.answers[id] as string;
-            if (answer === p.answers[RIGHT_WORKING]) continue;
-            // The sheet's answer is the rule's own method, and the notebook names that rule.
-            expect(applyRule(id, parsed.problem)).toContain(answer);
-            const d = diagnose(p.problem, answer);
-            if (!d.ok) throw new Error(d.error.message);
-            const first = d.rules[0]?.id as string;
-            expect(p.answers[first], `${p.problem} → ${answer}`).toBe(answer);
-            if (differences([p], a, b) === 1 && p.answers[a] !== p.answers[b])
-              expect(first === a || first === b).toBe(true);
+    it.each(pairsOf(operation))(
+      '%s and %s are told apart at least twice',
+      (a, b) => {
+        for (const seed of [1, 2]) {
+          const plan = planCheckUp([a, b], { seed });
+          expect(plan.ok, `${a} ${b} seed ${seed}`).toBe(true);
+          if (!plan.ok) return;
+          expect(plan.problems.length).toBeGreaterThanOrEqual(4);
+          expect(plan.problems.length).toBeLessThanOrEqual(6);
+          const h = plan.hypotheses;
+          for (let i = 0; i < h.length; i += 1)
+            for (let j = i + 1; j < h.length; j += 1)
+              expect(
+                differences(plan.problems, h[i] as string, h[j] as string),
+                `${h[i]} vs ${h[j]} (seed ${seed})`,
+              ).toBeGreaterThanOrEqual(2);
+          for (const p of plan.problems) {
+            const parsed = parseProblem(p.problem);
+            expect(parsed.ok).toBe(true);
+            if (!parsed.ok) return;
+            for (const id of [a, b]) {
+              const answer = p.answers[id] as string;
+              if (answer === p.answers[RIGHT_WORKING]) continue;
+              // The sheet's answer is the rule's own method, and the notebook names that rule.
+              expect(applyRule(id, parsed.problem)).toContain(answer);
+              const d = diagnose(p.problem, answer);
+              if (!d.ok) throw new Error(d.error.message);
+              const first = d.rules[0]?.id as string;
+              expect(p.answers[first], `${p.problem} → ${answer}`).toBe(answer);
+              if (differences([p], a, b) === 1 && p.answers[a] !== p.answers[b])
+                expect(first === a || first === b).toBe(true);
+            }
           }
         }
-      }
-    });
+      },
+      30_000,
+    );
   });
 });
 
@@ -184,9 +188,13 @@ describe('readCheckUp', () => {
 describe('a simulated child is named after one sheet', () => {
   // 1,000 seeded trials per operation; each child follows one hypothesis and slips on any one
   // problem with probability 0.05. The figures are printed by `npm run bench -w packages/core`.
-  it.each(OPERATIONS)('%s: in at least 95% of 1,000 trials', (operation) => {
-    const result = identificationRate(operation, { trials: 1000, slipRate: 0.05, seed: 2026 });
-    expect(result.trials).toBe(1000);
-    expect(result.rate).toBeGreaterThanOrEqual(0.95);
-  });
+  it.each(OPERATIONS)(
+    '%s: in at least 95% of 1,000 trials',
+    (operation) => {
+      const result = identificationRate(operation, { trials: 1000, slipRate: 0.05, seed: 2026 });
+      expect(result.trials).toBe(1000);
+      expect(result.rate).toBeGreaterThanOrEqual(0.95);
+    },
+    60_000,
+  );
 });

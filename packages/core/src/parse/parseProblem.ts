@@ -102,7 +102,7 @@ function tokenize(text: string): Token[] | ReadError {
       const raw = (m?.[0] ?? ch).replace(/,+$/, '');
       if (raw.includes('.')) {
         return {
-          message: `${quoteInput(raw)} is a decimal; Workback checks problems with whole numbers and fractions.`,
+          message: `${quoteInput(raw)} is a decimal; Workback checks decimals in a +, − or × of two numbers (4.5 + 2.25) and comparisons (0.45 ? 0.5).`,
           at: i,
         };
       }
