@@ -109,6 +109,7 @@ export type {
 // Word problems: the child's number sentences, line by line
 export { checkLines } from './lines/checkLines.js';
 export type { CheckedLine, CheckedLines } from './lines/checkLines.js';
+export { InterviewStage, INTERVIEW_STAGES } from './lines/stages.js';
 
 // Patterns across a student's misses
 export { computePatterns } from './patterns/computePatterns.js';

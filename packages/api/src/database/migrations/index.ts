@@ -9,6 +9,7 @@ import * as m0008 from './0008-miss-idempotency-keys.js';
 import * as m0009 from './0009-email-verification.js';
 import * as m0010 from './0010-shared-state.js';
 import * as m0011 from './0011-check-ups.js';
+import * as m0012 from './0012-word-problem-lines.js';
 
 /** Every migration in order; listed explicitly so src and dist behave alike. */
 export const MIGRATIONS = [
@@ -23,4 +24,5 @@ export const MIGRATIONS = [
   m0009,
   m0010,
   m0011,
+  m0012,
 ];
