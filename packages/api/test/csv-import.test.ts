@@ -152,6 +152,20 @@ describe('CSV import', () => {
     expect(await keyCount()).toBe(before);
   });
 
+  it('refuses control characters in a cell by line and field, importing nothing', async () => {
+    const before = await keyCount();
+    const res = await upload(
+      owner,
+      `${HEADER}\n1,58 + 67,125,,,\n2,"81\u001b - 38",43,,,\n3,27 x 4,10\u00078,,,\n`,
+    );
+    expect(res.status, res.text).toBe(400);
+    expect(res.body.fields).toMatchObject({
+      'line 3.prompt': expect.stringMatching(/control characters/),
+      'line 4.answer': expect.stringMatching(/control characters/),
+    });
+    expect(await keyCount()).toBe(before);
+  });
+
   it('names the line of a quote left open', async () => {
     const res = await upload(owner, `${HEADER}\n1,58 + 67,125,,,\n2,"81 - 38,43,,,\n`);
     expect(res.status).toBe(400);
