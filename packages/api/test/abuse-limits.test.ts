@@ -18,12 +18,7 @@ beforeAll(async () => {
 afterAll(() => t.close());
 
 function sessionRows(): Promise<number> {
-  const { db } = t.app.get(SessionStoreService);
-  return new Promise((resolve, reject) =>
-    db.get<{ n: number }>('SELECT COUNT(*) AS n FROM sessions', (err, row) =>
-      err ? reject(err) : resolve(row!.n),
-    ),
-  );
+  return t.app.get(SessionStoreService).count();
 }
 
 describe('invitations', () => {
