@@ -37,6 +37,24 @@ async function tableNames(page: Page) {
   return page.locator('.wb-table .wb-cell-strong').allInnerTexts();
 }
 
+/** The path of the address-confirmation link mailed to `email`, from the fake server's outbox. */
+async function confirmationPath(email: string): Promise<string> {
+  let link: string | undefined;
+  await expect
+    .poll(async () => {
+      const res = await fetch(`${baseUrl}/api/dev/outbox`);
+      const { items } = (await res.json()) as {
+        items: { to: string; subject: string; links: string[] }[];
+      };
+      link = items
+        .find((m) => m.to.includes(email) && /Confirm your e-mail/.test(m.subject))
+        ?.links.find((l) => l.includes('/verify-email/'));
+      return link !== undefined;
+    })
+    .toBe(true);
+  return new URL(link!).pathname;
+}
+
 function expectCleanRun(watched: Watched) {
   expect(watched.foreignRequests, 'requests to other sites').toEqual([]);
   expect(watched.cspViolations, 'CSP violations').toEqual([]);
@@ -77,6 +95,17 @@ describe('a new household', () => {
     await page.getByText('No students yet. Add your first child to start a notebook.').waitFor();
     expect(await page.getByText('Birch Lane Learners').first().isVisible()).toBe(true);
     await checkPage(page, 'students-empty');
+
+    // A new account is asked to confirm its address; the mailed link does it.
+    expect(await page.getByText('Please confirm your e-mail address').isVisible()).toBe(true);
+    await page.goto(await confirmationPath(email));
+    await page.getByRole('button', { name: 'Confirm my address' }).click();
+    await page.getByText(`Thank you: ${email} is confirmed.`).waitFor();
+    await checkPage(page, 'verify-email');
+    await page.getByRole('link', { name: 'Open Workback' }).click();
+    await page.waitForURL('**/students');
+    await page.getByText('No students yet. Add your first child to start a notebook.').waitFor();
+    expect(await page.getByText('Please confirm your e-mail address').count()).toBe(0);
 
     await page.getByRole('button', { name: 'Add a student' }).click();
     const dialog = page.getByRole('dialog');
