@@ -1,6 +1,8 @@
+import { readFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import path from 'node:path';
 import PDFDocument from 'pdfkit';
+import { woffToSfnt } from './woff.js';
 
 const require = createRequire(import.meta.url);
 
@@ -10,8 +12,12 @@ const require = createRequire(import.meta.url);
  * on the empty space glyph: every face is read from WOFF, and mono text is drawn run by
  * run on a fixed grid (`monoText`), never asking the font for a space.
  */
-function fontFile(pkg: string, file: string): string {
-  return path.join(path.dirname(require.resolve(`${pkg}/LICENSE`)), 'files', file);
+function fontFile(pkg: string, file: string): Buffer {
+  const woff = readFileSync(
+    path.join(path.dirname(require.resolve(`${pkg}/LICENSE`)), 'files', file),
+  );
+  // Unwrapped once per process, not inflated again by every document (see woff.ts).
+  return woffToSfnt(woff);
 }
 
 const FONTS = {
