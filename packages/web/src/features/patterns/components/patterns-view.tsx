@@ -1,6 +1,6 @@
 import { Callout } from '@blueprintjs/core';
 import { HeatGridIcon, InfoSignIcon } from '@blueprintjs/icons';
-import { useState, type ReactNode } from 'react';
+import { useEffect, useState, type ReactNode } from 'react';
 
 import { EmptyState, ErrorState, LoadingState } from '../../../components/states';
 import { usePatterns } from '../api/get-patterns';
@@ -37,11 +37,27 @@ function Section({
   );
 }
 
-/** A section folded on a phone (details on demand) and open on a wide screen. */
+const WIDE_QUERY = '(min-width: 720px)';
+
+/**
+ * A section folded on a phone (details on demand) and open on a wide screen; it follows the
+ * width when the window crosses it, and otherwise keeps what the reader chose.
+ */
 function MoreSection({ id, title, children }: { id: string; title: string; children: ReactNode }) {
-  const [wide] = useState(() => window.matchMedia?.('(min-width: 720px)').matches ?? true);
+  const [open, setOpen] = useState(() => window.matchMedia?.(WIDE_QUERY).matches ?? true);
+  useEffect(() => {
+    const query = window.matchMedia?.(WIDE_QUERY);
+    if (!query) return;
+    const follow = () => setOpen(query.matches);
+    query.addEventListener('change', follow);
+    return () => query.removeEventListener('change', follow);
+  }, []);
   return (
-    <details className="wb-pattern-more" open={wide}>
+    <details
+      className="wb-pattern-more"
+      open={open}
+      onToggle={(e) => setOpen(e.currentTarget.open)}
+    >
       <summary>
         <h2 id={id} className="wb-section-title wb-more-title">
           {title}
