@@ -11,6 +11,7 @@ export const PG_MISSING = [
   'Start a throwaway cluster first (CI does this):',
   '  eval "$(scripts/pg-cluster.sh start)"',
   'and stop it afterwards with: scripts/pg-cluster.sh stop',
+  'To run API test files on SQLite only, name the project: npx vitest run --project api <files>',
 ].join('\n');
 
 export function serverUrl(): string {
