@@ -2,7 +2,11 @@ import type { QueryClient } from '@tanstack/react-query';
 import { useCallback } from 'react';
 import { useSearchParams } from 'react-router-dom';
 
+import { ruleName } from '@workback/core';
+
 import { NoHouseholdCallout, seesChildren } from '../../components/no-household';
+import { CheckUpOffer } from '../../features/check-ups/components/check-up-offer';
+import type { CardActions } from '../../features/patterns/components/difficulty-cards';
 import { EmptyState, ErrorState, LoadingState } from '../../components/states';
 import type { PatternFilterValues } from '../../features/patterns/components/pattern-filters';
 import { PatternsView } from '../../features/patterns/components/patterns-view';
@@ -68,8 +72,28 @@ function PatternsPage() {
     from: params.get('from') ?? '',
     to: params.get('to') ?? '',
   };
-  return <PatternsView students={list} filters={filters} onChange={onChange} />;
+  return (
+    <PatternsView
+      students={list}
+      filters={filters}
+      onChange={onChange}
+      cardActions={checkUpOffer}
+    />
+  );
 }
+
+/** A method's card offers a check-up until one settles it. */
+const checkUpOffer: CardActions = (card, studentId) =>
+  card.kind === 'method' ? (
+    <CheckUpOffer
+      studentId={studentId}
+      ruleIds={card.ruleIds.filter((id) => !id.endsWith('.fact')).slice(0, 4)}
+      settled={card.status === 'finding'}
+      problems={card.evidence.map((e) => e.problem)}
+      latest={card.checkUp}
+      ruleName={ruleName}
+    />
+  ) : null;
 
 export default function PatternsRoute() {
   const me = useSignedIn();

@@ -10,8 +10,19 @@ export type PatternNote = {
 };
 
 /** `GET /patterns`: the engine's patterns of one student over a day range, with notes. */
+/** What the latest check-up on a difficulty's rules said (`GET /patterns` adds it to each card). */
+export type CheckUpSummary = {
+  id: number;
+  createdAt: string;
+  status: 'not taken' | 'confirmed' | 'open';
+  /** The working the answers fit when confirmed (`'correct'` for the usual working). */
+  fits: string | null;
+  ruledOut: string[];
+  sentence: string | null;
+};
+
 export type PatternsResult = Omit<Patterns, 'recurring' | 'difficulties'> & {
-  difficulties: (Difficulty & { notes: PatternNote[] })[];
+  difficulties: (Difficulty & { notes: PatternNote[]; checkUp: CheckUpSummary | null })[];
   studentId: number;
   from: string | null;
   to: string | null;

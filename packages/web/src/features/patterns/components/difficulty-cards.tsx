@@ -1,13 +1,17 @@
 import { Card, Tag } from '@blueprintjs/core';
 import type { Difficulty } from '@workback/core';
+import type { ReactNode } from 'react';
 import { Link } from 'react-router-dom';
 
 import { paths } from '../../../config/paths';
 import { notebookHref } from '../notebook-link';
-import { recurringSentence, shortDay, type PatternNote, type PatternsResult } from '../types';
+import { recurringSentence, shortDay, type PatternsResult } from '../types';
 import { PatternNotes } from './pattern-notes';
 
-type Card = Difficulty & { notes: PatternNote[] };
+type Card = PatternsResult['difficulties'][number];
+
+/** What the app offers on a card (a check-up of a method not yet settled). */
+export type CardActions = (card: Card, studentId: number) => ReactNode;
 
 const STATUS: Readonly<Record<Difficulty['status'], { tag: string; className: string }>> = {
   finding: { tag: 'Finding', className: 'wb-finding-tag' },
@@ -36,10 +40,12 @@ function DifficultyCard({
   card,
   patterns,
   name,
+  actions,
 }: {
   card: Card;
   patterns: PatternsResult;
   name: string;
+  actions?: CardActions | undefined;
 }) {
   const status = STATUS[card.status];
   const href = allHref(card, patterns);
@@ -133,6 +139,7 @@ function DifficultyCard({
           </ul>
         </details>
       ) : null}
+      {actions?.(card, patterns.studentId)}
       <PatternNotes
         studentId={patterns.studentId}
         patternKey={card.patternKeys[0] ?? card.key}
@@ -150,9 +157,11 @@ function DifficultyCard({
 export function DifficultyCards({
   patterns,
   studentName,
+  actions,
 }: {
   patterns: PatternsResult;
   studentName: string;
+  actions?: CardActions | undefined;
 }) {
   const main = patterns.difficulties.filter((d) => d.status !== 'possible');
   const possible = patterns.difficulties.filter((d) => d.status === 'possible');
@@ -174,7 +183,7 @@ export function DifficultyCards({
         <ul className="wb-cards wb-difficulties" aria-label="Difficulties">
           {main.map((d) => (
             <li key={d.key}>
-              <DifficultyCard card={d} patterns={patterns} name={studentName} />
+              <DifficultyCard card={d} patterns={patterns} name={studentName} actions={actions} />
             </li>
           ))}
         </ul>
@@ -188,7 +197,7 @@ export function DifficultyCards({
           <ul className="wb-cards wb-difficulties" aria-label="Possible difficulties">
             {possible.map((d) => (
               <li key={d.key}>
-                <DifficultyCard card={d} patterns={patterns} name={studentName} />
+                <DifficultyCard card={d} patterns={patterns} name={studentName} actions={actions} />
               </li>
             ))}
           </ul>

@@ -8,7 +8,7 @@ import { rangeOf } from '../period';
 import type { StudentRef } from '../types';
 import { CauseMixChart } from './cause-mix-chart';
 import { FactGrid } from './fact-grid';
-import { DifficultyCards } from './difficulty-cards';
+import { DifficultyCards, type CardActions } from './difficulty-cards';
 import { PatternFilters, type PatternFilterValues } from './pattern-filters';
 import { SkillCounts } from './skill-counts';
 import { TopRulesChart } from './top-rules-chart';
@@ -76,10 +76,13 @@ export function PatternsView({
   students,
   filters,
   onChange,
+  cardActions,
 }: {
   students: readonly StudentRef[];
   filters: PatternFilterValues;
   onChange: (changes: Partial<PatternFilterValues>) => void;
+  /** What the app offers on each difficulty card (a check-up). */
+  cardActions?: CardActions;
 }) {
   const range = rangeOf(filters.period, filters);
   const patterns = usePatterns({ studentId: filters.studentId, ...range });
@@ -117,7 +120,7 @@ export function PatternsView({
           title="What to look at first"
           intro={`One card per difficulty. A card is a finding when one known wrong method reproduces 2 or more of ${name}’s answers exactly and none of the answers ${name} got right goes against it; it keeps coming back when it was seen 3 or more times within 30 days.`}
         >
-          <DifficultyCards patterns={p} studentName={name} />
+          <DifficultyCards patterns={p} studentName={name} actions={cardActions} />
         </Section>
         <MoreSection id="patterns-facts" title="Fact gaps">
           <p className="wb-muted wb-section-intro">
