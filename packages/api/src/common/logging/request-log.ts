@@ -40,9 +40,12 @@ export function createLogger(
       : undefined,
   };
   if (pretty) return pino(options);
-  // Written asynchronously: under load lines are batched into fewer writes instead of one
-  // blocking write each; pino flushes what is left when the process exits.
-  return pino(options, destination ?? pino.destination({ dest: 1, sync: false }));
+  if (destination) return pino(options, destination);
+  // Written asynchronously in 4 KiB batches instead of one blocking write per line, flushed at
+  // least every second so a quiet server's lines still show; pino flushes the rest on exit.
+  const stdout = pino.destination({ dest: 1, sync: false, minLength: 4096 });
+  setInterval(() => stdout.flush(), 1000).unref();
+  return pino(options, stdout);
 }
 
 /** The route a request matched ('/api/misses/:id'), not its URL: ids and search words stay out. */
