@@ -5,7 +5,6 @@ import '@fontsource/ibm-plex-mono/400.css';
 import 'normalize.css';
 import '@blueprintjs/core/lib/css/blueprint.css';
 import '@blueprintjs/icons/lib/css/blueprint-icons.css';
-import '@blueprintjs/table/lib/css/table.css';
 import './styles/theme.css';
 import './styles/records.css';
 
@@ -13,6 +12,7 @@ import { StrictMode } from 'react';
 import { createRoot } from 'react-dom/client';
 
 import { App } from './app/app';
+import './lib/icons';
 import { registerServiceWorker } from './lib/service-worker';
 
 const root = document.getElementById('root');

@@ -8,7 +8,7 @@ import {
   type RouteObject,
 } from 'react-router-dom';
 
-import { LoadingState } from '../components/states';
+import { PageSkeleton } from '../components/page-skeleton';
 import { paths } from '../config/paths';
 import { protectedLoader, ProtectedRoute } from './routes/protected';
 import { RouteError } from './routes/route-error';
@@ -30,7 +30,7 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
   return [
     {
       errorElement: <RouteError />,
-      hydrateFallbackElement: <LoadingState label="Opening Workback…" />,
+      hydrateFallbackElement: <PageSkeleton />,
       children: [
         {
           path: paths.signIn.path,

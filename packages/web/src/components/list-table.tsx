@@ -1,18 +1,23 @@
 import { Cell, Column, SelectionModes, Table2, type ColumnProps } from '@blueprintjs/table';
+import { ResizeSensor } from '@blueprintjs/table/lib/esm/interactions/resizeSensor';
+import '@blueprintjs/table/lib/css/table.css';
 import type { DependencyList, ReactElement, ReactNode } from 'react';
 
-import { useMediaQuery } from '../lib/use-media-query';
+export { TABLE_FITS_QUERY, useTableFits } from './table-fits';
 
 const HEADER_HEIGHT = 30;
 /** One pixel of border on each side. */
 const BORDERS = 2;
 
-/** Below this width most lists' tables would scroll sideways, so they show cards instead. */
-export const TABLE_FITS_QUERY = '(min-width: 1041px)';
-
-/** `useTableFits()` → `true` on a wide screen (table), `false` on a phone (cards). */
-export function useTableFits(query: string = TABLE_FITS_QUERY): boolean {
-  return useMediaQuery(query);
+// The table watches its own size with an old polyfill that writes style="" attributes through
+// innerHTML, which the strict CSP refuses (four style-src-attr reports per table). Browsers have
+// ResizeObserver for this; the table only needs its callback when its size changes.
+if (typeof ResizeObserver !== 'undefined') {
+  ResizeSensor.attach = (element: HTMLElement, callback: () => void) => {
+    const observer = new ResizeObserver(() => callback());
+    observer.observe(element);
+    return () => observer.disconnect();
+  };
 }
 
 /**

@@ -1,9 +1,9 @@
 import { Button, Classes } from '@blueprintjs/core';
 import { ChevronLeftIcon, ChevronRightIcon, PlusIcon, ManualIcon } from '@blueprintjs/icons';
-import { useCallback, type ReactNode } from 'react';
+import { lazy, Suspense, useCallback, type ReactNode } from 'react';
 import { Link } from 'react-router-dom';
 
-import { useTableFits } from '../../../components/list-table';
+import { useTableFits } from '../../../components/table-fits';
 import { EmptyState, ErrorState, LoadingState } from '../../../components/states';
 import { paths } from '../../../config/paths';
 import { useMisses } from '../api/get-misses';
@@ -11,10 +11,13 @@ import { useNotebookFilters } from '../hooks/use-notebook-filters';
 import type { StudentOption } from '../types';
 import { NotebookCards } from './notebook-cards';
 import { NotebookFilters } from './notebook-filters';
-import { NotebookTable } from './notebook-table';
 import '../misses.css';
 
 const LINK_BUTTON = `${Classes.BUTTON} ${Classes.INTENT_PRIMARY} wb-link-button`;
+// Wide screens only: a phone shows cards and never downloads the table component.
+const NotebookTable = lazy(() =>
+  import('./notebook-table').then((m) => ({ default: m.NotebookTable })),
+);
 
 /** Every miss of the household, filtered and sorted on the server, the view kept in the URL. */
 export function Notebook({
@@ -85,7 +88,9 @@ export function Notebook({
           {misses.isFetching ? ' · updating…' : ''}
         </p>
         {tableFits ? (
-          <NotebookTable misses={items} studentName={studentName} />
+          <Suspense fallback={<LoadingState label="Loading the notebook…" />}>
+            <NotebookTable misses={items} studentName={studentName} />
+          </Suspense>
         ) : (
           <NotebookCards misses={items} studentName={studentName} />
         )}

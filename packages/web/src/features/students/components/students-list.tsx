@@ -1,15 +1,19 @@
 import { Button, Intent } from '@blueprintjs/core';
 import { PeopleIcon, PlusIcon } from '@blueprintjs/icons';
-import { useMemo, useState } from 'react';
+import { lazy, Suspense, useMemo, useState } from 'react';
 
-import { useTableFits } from '../../../components/list-table';
+import { useTableFits } from '../../../components/table-fits';
 import { EmptyState, ErrorState, LoadingState } from '../../../components/states';
 import { useStudents } from '../api/get-students';
 import type { Student } from '../types';
 import { DeleteStudentAlert } from './delete-student-alert';
 import { StudentCards } from './student-cards';
 import { StudentDialog } from './student-dialog';
-import { StudentsTable } from './students-table';
+
+// Wide screens only: a phone shows cards and never downloads the table component.
+const StudentsTable = lazy(() =>
+  import('./students-table').then((m) => ({ default: m.StudentsTable })),
+);
 
 type Editing = { open: boolean; student: Student | null };
 
@@ -68,7 +72,11 @@ export function StudentsList({ canEdit }: { canEdit: boolean }) {
   } else if (!tableFits) {
     body = <StudentCards students={students.data.items} actions={actions} />;
   } else {
-    body = <StudentsTable students={students.data.items} actions={actions} />;
+    body = (
+      <Suspense fallback={<LoadingState label="Loading students…" />}>
+        <StudentsTable students={students.data.items} actions={actions} />
+      </Suspense>
+    );
   }
 
   const hasStudents = students.isSuccess && students.data.items.length > 0;
