@@ -107,6 +107,19 @@ describe('api client', () => {
     });
   });
 
+  it('keeps the sentence of a 429 that says which limit was met', async () => {
+    const sentence =
+      'This household has sent 10 invitations in the last hour: please wait a while before sending more';
+    mockApi({
+      ...CSRF,
+      'POST /invitations': json(429, { statusCode: 429, message: sentence }),
+    });
+    await expect(api.post('/invitations', {})).rejects.toMatchObject({
+      status: 429,
+      message: sentence,
+    });
+  });
+
   it('copes with an error body that is not JSON, and with no network', async () => {
     const { fetchMock } = mockApi({});
     fetchMock.mockResolvedValueOnce(new Response('<html>oops</html>', { status: 502 }));

@@ -67,7 +67,9 @@ async function toApiError(response: Response): Promise<ApiError> {
       }
     }
   }
-  if (response.status === 429) message = TOO_MANY_TRIES;
+  // A limit that says what it is (invitations an hour, mails an address) keeps its sentence;
+  // a bare throttler name gets the general one.
+  if (response.status === 429 && !/\s/.test(message)) message = TOO_MANY_TRIES;
   return new ApiError(response.status, message, fields);
 }
 
