@@ -3,7 +3,10 @@ import { ConflictException, Injectable, NotFoundException } from '@nestjs/common
 import { InjectConnection, InjectModel } from '@nestjs/sequelize';
 import {
   Cause,
+  checkLines,
+  InterviewStage,
   MissStatus,
+  type CheckedLines,
   type Diagnosis,
   type PatternMiss,
   type WrittenSteps,
@@ -29,7 +32,7 @@ import {
   type UploadedPhoto,
 } from '../photos/photos.service.js';
 import { StudentsService } from '../students/students.service.js';
-import type { CreateMissDto } from './dto/create-miss.dto.js';
+import { MAX_LINE_LENGTH, type CreateMissDto } from './dto/create-miss.dto.js';
 import type { ListMissesQuery } from './dto/list-misses.query.js';
 import { toPatternMiss } from './pattern-miss.js';
 import type { UpdateMissDto } from './dto/update-miss.dto.js';
@@ -43,6 +46,13 @@ import { Miss } from './models/miss.model.js';
 export interface MissLinks {
   sittingId?: number | null;
   keyItemId?: number | null;
+}
+
+/** A word problem's number sentences, what checkLines made of them, and the interview stage. */
+interface WordProblem {
+  lines: string[] | null;
+  linesCheck: CheckedLines | null;
+  stage: InterviewStage | null;
 }
 
 /** A client's Idempotency-Key with the digest of the request it came with. */
@@ -81,6 +91,7 @@ export class MissesService {
       throw fieldsError({ photos: `attach at most ${MAX_PHOTOS_PER_MISS} photos` });
     }
     const checked = this.check(dto.problem, dto.answer, dto.steps ?? null);
+    const word = this.wordProblem(dto.lines ?? null, dto.stage ?? null);
     const processed = await this.photos.process(files, member);
     const staged = await this.photos.stage(processed);
     try {
@@ -102,6 +113,7 @@ export class MissesService {
             skills: dedupe(dto.skills ?? []),
             revisit: dedupe(dto.revisit ?? []),
             ...diagnosisColumns(checked),
+            ...wordProblemColumns(checked, word),
             idempotencyKey: once?.key ?? null,
             requestDigest: once?.digest ?? null,
             createdBy: member.userId,
@@ -109,7 +121,7 @@ export class MissesService {
           },
           { transaction },
         );
-        await this.writeRules(miss, checked, transaction);
+        await this.writeRules(miss, checked, transaction, word);
         await this.photos.createRows(miss.id, staged, member.userId, transaction);
         return miss.id;
       });
@@ -226,7 +238,7 @@ export class MissesService {
     const miss = await this.findModel(member, id);
     const photos = (await this.photos.forMisses([miss.id])).get(miss.id) ?? [];
     const found = await this.diagnosisModel.findByPk(miss.id);
-    return toMissJson(miss, photos, found?.diagnosis ?? null);
+    return { ...toMissJson(miss, photos, found?.diagnosis ?? null), linesCheck: miss.linesCheck };
   }
 
   /** 404 both for what does not exist and for what is not this member's to see. */
@@ -260,10 +272,18 @@ export class MissesService {
     if (dto.skills !== undefined) changes.skills = dedupe(dto.skills);
     if (dto.revisit !== undefined) changes.revisit = dedupe(dto.revisit);
     if (dto.steps !== undefined) changes.steps = dto.steps;
+    const wordChanged = dto.lines !== undefined || dto.stage !== undefined;
     const rediagnose =
       (dto.problem !== undefined && dto.problem !== miss.problem) ||
       (dto.answer !== undefined && dto.answer !== miss.answer) ||
-      dto.steps !== undefined;
+      dto.steps !== undefined ||
+      wordChanged;
+    const word = rediagnose
+      ? this.wordProblem(
+          dto.lines === undefined ? miss.lines : dto.lines,
+          dto.stage === undefined ? miss.stage : dto.stage,
+        )
+      : null;
     const checked = rediagnose
       ? this.check(
           changes.problem ?? miss.problem,
@@ -273,10 +293,16 @@ export class MissesService {
       : null;
     await this.sequelize.transaction(async (transaction) => {
       await miss.update(
-        { ...changes, ...(checked ? diagnosisColumns(checked) : {}), updatedBy: member.userId },
+        {
+          ...changes,
+          ...(checked && word
+            ? { ...diagnosisColumns(checked), ...wordProblemColumns(checked, word) }
+            : {}),
+          updatedBy: member.userId,
+        },
         { transaction },
       );
-      if (checked) await this.writeRules(miss, checked, transaction);
+      if (checked && word) await this.writeRules(miss, checked, transaction, word);
     });
     return this.findOne(member, id);
   }
@@ -356,6 +382,7 @@ export class MissesService {
         'notCheckedReason',
         'ruleIds',
         'facts',
+        'lines',
       ],
       where: { [Op.and]: and },
       order: [
@@ -366,7 +393,8 @@ export class MissesService {
     return rows.map((m) =>
       toPatternMiss(
         m,
-        m.notCheckedReason === null
+        // A word problem the engine cannot read counts its first wrong line's rules.
+        m.notCheckedReason === null || m.lines !== null
           ? { rules: m.ruleIds.map((id) => ({ id, ids: id.split('+') })), facts: m.facts }
           : null,
       ),
@@ -464,11 +492,17 @@ export class MissesService {
     const miss = await this.findModel(member, id, transaction);
     if (miss.answer === answer) return;
     const checked = this.diagnoser.check(miss.problem, answer, miss.steps);
+    const word = { lines: miss.lines, linesCheck: miss.linesCheck, stage: miss.stage };
     await miss.update(
-      { answer, ...diagnosisColumns(checked), updatedBy: member.userId },
+      {
+        answer,
+        ...diagnosisColumns(checked),
+        ...wordProblemColumns(checked, word),
+        updatedBy: member.userId,
+      },
       { transaction },
     );
-    await this.writeRules(miss, checked, transaction);
+    await this.writeRules(miss, checked, transaction, word);
   }
 
   /** The item's mark turned right: resolved, the reason added to the note. */
@@ -499,8 +533,38 @@ export class MissesService {
     return checked;
   }
 
+  /**
+   * A word problem's lines checked one by one (null when there are none). A line the engine
+   * cannot read is refused like unreadable steps, naming it (`lines.2` is the third line);
+   * an engine failure keeps the lines unchecked rather than losing the entry.
+   */
+  private wordProblem(lines: string[] | null, stage: InterviewStage | null): WordProblem {
+    if (!lines || lines.length === 0) return { lines: null, linesCheck: null, stage };
+    const long = lines.findIndex((l) => [...l].length > MAX_LINE_LENGTH);
+    if (long >= 0) {
+      throw fieldsError({
+        [`lines.${long}`]: `line ${long + 1} must be at most ${MAX_LINE_LENGTH} characters`,
+      });
+    }
+    let linesCheck: CheckedLines;
+    try {
+      linesCheck = checkLines(lines);
+    } catch {
+      return { lines, linesCheck: null, stage };
+    }
+    if (!linesCheck.ok) {
+      throw fieldsError({ [`lines.${linesCheck.line - 1}`]: linesCheck.error.message });
+    }
+    return { lines, linesCheck, stage };
+  }
+
   /** The diagnosis row and the rule rows of a miss, replaced by the new findings. */
-  private async writeRules(miss: Miss, checked: Checked, transaction: Transaction) {
+  private async writeRules(
+    miss: Miss,
+    checked: Checked,
+    transaction: Transaction,
+    word: WordProblem | null = null,
+  ) {
     await this.diagnosisModel.destroy({ where: { missId: miss.id }, transaction });
     if (checked.checked) {
       await this.diagnosisModel.create(
@@ -509,7 +573,8 @@ export class MissesService {
       );
     }
     await this.ruleModel.destroy({ where: { missId: miss.id }, transaction });
-    const ids = checked.checked ? ruleIdsOf(checked.diagnosis) : [];
+    const counted = checked.checked ? checked.diagnosis : firstWrongLine(word?.linesCheck ?? null);
+    const ids = counted ? ruleIdsOf(counted) : [];
     if (ids.length === 0) return;
     await this.ruleModel.bulkCreate(
       ids.map((ruleId) => ({ missId: miss.id, ruleId, householdId: miss.householdId })),
@@ -612,6 +677,10 @@ function requestDigest(dto: CreateMissDto, files: readonly UploadedPhoto[]): str
       dto.status ?? null,
       dto.skills ?? [],
       dto.revisit ?? [],
+      // Only when sent, so a key used before word problems existed keeps its digest.
+      ...(dto.lines !== undefined || dto.stage !== undefined
+        ? [dto.lines ?? [], dto.stage ?? null]
+        : []),
     ]),
   );
   for (const file of files) {
@@ -643,6 +712,46 @@ function diagnosisColumns(checked: Checked) {
     facts: d.facts,
     suggestedCause: d.suggestedCause?.cause ?? null,
   };
+}
+
+/** The diagnosis of a word problem's first wrong line, or null when every line is right. */
+function firstWrongLine(check: CheckedLines | null): Diagnosis | null {
+  if (!check?.ok || check.firstWrongLine === null) return null;
+  return check.lines[check.firstWrongLine - 1]?.diagnosis ?? null;
+}
+
+/**
+ * A word problem's columns. When the engine cannot read the problem itself, its first wrong
+ * line's rules and facts stand for the miss (so patterns count them). The interview stage
+ * feeds the suggested cause (after Newman 1977; White 2005 for the practice): reading →
+ * reading, process → the working's own cause (the first wrong line's for a word problem),
+ * encoding → copying, comprehension and transformation → concept.
+ */
+function wordProblemColumns(checked: Checked, word: WordProblem) {
+  const line = checked.checked ? null : firstWrongLine(word.linesCheck);
+  const working = checked.checked ? checked.diagnosis : line;
+  const ownCause = working?.suggestedCause?.cause ?? null;
+  return {
+    lines: word.lines,
+    linesCheck: word.linesCheck,
+    stage: word.stage,
+    ...(line ? { ruleIds: line.rules.map((r) => r.id), facts: line.facts } : {}),
+    suggestedCause: word.stage ? stageCause(word.stage, ownCause) : ownCause,
+  };
+}
+
+function stageCause(stage: InterviewStage, working: Cause | null): Cause | null {
+  switch (stage) {
+    case InterviewStage.reading:
+      return Cause.reading;
+    case InterviewStage.comprehension:
+    case InterviewStage.transformation:
+      return Cause.concept;
+    case InterviewStage.process:
+      return working;
+    case InterviewStage.encoding:
+      return Cause.copying;
+  }
 }
 
 /** Every rule id a diagnosis names, each id of a pair included. */
@@ -690,6 +799,8 @@ const SUMMARY_ATTRIBUTES = [
   'status',
   'skills',
   'revisit',
+  'lines',
+  'stage',
   'notCheckedReason',
   'expected',
   'correct',
@@ -720,6 +831,7 @@ function fromRawRow(r: RawMissRow): SummaryFields {
     steps: json(r.steps, null),
     skills: json(r.skills, []),
     revisit: json(r.revisit, []),
+    lines: json(r.lines, null),
     ruleIds: json(r.ruleIds, []),
     correct: r.correct === null ? null : Boolean(r.correct),
     createdAt: date(r.createdAt),
@@ -759,6 +871,8 @@ export function toMissSummary(m: SummaryFields) {
     status: m.status,
     skills: m.skills,
     revisit: m.revisit,
+    lines: m.lines,
+    stage: m.stage,
     checked: m.notCheckedReason === null,
     notCheckedReason: m.notCheckedReason,
     expected: m.expected,

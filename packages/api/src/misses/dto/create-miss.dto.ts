@@ -1,5 +1,12 @@
 import { ApiProperty, ApiPropertyOptional } from '@nestjs/swagger';
-import { CAUSES, MISS_STATUSES, type Cause, type MissStatus } from '@workback/core';
+import {
+  CAUSES,
+  INTERVIEW_STAGES,
+  MISS_STATUSES,
+  type Cause,
+  type InterviewStage,
+  type MissStatus,
+} from '@workback/core';
 import { Transform } from 'class-transformer';
 import {
   ArrayMaxSize,
@@ -36,6 +43,31 @@ export const ParseJsonField = () =>
 
 const present = (_: object, value: unknown) => value !== undefined;
 
+/** Most number sentences one word problem keeps, and the longest sentence. */
+export const MAX_LINES = 20;
+export const MAX_LINE_LENGTH = 120;
+
+/**
+ * A word problem's lines arrive as a list, JSON text of one (multipart), or one field per line
+ * (multipart repeats the name); each is trimmed and blank lines are dropped, so `lines.2` is
+ * the third sentence the parent wrote.
+ */
+const CleanLines = () =>
+  Transform(({ value }: { value: unknown }) => {
+    let list = value;
+    if (typeof list === 'string') {
+      const text = list.trim();
+      if (text === '') return undefined;
+      try {
+        list = text.startsWith('[') ? (JSON.parse(text) as unknown) : [text];
+      } catch {
+        return value;
+      }
+    }
+    if (!Array.isArray(list)) return list;
+    return list.map((l) => (typeof l === 'string' ? l.trim() : l)).filter((l) => l !== '');
+  });
+
 export class CreateMissDto {
   @ApiProperty({ example: 1 })
   @WholeNumber()
@@ -68,6 +100,28 @@ export class CreateMissDto {
   @IsOptional()
   @IsObject({ message: 'steps must be JSON such as { "partials": ["68", "340"] }' })
   steps?: WrittenSteps | null;
+
+  @ApiPropertyOptional({
+    type: [String],
+    maxItems: MAX_LINES,
+    description: `A word problem's number sentences as the child wrote them, one per line (at most ${MAX_LINE_LENGTH} characters each); checked line by line`,
+    example: ['4 x 15 = 60', '60 - 18 = 42'],
+  })
+  @CleanLines()
+  @ValidateIf(present)
+  @IsArray({ message: 'lines must be a list of number sentences such as ["4 x 15 = 60"]' })
+  @ArrayMaxSize(MAX_LINES, { message: `lines may hold at most ${MAX_LINES} sentences` })
+  @IsString({ each: true, message: 'each line must be text' })
+  lines?: string[];
+
+  /** Newman's stages (Newman 1977); White (2005) for the interview in practice. */
+  @ApiPropertyOptional({
+    enum: INTERVIEW_STAGES,
+    description: 'Where the word problem went wrong, found by the five interview prompts',
+  })
+  @ValidateIf(present)
+  @IsIn(INTERVIEW_STAGES, { message: `stage must be one of ${INTERVIEW_STAGES.join(', ')}` })
+  stage?: InterviewStage;
 
   @ApiPropertyOptional({ description: 'The child’s own words, kept as written', maxLength: 2000 })
   @ValidateIf(present)

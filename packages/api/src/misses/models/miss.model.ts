@@ -1,4 +1,11 @@
-import type { Cause, MissStatus, StoredDiagnosis, WrittenSteps } from '@workback/core';
+import type {
+  Cause,
+  CheckedLines,
+  InterviewStage,
+  MissStatus,
+  StoredDiagnosis,
+  WrittenSteps,
+} from '@workback/core';
 import { Column, DataType, ForeignKey, Model, Table } from 'sequelize-typescript';
 import { jsonColumn } from '../../common/json-column.js';
 import { Household } from '../../households/models/household.model.js';
@@ -38,6 +45,18 @@ export class Miss extends Model {
 
   @Column({ type: DataType.TEXT, allowNull: false, defaultValue: '' })
   declare explanation: string;
+
+  /** A word problem's number sentences as the child wrote them, one per line (migration 0012). */
+  @Column(jsonColumn<string[] | null>('lines', null, true))
+  declare lines: string[] | null;
+
+  /** checkLines' reading of `lines` when they were saved; the rule ids below follow from it. */
+  @Column(jsonColumn<CheckedLines | null>('linesCheck', null, true))
+  declare linesCheck: CheckedLines | null;
+
+  /** The interview stage where the parent found the word problem went wrong (Newman 1977). */
+  @Column({ type: DataType.STRING(16), allowNull: true })
+  declare stage: InterviewStage | null;
 
   @Column({ type: DataType.STRING(16), allowNull: false })
   declare cause: Cause;

@@ -1,0 +1,176 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { postMultipart, today } from './support/photos.js';
+import { type Client, DEMO, signedIn, startTestApp, type TestApp } from './support/test-app.js';
+
+let t: TestApp;
+let owner: Client;
+
+beforeAll(async () => {
+  t = await startTestApp({ SIGN_IN_LIMIT_PER_MINUTE: '1000' });
+  owner = await signedIn(t, DEMO.owner);
+});
+afterAll(() => t.close());
+
+async function freshStudent(name: string): Promise<number> {
+  return (await owner.post('/api/students', { name, gradeLevel: '3' }).expect(201)).body
+    .id as number;
+}
+
+// An invented word problem: 4 boxes of 15 pencils, 18 given away, 7 more bought. The child's
+// second sentence takes the smaller digit from the larger in each column: 60 − 18 → 58
+// (60 − 18 = 42 by plain arithmetic; "smaller from larger" is Brown & Burton's (1978)
+// SMALLER-FROM-LARGER, from memory); the third is right given 58 (58 + 7 = 65).
+const PENCILS = ['4 x 15 = 60', '60 - 18 = 58', '58 + 7 = 65'];
+const word = (studentId: number, over: Record<string, unknown> = {}) => ({
+  studentId,
+  occurredOn: today(),
+  problem: 'Pencils: 4 boxes of 15, 18 given away, 7 bought. How many now?',
+  answer: '65',
+  lines: PENCILS,
+  ...over,
+});
+
+describe('a word problem’s number sentences on a miss', () => {
+  it('checks the lines, counts the first wrong line’s rules and returns the check', async () => {
+    const student = await freshStudent('Lines');
+    const res = await owner.post('/api/misses', word(student, { stage: 'process' }));
+    expect(res.status, res.text).toBe(201);
+    // The problem itself is words: not checked, but its lines are.
+    expect(res.body).toMatchObject({ checked: false, lines: PENCILS, stage: 'process' });
+    // 60 − 18 → 58 is also "0 − n = n" in the ones; both readings are kept.
+    expect(res.body.ruleIds).toEqual(['sub.smaller-from-larger', 'sub.zero-minus-n-is-n']);
+    // process → the first wrong line's own suggested cause (a method step).
+    expect(res.body.suggestedCause).toBe('step');
+
+    const got = await owner.get(`/api/misses/${res.body.id}`).expect(200);
+    expect(got.body.linesCheck).toMatchObject({ ok: true, firstWrongLine: 2 });
+    const lines = got.body.linesCheck.lines as {
+      line: number;
+      ok: boolean;
+      expected: string;
+      written: string;
+      followsFrom: number | null;
+    }[];
+    expect(lines.map((l) => [l.line, l.ok, l.expected, l.written, l.followsFrom])).toEqual([
+      [1, true, String(4 * 15), '60', null],
+      [2, false, String(60 - 18), '58', null],
+      [3, true, String(58 + 7), '65', 2],
+    ]);
+
+    // The rule filter and the patterns see the line's rule.
+    const listed = await owner
+      .get(`/api/misses?studentId=${student}&rule=sub.smaller-from-larger`)
+      .expect(200);
+    expect(listed.body.items.map((m: { id: number }) => m.id)).toEqual([res.body.id]);
+    expect(listed.body.items[0]).toMatchObject({ lines: PENCILS, stage: 'process' });
+    await owner.post('/api/misses', word(student)).expect(201);
+    const patterns = await owner.get(`/api/patterns?studentId=${student}`).expect(200);
+    const finding = patterns.body.findings.rules.find(
+      (r: { ruleId: string }) => r.ruleId === 'sub.smaller-from-larger',
+    );
+    expect(finding?.explains).toBe(2);
+  });
+
+  it.each([
+    ['reading', 'reading'],
+    ['comprehension', 'concept'],
+    ['transformation', 'concept'],
+    ['encoding', 'copying'],
+  ])('takes the suggested cause from the stage %s → %s', async (stage, cause) => {
+    const student = await freshStudent(`Stage ${stage}`);
+    const res = await owner.post('/api/misses', word(student, { stage }));
+    expect(res.status, res.text).toBe(201);
+    expect(res.body).toMatchObject({ stage, suggestedCause: cause });
+  });
+
+  it('keeps the problem’s own diagnosis when the engine reads the problem too', async () => {
+    const student = await freshStudent('Both');
+    const res = await owner.post('/api/misses', {
+      studentId: student,
+      occurredOn: today(),
+      problem: '$12.50 - $3.75',
+      answer: '19.85',
+      lines: ['12.50 - 3.75 = 19.85'],
+      stage: 'encoding',
+    });
+    expect(res.status, res.text).toBe(201);
+    // 12.50 − 3.75 → 19.85 is the issue's own example of sub.borrow-no-decrement.
+    expect(res.body).toMatchObject({ checked: true, expected: '8.75', suggestedCause: 'copying' });
+    expect(res.body.ruleIds).toEqual(['sub.borrow-no-decrement']);
+  });
+
+  it('reads lines sent in a multipart form as JSON text or as repeated fields', async () => {
+    const student = await freshStudent('Multipart');
+    const base = { studentId: student, occurredOn: today(), problem: 'Pencils', answer: '65' };
+    const json = await postMultipart(owner, '/api/misses', {
+      ...base,
+      lines: JSON.stringify(PENCILS),
+      stage: 'process',
+    });
+    expect(json.status, json.text).toBe(201);
+    expect(json.body.lines).toEqual(PENCILS);
+
+    let req = owner.agent.post('/api/misses').set('x-csrf-token', owner.token);
+    for (const [name, value] of Object.entries(base)) req = req.field(name, String(value));
+    for (const line of [...PENCILS, '  ']) req = req.field('lines', line);
+    const repeated = await req;
+    expect(repeated.status, repeated.text).toBe(201);
+    expect(repeated.body.lines).toEqual(PENCILS);
+    expect(repeated.body.ruleIds).toContain('sub.smaller-from-larger');
+  });
+
+  it('edits lines and stage, and clears them with an empty list', async () => {
+    const student = await freshStudent('Edits');
+    const made = await owner.post('/api/misses', word(student)).expect(201);
+    const id = made.body.id as number;
+    const fixed = await owner.agent
+      .patch(`/api/misses/${id}`)
+      .set('x-csrf-token', owner.token)
+      .send({ lines: ['4 x 15 = 60', '60 - 18 = 42', '42 + 7 = 49'], stage: 'encoding' });
+    expect(fixed.status, fixed.text).toBe(200);
+    expect(fixed.body).toMatchObject({ ruleIds: [], stage: 'encoding', suggestedCause: 'copying' });
+    expect(fixed.body.linesCheck).toMatchObject({ ok: true, firstWrongLine: null });
+    const cleared = await owner.agent
+      .patch(`/api/misses/${id}`)
+      .set('x-csrf-token', owner.token)
+      .send({ lines: [] });
+    expect(cleared.status, cleared.text).toBe(200);
+    expect(cleared.body).toMatchObject({ lines: null, linesCheck: null, stage: 'encoding' });
+  });
+
+  describe('refuses bad input with a 400 naming the field, and saves nothing', () => {
+    const cases: [string, Record<string, unknown>, string, RegExp][] = [
+      [
+        'a line the engine cannot read',
+        { lines: ['3 + 4 = 7', '1 + 1 = 2', 'twelve = 12'] },
+        'lines.2',
+        /twelve/,
+      ],
+      ['a line without =', { lines: ['3 + 4 = 7', '60 - 18'] }, 'lines.1', /no “=”/],
+      [
+        'a line too long',
+        { lines: ['1 + 1 = 2', '2 + 2 = 4', `${'1 + '.repeat(40)}1 = 41`] },
+        'lines.2',
+        /120/,
+      ],
+      [
+        'a NUL in a line',
+        { lines: ['1 + 1 = 2', '2 + 2 = 4', '3 +\u0000 3 = 6'] },
+        'lines.2',
+        /control/,
+      ],
+      ['21 lines', { lines: Array.from({ length: 21 }, () => '1 + 1 = 2') }, 'lines', /at most 20/],
+      ['lines that are not a list', { lines: 7 }, 'lines', /list|text/],
+      ['a line that is not text', { lines: ['1 + 1 = 2', 3] }, 'lines', /text/],
+      ['an unknown stage', { stage: 'guessing' }, 'stage', /reading, comprehension/],
+    ];
+    it.each(cases)('%s', async (_what, over, field, message) => {
+      const student = await freshStudent(`Bad ${field}`);
+      const res = await owner.post('/api/misses', word(student, over));
+      expect(res.status, res.text).toBe(400);
+      expect(res.body.fields[field]).toMatch(message);
+      const list = await owner.get(`/api/misses?studentId=${student}`).expect(200);
+      expect(list.body.total).toBe(0);
+    });
+  });
+});
