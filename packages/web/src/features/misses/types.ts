@@ -3,7 +3,9 @@ import {
   MISS_STATUS_LABEL,
   ruleName,
   type Cause,
+  type CheckedLines,
   type Diagnosis,
+  type InterviewStage,
   type MissStatus,
   type WrittenSteps,
 } from '@workback/core';
@@ -42,6 +44,10 @@ export type MissSummary = {
   status: MissStatus;
   skills: string[];
   revisit: string[];
+  /** A word problem's number sentences, one per line (null when none were recorded). */
+  lines?: string[] | null;
+  /** Where the word problem went wrong, by the interview prompts. */
+  stage?: InterviewStage | null;
   checked: boolean;
   notCheckedReason: string | null;
   expected: string | null;
@@ -58,7 +64,12 @@ export type MissSummary = {
 };
 
 /** One miss with its diagnosis and photos (`GET /misses/:id`). */
-export type Miss = MissSummary & { diagnosis: Diagnosis | null; photos: MissPhoto[] };
+export type Miss = MissSummary & {
+  diagnosis: Diagnosis | null;
+  photos: MissPhoto[];
+  /** The number sentences checked line by line, when there are any. */
+  linesCheck?: CheckedLines | null;
+};
 
 export type MissPage = { items: MissSummary[]; total: number; page: number; pageSize: number };
 
@@ -80,6 +91,9 @@ export type MissInput = {
   explanation: string;
   cause: Cause;
   note: string;
+  /** A word problem's number sentences, one per line. */
+  lines?: string[];
+  stage?: InterviewStage | null;
 };
 
 export type MissChanges = Partial<Omit<MissInput, 'steps'>> & {

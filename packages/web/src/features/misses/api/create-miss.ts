@@ -24,6 +24,8 @@ export function missFields(input: MissInput): Record<string, string> {
   fields.explanation = input.explanation;
   fields.cause = input.cause;
   fields.note = input.note;
+  if (input.lines && input.lines.length > 0) fields.lines = JSON.stringify(input.lines);
+  if (input.stage) fields.stage = input.stage;
   return fields;
 }
 

@@ -1,6 +1,6 @@
 import { Button, Callout, Intent, ProgressBar } from '@blueprintjs/core';
 import { RefreshIcon } from '@blueprintjs/icons';
-import { Cause, type Problem } from '@workback/core';
+import { Cause, type InterviewStage, type Problem } from '@workback/core';
 import { useEffect, useState } from 'react';
 import { useController, useForm, useWatch } from 'react-hook-form';
 import { useNavigate } from 'react-router-dom';
@@ -21,6 +21,7 @@ import { CausePicker } from './cause-picker';
 import { ExplanationPrompts } from './explanation-prompts';
 import { applyPhotoChange, checkPhotos, PhotoPicker } from './photo-picker';
 import { CheckersCaution, WorkingTrace } from './working-trace/working-trace';
+import { readLines, WordProblemFields } from './word-problem';
 import '../misses.css';
 
 type Values = {
@@ -32,6 +33,8 @@ type Values = {
   explanation: string;
   cause: Cause;
   note: string;
+  lines: string;
+  stage: InterviewStage | '';
 };
 
 const FIELDS = [
@@ -42,7 +45,21 @@ const FIELDS = [
   'explanation',
   'cause',
   'note',
+  'lines',
+  'stage',
 ] as const;
+
+/** The API names a bad line `lines.2` (the third); the form shows it under the lines box. */
+function placeLineErrors(error: unknown): unknown {
+  if (!isApiError(error)) return error;
+  for (const [name, message] of Object.entries(error.fields)) {
+    const index = /^lines\.(\d+)$/.exec(name)?.[1];
+    if (index === undefined) continue;
+    delete error.fields[name];
+    error.fields.lines ??= `Line ${Number(index) + 1}: ${message}`;
+  }
+  return error;
+}
 
 /** Refusals about the photos themselves: too large, not an image, unreadable. */
 const PHOTO_REFUSALS = [413, 415, 422];
@@ -151,6 +168,7 @@ export function LogMissForm({
   const [failedSave, setFailedSave] = useState<null | { another: boolean; message: string }>(null);
   const [progress, setProgress] = useState<UploadProgress | null>(null);
   const [causeChosen, setCauseChosen] = useState(false);
+  const [wordOpen, setWordOpen] = useState(false);
   // One key per miss being logged: a retry of the same miss (Try again, or the copy kept
   // offline) carries it, so the server makes one miss however often it arrives.
   const [requestKey, setRequestKey] = useState(newRequestKey);
@@ -176,9 +194,12 @@ export function LogMissForm({
       explanation: '',
       cause: Cause.unsure,
       note: '',
+      lines: '',
+      stage: '',
     },
   });
   const { field: causeField } = useController({ control, name: 'cause' });
+  const { field: stageField } = useController({ control, name: 'stage' });
 
   const [problem, answer, partials] = useWatch({
     control,
@@ -219,6 +240,8 @@ export function LogMissForm({
       explanation: values.explanation,
       cause: values.cause,
       note: values.note.trim(),
+      lines: wordOpen ? readLines(values.lines) : [],
+      stage: wordOpen && values.stage ? values.stage : null,
     };
     remember(values.studentId);
     const key = requestKey;
@@ -232,8 +255,11 @@ export function LogMissForm({
         explanation: '',
         cause: Cause.unsure,
         note: '',
+        lines: '',
+        stage: '',
       });
       setCauseChosen(false);
+      setWordOpen(false);
       setPhotos([]);
       setRequestKey(newRequestKey());
       setNextRound((n) => n + 1);
@@ -289,7 +315,7 @@ export function LogMissForm({
       setPhotoError(photoProblem);
       const others = Object.keys(error.fields).filter((f) => f !== 'photos');
       if (photoProblem && others.length === 0) return;
-      setFormError(applyFieldErrors(error, setError, FIELDS));
+      setFormError(applyFieldErrors(placeLineErrors(error), setError, FIELDS));
     }
   };
 
@@ -393,6 +419,18 @@ export function LogMissForm({
         />
       ) : null}
       <LivePanel live={live} hasAnswer={answer.trim().length > 0} />
+      <WordProblemFields
+        open={wordOpen}
+        onOpen={setWordOpen}
+        registration={register('lines', {
+          validate: (value) =>
+            readLines(value).length <= 20 || 'Keep it to 20 number sentences or fewer.',
+        })}
+        error={errors.lines?.message ?? errors.stage?.message}
+        stage={stageField.value}
+        onStageChange={stageField.onChange}
+        disabled={isSubmitting}
+      />
       <ExplanationPrompts />
       <TextAreaField
         idPrefix="miss"

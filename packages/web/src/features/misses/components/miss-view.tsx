@@ -15,6 +15,7 @@ import { NotesThread } from './notes-thread';
 import { PhotoGallery } from './photo-gallery';
 import { StatusButtons } from './status-buttons';
 import { CheckersCaution, WorkingTrace } from './working-trace/working-trace';
+import { LinesCheckView } from './word-problem';
 import '../misses.css';
 
 /** One miss: photos with pins, the working trace, the child's words, cause, status, notes. */
@@ -125,6 +126,15 @@ export function MissView({
           </>
         )}
       </section>
+
+      {m.lines && m.lines.length > 0 ? (
+        <section className="wb-miss-section" aria-labelledby="lines-title">
+          <h2 id="lines-title" className="wb-section-title">
+            The number sentences
+          </h2>
+          <LinesCheckView check={m.linesCheck} lines={m.lines} stage={m.stage} />
+        </section>
+      ) : null}
 
       <div className="wb-miss-grid">
         <section className="wb-miss-section" aria-labelledby="said-title">

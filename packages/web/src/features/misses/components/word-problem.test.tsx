@@ -1,0 +1,173 @@
+import { screen, waitFor, within } from '@testing-library/react';
+import userEvent from '@testing-library/user-event';
+import { checkLines } from '@workback/core';
+import { afterEach, beforeEach, describe, expect, it } from 'vitest';
+
+import { fakeUploads } from '../../../testing/fake-xhr';
+import { CSRF, json, mockApi, ownerMe, students } from '../../../testing/mock-api';
+import { renderApp } from '../../../testing/render';
+
+const list = (items: unknown[]) => json(200, { items, total: items.length });
+
+// An invented word problem: 4 boxes of 15 pencils, 18 given away, 7 bought. 60 − 18 is 42, so
+// the second line (58) differs and the third (58 + 7 = 65) goes on with it.
+const LINES = ['4 x 15 = 60', '60 - 18 = 58', '58 + 7 = 65'];
+
+function wordMiss(overrides: Record<string, unknown> = {}) {
+  return {
+    id: 21,
+    studentId: 1,
+    occurredOn: '2026-09-14',
+    sittingId: null,
+    keyItemId: null,
+    problem: 'Pencils: 4 boxes of 15, 18 given away, 7 bought',
+    answer: '65',
+    steps: null,
+    explanation: '',
+    cause: 'step',
+    note: '',
+    status: 'logged',
+    skills: [],
+    revisit: [],
+    lines: LINES,
+    stage: 'process',
+    checked: false,
+    notCheckedReason: 'I could not read the word “Pencils”.',
+    expected: null,
+    correct: null,
+    ruleIds: ['sub.smaller-from-larger'],
+    suggestedCause: 'step',
+    engineVersion: null,
+    createdBy: 1,
+    updatedBy: 1,
+    createdAt: '2026-09-14T10:00:00.000Z',
+    updatedAt: '2026-09-14T10:00:00.000Z',
+    thumbnailPhotoId: null,
+    photoCount: 0,
+    diagnosis: null,
+    photos: [],
+    linesCheck: checkLines(LINES),
+    ...overrides,
+  };
+}
+
+function api(extra: Parameters<typeof mockApi>[0] = {}) {
+  return mockApi({
+    ...CSRF,
+    'GET /auth/me': json(200, ownerMe),
+    'GET /students': list(students),
+    ...extra,
+  });
+}
+
+beforeEach(() => window.localStorage.clear());
+afterEach(() => window.localStorage.clear());
+
+async function fillWordProblem(user: ReturnType<typeof userEvent.setup>) {
+  await user.selectOptions(await screen.findByLabelText('Student'), 'Juniper');
+  await user.type(screen.getByLabelText('The problem'), 'Pencils: 4 boxes of 15');
+  await user.type(screen.getByLabelText('The child’s answer'), '65');
+  expect(screen.queryByLabelText('The number sentences the child wrote')).toBeNull();
+  const toggle = screen.getByRole('button', { name: 'Word problem' });
+  expect(toggle).toHaveAttribute('aria-expanded', 'false');
+  await user.click(toggle);
+  expect(toggle).toHaveAttribute('aria-expanded', 'true');
+  await user.type(
+    screen.getByLabelText('The number sentences the child wrote'),
+    `${LINES.join('\n')}\n\n`,
+  );
+}
+
+describe('Log a miss: word problem', () => {
+  it('keeps the section closed until asked, then sends the lines and the stage', async () => {
+    api({
+      'GET /misses/21': json(200, wordMiss()),
+      'GET /notes?missId=21&pageSize=100': list([]),
+    });
+    const uploads = fakeUploads({ status: 201, body: wordMiss() });
+    const { router } = renderApp('/misses/new');
+    const user = userEvent.setup();
+    await fillWordProblem(user);
+    expect(
+      screen.getByText(/whether the sentences answer the question stays your call/i),
+    ).toBeVisible();
+    await user.click(screen.getByRole('radio', { name: /Work it/ }));
+    await user.click(screen.getByRole('button', { name: 'Save' }));
+
+    await waitFor(() => expect(router.state.location.pathname).toBe('/misses/21'));
+    expect(uploads.sent).toHaveLength(1);
+    expect(uploads.sent[0]?.fields).toMatchObject({
+      problem: 'Pencils: 4 boxes of 15',
+      answer: '65',
+      lines: JSON.stringify(LINES),
+      stage: 'process',
+    });
+  });
+
+  it('sends no lines when the section stays closed', async () => {
+    api();
+    const uploads = fakeUploads({ status: 201, body: wordMiss({ lines: null, linesCheck: null }) });
+    renderApp('/misses/new');
+    const user = userEvent.setup();
+    await user.selectOptions(await screen.findByLabelText('Student'), 'Juniper');
+    await user.type(screen.getByLabelText('The problem'), '304 - 75');
+    await user.type(screen.getByLabelText('The child’s answer'), '139');
+    await user.click(screen.getByRole('button', { name: 'Save' }));
+    await waitFor(() => expect(uploads.sent).toHaveLength(1));
+    expect(uploads.sent[0]?.fields).not.toHaveProperty('lines');
+    expect(uploads.sent[0]?.fields).not.toHaveProperty('stage');
+  });
+
+  it('shows a line the server refused under the lines, naming the line', async () => {
+    api();
+    fakeUploads({
+      status: 400,
+      body: {
+        statusCode: 400,
+        error: 'Bad Request',
+        message: 'Please check lines.1: Line 2 has no “=”',
+        fields: { 'lines.1': 'Line 2 has no “=”' },
+      },
+    });
+    renderApp('/misses/new');
+    const user = userEvent.setup();
+    await fillWordProblem(user);
+    await user.click(screen.getByRole('button', { name: 'Save' }));
+    expect(await screen.findByText('Line 2: Line 2 has no “=”')).toBeVisible();
+    expect(screen.getByLabelText('The number sentences the child wrote')).toHaveValue(
+      `${LINES.join('\n')}\n\n`,
+    );
+  });
+});
+
+describe('The miss page: word problem', () => {
+  it('shows each line right, differing or following, the first that differs marked softly', async () => {
+    api({
+      'GET /misses/21': json(200, wordMiss()),
+      'GET /notes?missId=21&pageSize=100': list([]),
+    });
+    renderApp('/misses/21');
+    const section = await screen.findByRole('region', { name: 'The number sentences' });
+    const items = within(section).getAllByRole('listitem');
+    expect(items).toHaveLength(3);
+    expect(items[0]).toHaveTextContent('4 x 15 = 60');
+    expect(items[0]).toHaveTextContent('Right');
+    // 60 − 18 = 42 (plain arithmetic).
+    expect(items[1]).toHaveTextContent(`Differs: this comes to ${60 - 18}`);
+    expect(items[1]).toHaveTextContent('the first line that differs');
+    expect(items[1]).toHaveClass('wb-word-line-first');
+    expect(items[2]).toHaveTextContent('follows from line 2');
+    expect(items[2]).not.toHaveClass('wb-word-line-first');
+    expect(within(section).getByText(/Where it went wrong: “Work it”/)).toBeInTheDocument();
+  });
+
+  it('shows no such section for a miss without lines', async () => {
+    api({
+      'GET /misses/21': json(200, wordMiss({ lines: null, linesCheck: null, stage: null })),
+      'GET /notes?missId=21&pageSize=100': list([]),
+    });
+    renderApp('/misses/21');
+    await screen.findByRole('heading', { level: 1 });
+    expect(screen.queryByRole('region', { name: 'The number sentences' })).toBeNull();
+  });
+});

@@ -1,0 +1,145 @@
+import { Button, Radio, RadioGroup } from '@blueprintjs/core';
+import { ChevronDownIcon, ChevronRightIcon } from '@blueprintjs/icons';
+import { INTERVIEW_STAGES, type CheckedLines, type InterviewStage } from '@workback/core';
+import type { UseFormRegisterReturn } from 'react-hook-form';
+
+import { TextAreaField } from '../../../components/form/text-area-field';
+import './word-problem.css';
+
+/**
+ * The five interview prompts, in our own words, after Newman's error analysis (Newman 1977;
+ * White 2005 for the interview in practice): the first one the child cannot do is where the
+ * word problem went wrong.
+ */
+export const STAGE_PROMPTS: Readonly<Record<InterviewStage, { prompt: string; stage: string }>> = {
+  reading: { prompt: 'Read it to me', stage: 'Reading the words' },
+  comprehension: { prompt: 'What is it asking?', stage: 'Understanding the question' },
+  transformation: { prompt: 'How will you work it out?', stage: 'Choosing the operations' },
+  process: { prompt: 'Work it', stage: 'Doing the arithmetic' },
+  encoding: { prompt: 'Write the answer', stage: 'Writing the answer down' },
+};
+
+/** The textarea's text as the lines the API takes: trimmed, blank lines left out. */
+export function readLines(text: string): string[] {
+  return text
+    .split('\n')
+    .map((l) => l.trim())
+    .filter((l) => l !== '');
+}
+
+/** The log form's "Word problem" part: collapsed until the parent asks for it. */
+export function WordProblemFields({
+  open,
+  onOpen,
+  registration,
+  error,
+  stage,
+  onStageChange,
+  disabled,
+}: {
+  open: boolean;
+  onOpen: (open: boolean) => void;
+  registration: UseFormRegisterReturn;
+  error?: string;
+  stage: InterviewStage | '';
+  onStageChange: (stage: InterviewStage) => void;
+  disabled?: boolean;
+}) {
+  return (
+    <section className="wb-word-problem" aria-labelledby="word-title">
+      <Button
+        variant="minimal"
+        id="word-title"
+        aria-expanded={open}
+        aria-controls="word-body"
+        icon={open ? <ChevronDownIcon /> : <ChevronRightIcon />}
+        onClick={() => onOpen(!open)}
+      >
+        Word problem
+      </Button>
+      {open ? (
+        <div id="word-body">
+          <TextAreaField
+            idPrefix="miss"
+            label="The number sentences the child wrote"
+            rows={3}
+            placeholder={'4 x 15 = 60\n60 - 18 = 42'}
+            help="One per line, as written. The checkers look at each line’s arithmetic; whether the sentences answer the question stays your call."
+            registration={registration}
+            error={error}
+          />
+          <RadioGroup
+            className="wb-word-stages"
+            name="stage"
+            label="Ask in turn; where did it go wrong?"
+            selectedValue={stage}
+            disabled={disabled}
+            onChange={(event) => onStageChange(event.currentTarget.value as InterviewStage)}
+          >
+            {INTERVIEW_STAGES.map((s) => (
+              <Radio
+                key={s}
+                value={s}
+                labelElement={
+                  <span>
+                    “{STAGE_PROMPTS[s].prompt}”{' '}
+                    <span className="wb-muted">— {STAGE_PROMPTS[s].stage.toLowerCase()}</span>
+                  </span>
+                }
+              />
+            ))}
+          </RadioGroup>
+        </div>
+      ) : null}
+    </section>
+  );
+}
+
+/** Each number sentence with what the checkers found; the first that differs marked softly. */
+export function LinesCheckView({
+  check,
+  lines,
+  stage,
+}: {
+  check: CheckedLines | null | undefined;
+  lines: readonly string[];
+  stage: InterviewStage | null | undefined;
+}) {
+  return (
+    <>
+      {check?.ok ? (
+        <ol className="wb-word-lines" aria-label="Number sentences">
+          {check.lines.map((l) => {
+            const first = l.line === check.firstWrongLine;
+            return (
+              <li key={l.line} className={`wb-word-line${first ? ' wb-word-line-first' : ''}`}>
+                <span className="wb-word-line-number">{l.line}.</span>
+                <span className="wb-mono">{l.text}</span>
+                <span className="wb-word-line-verdict">
+                  {l.ok ? 'Right' : `Differs: this comes to ${l.expected}`}
+                  {first ? ' · the first line that differs' : ''}
+                  {l.followsFrom !== null ? ` · follows from line ${l.followsFrom}` : ''}
+                </span>
+              </li>
+            );
+          })}
+        </ol>
+      ) : (
+        <ol className="wb-word-lines" aria-label="Number sentences">
+          {lines.map((text, i) => (
+            <li key={i} className="wb-word-line">
+              <span className="wb-word-line-number">{i + 1}.</span>
+              <span className="wb-mono">{text}</span>
+            </li>
+          ))}
+        </ol>
+      )}
+      <p className="wb-muted">
+        {stage
+          ? `Where it went wrong: “${STAGE_PROMPTS[stage].prompt}” (${STAGE_PROMPTS[stage].stage.toLowerCase()}).`
+          : 'No interview stage recorded.'}{' '}
+        Each line’s arithmetic is checked; whether they answer the question is your call.
+      </p>
+    </>
+  );
+}
