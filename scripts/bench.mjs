@@ -10,7 +10,8 @@ const report = path.join(dir, 'figures.jsonl');
 const env = { ...process.env, BENCH_REPORT: report };
 
 let failed = false;
-for (const workspace of ['packages/core', 'packages/api']) {
+// The web bench serves the built app (`npm run build` first): a phone on slow 4G in Chromium.
+for (const workspace of ['packages/core', 'packages/api', 'packages/web']) {
   const run = spawnSync('npm', ['run', 'bench', '-w', workspace], { stdio: 'inherit', env });
   if (run.status !== 0) {
     console.error(`\nthe ${workspace} benchmark stopped with status ${run.status}`);

@@ -65,10 +65,8 @@ async function toast(page: Page, text: string | RegExp) {
 function expectCleanRun(watched: Watched) {
   expect(watched.foreignRequests, 'requests to other sites').toEqual([]);
   expect(watched.cspViolations, 'CSP violations').toEqual([]);
-  // A 401 or 410 answer is logged by the browser itself; the table's resize sensor is known.
-  const unexpected = watched.consoleErrors.filter(
-    (e) => !e.startsWith('Failed to load resource') && !e.startsWith('Applying inline style'),
-  );
+  // A 401 or 410 answer is logged by the browser itself.
+  const unexpected = watched.consoleErrors.filter((e) => !e.startsWith('Failed to load resource'));
   expect(unexpected, 'console errors').toEqual([]);
 }
 
