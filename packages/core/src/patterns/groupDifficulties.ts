@@ -169,10 +169,12 @@ function sentenceOf(c: Card, status: Difficulty['status'], count: number): strin
     const f = c.finding!;
     return `Finding: “${f.name}” reproduces ${f.explains} answers exactly, and no answer the child got right goes against it. ${cap(misses)} in all.`;
   }
-  if (status === 'recurring') {
-    const r = c.recurring!;
-    return `Came back ${r.window.count} times within 30 days (${r.window.from} to ${r.window.to}); ${misses} in all. Not a finding: no single method reproduces 2 or more of the answers with nothing against it.`;
-  }
+  if (status === 'recurring')
+    return c.kind === 'method'
+      ? `${cap(misses)}. Not called a finding: no one method reproduces 2 or more of these answers with no right answer against it.`
+      : c.kind === 'fact'
+        ? `${cap(misses)} with a wrong fact in this family.`
+        : `${cap(misses)} on this skill.`;
   return c.kind === 'method'
     ? `${cap(misses)} could come from this method; not enough to call it a finding.`
     : `${cap(misses)}.`;
