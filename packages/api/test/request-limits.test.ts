@@ -144,4 +144,12 @@ describe('photo pixels per request', () => {
     const one = await postMultipart(owner, '/api/misses', fields, photos.slice(0, 1));
     expect(one.status, one.text).toBe(201);
   });
+
+  it('leaves an empty file to the usual refusal (415), not a 500', async () => {
+    const fields = { studentId, occurredOn: '2026-03-02', problem: '12 - 5', answer: '8' };
+    const res = await postMultipart(owner, '/api/misses', fields, [
+      { name: 'a.jpg', data: Buffer.alloc(0) },
+    ]);
+    expect(res.status, res.text).toBe(415);
+  });
 });

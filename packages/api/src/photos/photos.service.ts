@@ -102,9 +102,10 @@ export class PhotosService {
   private async refuseOverPixelBudget(files: readonly UploadedPhoto[]): Promise<void> {
     let pixels = 0;
     for (const file of files) {
-      // Only the header is read; a file sharp cannot read is the pipeline's to refuse (415/422).
-      const meta = await sharp(file.buffer)
-        .metadata()
+      // Only the header is read; a file sharp cannot read (empty ones throw at once) is the
+      // pipeline's to refuse (415/422).
+      const meta = await Promise.resolve()
+        .then(() => sharp(file.buffer).metadata())
         .catch(() => undefined);
       if (meta?.width && meta.height) pixels += meta.width * meta.height;
     }
