@@ -4,7 +4,7 @@ import { useEffect, useMemo, useState } from 'react';
 import Cropper, { type Area, type MediaSize } from 'react-easy-crop';
 import 'react-easy-crop/react-easy-crop.css';
 
-import { cropPhoto, type QuarterTurn } from '../utils/crop-photo';
+import { cropPhoto, turnPhoto } from '../utils/crop-photo';
 
 type Shape = 'photo' | 'square' | 'wide' | 'tall';
 
@@ -15,13 +15,11 @@ const SHAPES: { value: Shape; label: string }[] = [
   { value: 'square', label: 'Square' },
 ];
 
-function aspectOf(shape: Shape, media: MediaSize | null, rotation: QuarterTurn): number {
+function aspectOf(shape: Shape, media: MediaSize | null): number {
   if (shape === 'square') return 1;
   if (shape === 'wide') return 4 / 3;
   if (shape === 'tall') return 3 / 4;
-  if (!media) return 4 / 3;
-  const ratio = media.naturalWidth / media.naturalHeight;
-  return rotation === 90 || rotation === 270 ? 1 / ratio : ratio;
+  return media ? media.naturalWidth / media.naturalHeight : 4 / 3;
 }
 
 function CropEditor({
@@ -33,25 +31,40 @@ function CropEditor({
   onDone: (file: File) => void;
   onClose: () => void;
 }) {
-  const url = useMemo(() => URL.createObjectURL(file), [file]);
+  // Turning redraws the photo itself, so the cropper always shows it upright and whole.
+  const [source, setSource] = useState(file);
+  const url = useMemo(() => URL.createObjectURL(source), [source]);
   useEffect(() => () => URL.revokeObjectURL(url), [url]);
   const [crop, setCrop] = useState({ x: 0, y: 0 });
   const [zoom, setZoom] = useState(1);
-  const [rotation, setRotation] = useState<QuarterTurn>(0);
   const [shape, setShape] = useState<Shape>('photo');
   const [media, setMedia] = useState<MediaSize | null>(null);
   const [area, setArea] = useState<Area | null>(null);
   const [busy, setBusy] = useState(false);
   const [error, setError] = useState<string | null>(null);
 
-  const turn = (by: 90 | -90) => setRotation((r) => ((r + by + 360) % 360) as QuarterTurn);
+  const turn = async (by: 90 | -90) => {
+    setBusy(true);
+    setError(null);
+    try {
+      setMedia(null);
+      setArea(null);
+      setCrop({ x: 0, y: 0 });
+      setZoom(1);
+      setSource(await turnPhoto(source, by));
+    } catch (e) {
+      setError(e instanceof Error ? e.message : 'The photo could not be turned.');
+    } finally {
+      setBusy(false);
+    }
+  };
 
   const apply = async () => {
     if (!area) return;
     setBusy(true);
     setError(null);
     try {
-      onDone(await cropPhoto(file, area, rotation));
+      onDone(await cropPhoto(source, area, 0));
     } catch (e) {
       setError(e instanceof Error ? e.message : 'The photo could not be changed.');
       setBusy(false);
@@ -69,8 +82,7 @@ function CropEditor({
             image={url}
             crop={crop}
             zoom={zoom}
-            rotation={rotation}
-            aspect={aspectOf(shape, media, rotation)}
+            aspect={aspectOf(shape, media)}
             maxZoom={5}
             disableAutomaticStylesInjection
             onCropChange={setCrop}
@@ -84,12 +96,14 @@ function CropEditor({
             <Button
               icon={<ImageRotateLeftIcon />}
               aria-label="Turn left"
-              onClick={() => turn(-90)}
+              disabled={busy}
+              onClick={() => void turn(-90)}
             />
             <Button
               icon={<ImageRotateRightIcon />}
               aria-label="Turn right"
-              onClick={() => turn(90)}
+              disabled={busy}
+              onClick={() => void turn(90)}
             />
           </ButtonGroup>
           <label className="wb-crop-zoom">

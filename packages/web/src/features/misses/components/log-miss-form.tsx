@@ -1,6 +1,6 @@
 import { Button, Callout, Intent, ProgressBar } from '@blueprintjs/core';
 import { RefreshIcon } from '@blueprintjs/icons';
-import { Cause, type InterviewStage, type Problem } from '@workback/core';
+import { Cause, type InterviewStage } from '@workback/core';
 import { useEffect, useState } from 'react';
 import { useController, useForm, useWatch } from 'react-hook-form';
 import { useNavigate } from 'react-router-dom';
@@ -64,7 +64,8 @@ function placeLineErrors(error: unknown): unknown {
 /** Refusals about the photos themselves: too large, not an image, unreadable. */
 const PHOTO_REFUSALS = [413, 415, 422];
 
-const KIND_WORDS: Record<Problem['kind'], string> = {
+// Keyed by text, so a kind the engine learns before this table does still reads (as "a problem").
+const KIND_WORDS: Record<string, string> = {
   addition: 'addition',
   subtraction: 'subtraction',
   multiplication: 'multiplication',
@@ -73,6 +74,9 @@ const KIND_WORDS: Record<Problem['kind'], string> = {
   missing: 'a missing number',
   'fraction-sum': 'fractions',
   'fraction-comparison': 'comparing fractions',
+  decimal: 'decimals',
+  'decimal-comparison': 'comparing decimals',
+  clock: 'telling the time',
 };
 
 function problemHelp(live: LiveDiagnosis) {
@@ -83,7 +87,7 @@ function problemHelp(live: LiveDiagnosis) {
     return (
       <>
         Read as <span className="wb-mono">{live.parsed.problem.text}</span> (
-        {KIND_WORDS[live.parsed.problem.kind]}).
+        {KIND_WORDS[live.parsed.problem.kind] ?? 'a problem'}).
       </>
     );
   }

@@ -1,9 +1,11 @@
 import { Button, FormGroup, Intent, Spinner } from '@blueprintjs/core';
 import { CameraIcon, CropIcon, CrossIcon, MediaIcon } from '@blueprintjs/icons';
-import { useEffect, useId, useMemo, useRef, useState } from 'react';
+import { lazy, Suspense, useEffect, useId, useMemo, useRef, useState } from 'react';
 
 import { preparePhotos } from '../utils/prepare-photo';
-import { CropDialog } from './crop-dialog';
+
+// The cropper (react-easy-crop) loads when a photo is first cropped, not with the form.
+const CropDialog = lazy(() => import('./crop-dialog').then((m) => ({ default: m.CropDialog })));
 
 export const MAX_PHOTOS = 4;
 export const MAX_PHOTO_BYTES = 10 * 1024 * 1024;
@@ -175,15 +177,19 @@ export function PhotoPicker({
           Preparing {preparing === 1 ? 'the photo' : `${preparing} photos`}…
         </p>
       ) : null}
-      <CropDialog
-        file={cropping === null ? null : (files[cropping] ?? null)}
-        index={cropping ?? 0}
-        onClose={() => setCropping(null)}
-        onDone={(file) => {
-          if (cropping !== null) onChange({ kind: 'replace', index: cropping, file });
-          setCropping(null);
-        }}
-      />
+      {cropping !== null ? (
+        <Suspense fallback={<Spinner size={24} aria-label="Opening the cropper" />}>
+          <CropDialog
+            file={files[cropping] ?? null}
+            index={cropping}
+            onClose={() => setCropping(null)}
+            onDone={(file) => {
+              onChange({ kind: 'replace', index: cropping, file });
+              setCropping(null);
+            }}
+          />
+        </Suspense>
+      ) : null}
     </FormGroup>
   );
 }

@@ -25,6 +25,23 @@ function toBlob(canvas: HTMLCanvasElement): Promise<Blob> {
   );
 }
 
+/** The whole photo turned a quarter to the left (-90) or right (90). */
+export async function turnPhoto(file: File, by: 90 | -90): Promise<File> {
+  const url = URL.createObjectURL(file);
+  let size: { width: number; height: number };
+  try {
+    const image = await loadImage(url);
+    size = { width: image.naturalWidth, height: image.naturalHeight };
+  } finally {
+    URL.revokeObjectURL(url);
+  }
+  return cropPhoto(
+    file,
+    { x: 0, y: 0, width: size.height, height: size.width },
+    by === 90 ? 90 : 270,
+  );
+}
+
 /**
  * The photo turned by `rotation` and cut to `area` (pixels of the turned photo), as a new JPEG
  * file. Drawn on a canvas, so it carries no metadata either.
