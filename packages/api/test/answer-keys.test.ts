@@ -187,7 +187,9 @@ describe('answer keys', () => {
     expect(res.body.message).toMatch(/^2 items have problems; nothing was saved/);
     expect(await keyCount()).toBe(before);
     const kind = await owner.post('/api/answer-keys', { title: 'x', kind: 'quiz', items: [] });
-    expect(kind.body.fields).toEqual({ kind: 'kind must be one of worksheet, review, assessment' });
+    expect(kind.body.fields).toEqual({
+      kind: 'kind must be one of worksheet, review, assessment, check-up',
+    });
   });
 
   it('checks the course and lesson the key belongs to', async () => {
