@@ -122,16 +122,6 @@ function securityHeaders(config: AppConfig, directives: typeof strictCsp) {
   const xFrameOptions = { action: 'deny' as const };
   return {
     https: helmet({
-/** Public routes that never read or write the session, and everything outside /api. */
-const SESSIONLESS = ['/api/health', '/api/docs'];
-
-export function needsSession(path: string): boolean {
-  return (
-    path.startsWith('/api/') &&
-    !SESSIONLESS.some((p) => path === p || path.startsWith(`${p}/`) || path.startsWith(`${p}-`))
-  );
-}
-
       xFrameOptions,
       strictTransportSecurity: config.env === 'production' ? undefined : false,
       contentSecurityPolicy: { directives: { ...directives, upgradeInsecureRequests: [] } },
@@ -143,6 +133,16 @@ export function needsSession(path: string): boolean {
       contentSecurityPolicy: { directives: { ...directives, upgradeInsecureRequests: null } },
     }),
   };
+}
+
+/** Public routes that never read or write the session, and everything outside /api. */
+const SESSIONLESS = ['/api/health', '/api/docs'];
+
+export function needsSession(path: string): boolean {
+  return (
+    path.startsWith('/api/') &&
+    !SESSIONLESS.some((p) => path === p || path.startsWith(`${p}/`) || path.startsWith(`${p}-`))
+  );
 }
 
 /** A signed-in session ends 12 h after sign-in however active it is (the idle limit is the cookie's). */
