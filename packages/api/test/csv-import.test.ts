@@ -240,7 +240,8 @@ describe('CSV export', () => {
     expect(res.headers['content-disposition']).toBe('attachment; filename="round-trip.csv"');
     const text = res.text;
     expect(text.startsWith(`\ufeff${HEADER}\r\n`)).toBe(true);
-    expect(text).toContain('\r\n7,47 x 24,"1,128",multiplication; partial products,10-11,\r\n');
+    expect(text).toContain('\r\n5,1300 - 522,778,subtraction; regrouping across zeros,14-15,\r\n');
+    expect(text).toContain('\r\n7,47 x 24,"1,128",multiplication; partial products,19,\r\n');
     const again = await upload(owner, text, { title: 'Round trip', kind: 'review' });
     expect(again.status, again.text).toBe(201);
     expect(plain(again.body.items)).toEqual(plain(original.body.items));
