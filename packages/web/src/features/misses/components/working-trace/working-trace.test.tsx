@@ -53,7 +53,7 @@ describe('WorkingTrace', () => {
     ]);
     expect(shadedColumn(usual())).toEqual([2]);
     expect(shadedColumn(childWorking())).toEqual([2]);
-    expect(screen.getByRole('heading', { name: 'Carry dropped' })).toBeInTheDocument();
+    expect(screen.getByRole('heading', { name: 'Carry dropped (addition)' })).toBeInTheDocument();
     expect(screen.getByText(/In the tens column the correct working gives 2/)).toBeInTheDocument();
   });
 
