@@ -6,7 +6,9 @@ import { applyFieldErrors } from '../../../components/form/apply-field-errors';
 import { FormError } from '../../../components/form/form-error';
 import { SelectField } from '../../../components/form/select-field';
 import { TextField } from '../../../components/form/text-field';
+import { YES_NO, yesNo } from '../../../components/form/yes-no';
 import { useToast } from '../../../components/toaster';
+import { localNow } from '../../../lib/local-time';
 import { useAnswerCheckUp } from '../api/answer-check-up';
 import type { CheckUp } from '../types';
 import '../check-ups.css';
@@ -18,18 +20,6 @@ type Values = {
   afterMeal: string;
   answers: string[];
 };
-
-const YES_NO = [
-  { value: '', label: 'Not noted' },
-  { value: 'yes', label: 'Yes' },
-  { value: 'no', label: 'No' },
-];
-const yesNo = (value: string) => (value === 'yes' ? true : value === 'no' ? false : null);
-
-function localNow(now = new Date()): string {
-  const pad = (n: number) => String(n).padStart(2, '0');
-  return `${now.getFullYear()}-${pad(now.getMonth() + 1)}-${pad(now.getDate())}T${pad(now.getHours())}:${pad(now.getMinutes())}`;
-}
 
 /**
  * The child's answers, one quick field per problem (Enter moves on), with when it was done

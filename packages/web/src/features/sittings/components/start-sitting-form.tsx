@@ -9,7 +9,9 @@ import { FormError } from '../../../components/form/form-error';
 import { SelectField } from '../../../components/form/select-field';
 import { TextAreaField } from '../../../components/form/text-area-field';
 import { TextField } from '../../../components/form/text-field';
+import { YES_NO, yesNo } from '../../../components/form/yes-no';
 import { useToast } from '../../../components/toaster';
+import { localNow } from '../../../lib/local-time';
 import { paths } from '../../../config/paths';
 import { isSameDayFollowUp } from '../../../lib/calm-day';
 import { useCreateSitting } from '../api/create-sitting';
@@ -29,20 +31,6 @@ type Values = {
 };
 
 const FIELDS = ['studentId', 'answerKeyId', 'startedAt', 'minutes', 'note'] as const;
-
-const YES_NO = [
-  { value: '', label: 'Not noted' },
-  { value: 'yes', label: 'Yes' },
-  { value: 'no', label: 'No' },
-];
-
-const yesNo = (value: string) => (value === 'yes' ? true : value === 'no' ? false : null);
-
-/** The local clock time now, as `YYYY-MM-DDTHH:mm` (what a datetime-local field holds). */
-export function localNow(now = new Date()): string {
-  const pad = (n: number) => String(n).padStart(2, '0');
-  return `${now.getFullYear()}-${pad(now.getMonth() + 1)}-${pad(now.getDate())}T${pad(now.getHours())}:${pad(now.getMinutes())}`;
-}
 
 /** Starts a sitting: who, which key, when and under what conditions; then on to marking. */
 export function StartSittingForm({

@@ -8,7 +8,8 @@ import type {
 
 import { rightAligned, type PaperCell, type PaperLayout, type PaperRow } from './paper';
 
-const PLACE_NAMES = [
+/** Whole-number columns, ones first. */
+export const PLACE_NAMES = [
   'ones',
   'tens',
   'hundreds',

@@ -2,6 +2,7 @@ import type { WorkingTrace } from '@workback/core';
 
 import { FractionComparisonDrawing, FractionSumDrawing } from './fractions';
 import {
+  PLACE_NAMES,
   layoutAddition,
   layoutDivision,
   layoutMultiplication,
@@ -139,26 +140,15 @@ export function TraceDrawing({ trace, label, differsPlace, answer, showCheck }: 
   }
 }
 
-const WHOLE_PLACES = [
-  'ones',
-  'tens',
-  'hundreds',
-  'thousands',
-  'ten thousands',
-  'hundred thousands',
-  'millions',
-  'ten millions',
-  'hundred millions',
-];
 const DECIMAL_PLACES = ['tenths', 'hundredths', 'thousandths', 'ten-thousandths'];
 
 /** A decimal place named as its column of the lined-up working: with 2 places, tenths → tens. */
 export function scaledPlace(place: string | null | undefined, point: number): string | null {
   if (!place) return null;
-  const whole = WHOLE_PLACES.indexOf(place);
+  const whole = PLACE_NAMES.indexOf(place);
   const decimal = DECIMAL_PLACES.indexOf(place);
   const index = whole >= 0 ? whole + point : decimal >= 0 ? point - 1 - decimal : -1;
-  return index >= 0 ? (WHOLE_PLACES[index] ?? null) : place;
+  return index >= 0 ? (PLACE_NAMES[index] ?? null) : place;
 }
 
 /** The point drawn after the ones digit of every row of figures (a 0 before it where none is written). */
