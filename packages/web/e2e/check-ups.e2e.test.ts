@@ -34,7 +34,7 @@ describe('a check-up on a phone (issue 17)', () => {
     // The demo leaves Wren's regrouping-across-zeros difficulty open: two rules explain it.
     await page.goto('/patterns');
     await page.getByRole('heading', { name: 'Patterns', exact: true }).waitFor();
-    await page.getByLabel('Student').selectOption({ label: 'Wren' });
+    await page.getByLabel('Student', { exact: true }).selectOption({ label: 'Wren' });
     const offer = page.getByText(
       'Not settled yet: a few problems can tell the explanations apart.',
     );
