@@ -91,7 +91,7 @@ describe('Log a miss: word problem', () => {
     expect(
       screen.getByText(/whether the sentences answer the question stays your call/i),
     ).toBeVisible();
-    await user.click(screen.getByRole('radio', { name: /Work it/ }));
+    await user.click(screen.getByRole('radio', { name: /“Work it”/ }));
     await user.click(screen.getByRole('button', { name: 'Save' }));
 
     await waitFor(() => expect(router.state.location.pathname).toBe('/misses/21'));
