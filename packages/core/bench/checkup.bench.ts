@@ -13,6 +13,8 @@ const OPERATIONS = [
   'rounding',
   'missing',
   'fraction',
+  'decimal',
+  'time',
 ];
 const figures: object[] = [];
 console.log('\ncheck-ups: a simulated child named after one sheet (1,000 trials, slip rate 0.05)');

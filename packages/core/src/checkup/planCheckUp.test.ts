@@ -22,6 +22,8 @@ const OPERATIONS = [
   'rounding',
   'missing',
   'fraction',
+  'decimal',
+  'time',
 ];
 
 /** Every pair of rules of one operation, as [a, b]. */
