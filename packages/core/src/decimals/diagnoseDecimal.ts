@@ -1,4 +1,3 @@
-import { addColumns } from '../addition/addColumns.js';
 import { diagnoseAddition } from '../addition/diagnoseAddition.js';
 import type { Candidate, Findings } from '../diagnose/types.js';
 import { diagnoseMultiplication } from '../multiplication/diagnoseMultiplication.js';
@@ -6,7 +5,6 @@ import { placeName, stripLeadingZeros } from '../numbers/digits.js';
 import { formatDecimal } from '../parse/parseMeasured.js';
 import type { Answer, DecimalNumber, Problem } from '../parse/types.js';
 import { diagnoseSubtraction } from '../subtraction/diagnoseSubtraction.js';
-import { subtractColumns } from '../subtraction/subtractColumns.js';
 import type { WorkingTrace } from '../trace/types.js';
 import {
   decimalOfAnswer,
@@ -207,25 +205,16 @@ function pointMatches(
   written: DecimalNumber,
   expected: string,
 ): Candidate[] {
-  const scaled = scaledOf(problem);
   return pointRuleAnswers(problem)
     .filter((r) => r.answer !== expected && sameValue(readDecimal(r.answer), written))
     .filter((r) => r.id !== 'dec.point-dropped' || written.decimals === '')
     .map((r) => ({
       ids: [r.id],
       explanation: `${POINT_WORDS[r.id] ?? ''} That gives ${r.answer} for ${problem.text}, which is ${expected}.`,
-      trace: r.id === 'dec.right-aligned' ? rightAlignedTrace(problem, scaled.places) : null,
+      // One point position cannot draw numbers lined up by their last digits: words only.
+      trace: null,
       facts: [],
     }));
-}
-
-/** The columns as the child lined them up: last digits under each other. */
-function rightAlignedTrace(problem: DecimalProblem, places: number): WorkingTrace | null {
-  const a = stripLeadingZeros(problem.left.whole + problem.left.decimals);
-  const b = stripLeadingZeros(problem.right.whole + problem.right.decimals);
-  const run =
-    problem.op === '+' ? addColumns([a, b]) : problem.op === '−' ? subtractColumns(a, b) : null;
-  return run === null ? null : { ...run.trace, point: places };
 }
 
 /**

@@ -16,6 +16,8 @@ interface Cell {
   readonly struck?: boolean;
   /** Small values written above, in order; all but the last crossed out. */
   readonly above?: readonly string[];
+  /** A decimal point written after it, on the line between this square and the next. */
+  readonly point?: boolean;
 }
 
 /** Rows of cells, right-aligned, with rules under some rows; `place` names columns from the right. */
@@ -42,6 +44,30 @@ function row(cells: Cell[], width: number, shift = 0, sign?: string): (Cell | nu
 
 /** The trace as a sheet of squared paper, or null when it is not a column layout. */
 function sheetOf(trace: WorkingTrace): Sheet | null {
+  const sheet = columnsOf(trace);
+  const point = 'point' in trace ? (trace.point ?? 0) : 0;
+  return sheet === null || point === 0 ? sheet : withPoint(sheet, point);
+}
+
+/**
+ * Decimals are worked on lined-up columns with the point set aside: it goes back after the
+ * ones square of every row of figures (a 0 written there when the row has no ones digit).
+ */
+function withPoint(sheet: Sheet, point: number): Sheet {
+  return {
+    ...sheet,
+    rows: sheet.rows.map((cells) => {
+      if (!cells.some((c) => c !== null && /\d/.test(c.text))) return cells;
+      const at = cells.length - 1 - point;
+      const out = cells.slice();
+      const ones = out[at];
+      out[at] = ones && ones.text !== '' ? { ...ones, point: true } : { text: '0', point: true };
+      return out;
+    }),
+  };
+}
+
+function columnsOf(trace: WorkingTrace): Sheet | null {
   switch (trace.kind) {
     case 'column-addition': {
       const width =
@@ -189,6 +215,11 @@ export function drawWorking(
           .text(cell.text, cx + (CELL - w) / 2, cy + (CELL - DIGIT) / 2 + 0.5, {
             lineBreak: false,
           });
+        if (cell.point)
+          doc
+            .circle(cx + CELL, cy + CELL - 3, 1.2)
+            .fillColor(color)
+            .fill();
         if (cell.struck)
           doc
             .save()
