@@ -46,7 +46,9 @@ export function checkByResidues(problem: Problem, answer: Answer, modulus: 9 | 1
       'Digit checks here are for whole numbers; check a decimal answer by estimating (4.5 + 2.25 is about 7).',
     );
   if (problem.kind === 'clock')
-    return notApplicable('Digit checks do not work on hours and minutes; count on the clock instead.');
+    return notApplicable(
+      'Digit checks do not work on hours and minutes; count on the clock instead.',
+    );
 
   if (problem.kind === 'division') {
     let q: string;
