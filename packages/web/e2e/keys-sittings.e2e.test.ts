@@ -110,10 +110,10 @@ describe('answer keys and sittings', () => {
 
       // On a phone: start a sitting of the imported key and mark it.
       await page.setViewportSize(PHONE);
-      await page
-        .getByRole('navigation', { name: 'Main (phone)' })
-        .getByRole('link', { name: 'Sittings' })
-        .click();
+      // Sittings sit behind "More" on the phone bar (issue 12 §6).
+      const phoneNav = page.getByRole('navigation', { name: 'Main (phone)' });
+      await phoneNav.getByRole('button', { name: 'More' }).click();
+      await phoneNav.getByRole('link', { name: 'Sittings' }).click();
       await page.getByRole('heading', { name: 'Sittings', exact: true }).waitFor();
       await page.getByRole('link', { name: 'Start a sitting' }).click();
       await page.getByRole('heading', { name: 'Start a sitting', exact: true }).waitFor();

@@ -44,7 +44,7 @@ describe('logging a miss on a phone', () => {
     await page.getByLabel('The child’s answer').fill('61');
     // The engine runs in the browser: the diagnosis appears while typing, before any save.
     await page.getByText('Checked: the usual working gives 43.').waitFor();
-    await page.getByRole('heading', { name: 'Carry reversed', exact: true }).waitFor();
+    await page.getByRole('heading', { name: 'Carry reversed (addition)', exact: true }).waitFor();
     const usual = page.getByRole('table', { name: 'The usual working' });
     expect(await usual.locator('tr').last().innerText()).toMatch(/4\s*3/);
     expect(await page.getByRole('radio', { name: /Method step/ }).isChecked()).toBe(true);
@@ -95,7 +95,7 @@ describe('logging a miss on a phone', () => {
     await phoneNav(page).getByRole('link', { name: 'Notebook' }).click();
     await page.getByRole('heading', { name: 'Notebook', exact: true }).waitFor();
     await page.getByRole('button', { name: 'More filters' }).click();
-    await page.getByLabel('Step error').selectOption({ label: 'Carry reversed' });
+    await page.getByLabel('Step error').selectOption({ label: 'Carry reversed (addition)' });
     await page.waitForURL(/rule=add\.carry-reversed/);
     const cards = page.getByRole('list', { name: 'Misses' });
     // The list is only the one miss once the server has answered the filtered query.

@@ -1,6 +1,6 @@
 import { Button, FormGroup, HTMLSelect, InputGroup } from '@blueprintjs/core';
 import { FilterIcon, SearchIcon } from '@blueprintjs/icons';
-import { CAUSE_GUIDE, CAUSES, MISS_STATUSES, RULES } from '@workback/core';
+import { CAUSE_GUIDE, CAUSES, MISS_STATUSES, RULES, ruleName } from '@workback/core';
 import { useEffect, useState } from 'react';
 
 import { SORTS, type FilterParams } from '../hooks/use-notebook-filters';
@@ -162,7 +162,7 @@ export function NotebookFilters({
             value={value('rule')}
             options={[
               { value: '', label: 'Any step error' },
-              ...RULES.map((r) => ({ value: r.id, label: r.title })),
+              ...RULES.map((r) => ({ value: r.id, label: ruleName(r.id) })),
             ]}
             onChange={(rule) => set({ rule })}
           />
