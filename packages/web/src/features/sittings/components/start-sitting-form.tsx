@@ -9,6 +9,7 @@ import { FormError } from '../../../components/form/form-error';
 import { SelectField } from '../../../components/form/select-field';
 import { TextAreaField } from '../../../components/form/text-area-field';
 import { TextField } from '../../../components/form/text-field';
+import { validMinutes } from '../../../components/form/minutes-taken';
 import { YES_NO, yesNo } from '../../../components/form/yes-no';
 import { useToast } from '../../../components/toaster';
 import { localNow } from '../../../lib/local-time';
@@ -156,12 +157,7 @@ export function StartSittingForm({
           label="Minutes taken (optional)"
           inputMode="numeric"
           autoComplete="off"
-          registration={register('minutes', {
-            validate: (value) =>
-              value.trim() === '' ||
-              (/^\d{1,3}$/.test(value.trim()) && Number(value) >= 1 && Number(value) <= 600) ||
-              'Whole minutes, 1 to 600, or leave it empty.',
-          })}
+          registration={register('minutes', { validate: validMinutes })}
           error={errors.minutes?.message}
         />
       </Card>
