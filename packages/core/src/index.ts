@@ -3,10 +3,12 @@ export { Role, ROLES, EDITOR_ROLES, isRole } from './domain/roles.js';
 export { Cause, CAUSES, CAUSE_GUIDE, isCause } from './domain/causes.js';
 export { MissStatus, MISS_STATUSES, MISS_STATUS_LABEL, isMissStatus } from './domain/statuses.js';
 export { GRADE_LEVELS, isGradeLevel } from './domain/grades.js';
+export { MissKind, MISS_KINDS, MISS_KIND_LABEL, isMissKind } from './domain/missKinds.js';
 
 // Parsing
 export { parseProblem } from './parse/parseProblem.js';
 export { parseAnswer } from './parse/parseAnswer.js';
+export { missKindOf } from './parse/missKindOf.js';
 export type {
   Problem,
   ProblemKind,
@@ -110,6 +112,8 @@ export type {
 export { checkLines } from './lines/checkLines.js';
 export type { CheckedLine, CheckedLines } from './lines/checkLines.js';
 export { InterviewStage, INTERVIEW_STAGES } from './lines/stages.js';
+export { suggestStageCause } from './lines/suggestStageCause.js';
+export type { StageSuggestion } from './lines/suggestStageCause.js';
 
 // Patterns across a student's misses
 export { computePatterns } from './patterns/computePatterns.js';
