@@ -57,11 +57,17 @@ export async function prepareFamilies(env: Record<string, string>): Promise<Fami
   try {
     const sequelize = app.get<Sequelize>(getConnectionToken());
     const started = Date.now();
-    await fillFamilies(sequelize, {
-      households: HOUSEHOLDS,
-      misses: MISSES_EACH,
-      diagnosed: MEMBERS,
-    });
+    // A kept BENCH_DATA_DIR already holds the families from an earlier run.
+    const [filled] = (await sequelize.query(
+      "SELECT COUNT(*) AS n FROM users WHERE email = 'family-1@workback.test'",
+    )) as [{ n: number | string }[], unknown];
+    if (Number(filled[0]!.n) === 0) {
+      await fillFamilies(sequelize, {
+        households: HOUSEHOLDS,
+        misses: MISSES_EACH,
+        diagnosed: MEMBERS,
+      });
+    }
     const q = async <T>(sql: string, replacements: unknown[] = []) =>
       (await sequelize.query(sql, { replacements }))[0] as T[];
     const [counts] = await q<Record<string, number>>(
@@ -273,7 +279,11 @@ async function runAt(base: string, rate: number, requests: () => Request[], tag:
  * overallRate), each for BENCH_RATE_SECONDS.
  */
 export async function benchManyFamilies(): Promise<void> {
-  const dataDir = mkdtempSync(path.join(tmpdir(), 'workback-bench-'));
+  // BENCH_DATA_DIR keeps the filled database between runs (it is not removed at the end).
+  const kept = process.env.BENCH_DATA_DIR;
+  const dataDir = kept || mkdtempSync(path.join(tmpdir(), 'workback-bench-'));
+  // BENCH_CPU_PROF_DIR: the server writes a .cpuprofile there when it stops.
+  const profileDir = process.env.BENCH_CPU_PROF_DIR;
   const env = {
     NODE_ENV: 'production',
     DATA_DIR: dataDir,
@@ -288,7 +298,10 @@ export async function benchManyFamilies(): Promise<void> {
   const today = new Date().toISOString().slice(0, 10);
   try {
     const families = await prepareFamilies(env);
-    const server = await startServerProcess(env);
+    const server = await startServerProcess(
+      env,
+      profileDir ? ['--cpu-prof', `--cpu-prof-dir=${profileDir}`] : [],
+    );
     try {
       const members: Member[] = [];
       for (const f of families) members.push({ ...f, ...(await signIn(server.url, f.email)) });
@@ -365,6 +378,6 @@ export async function benchManyFamilies(): Promise<void> {
       await server.exited;
     }
   } finally {
-    rmSync(dataDir, { recursive: true, force: true });
+    if (!kept) rmSync(dataDir, { recursive: true, force: true });
   }
 }

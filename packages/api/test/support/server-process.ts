@@ -10,11 +10,23 @@ export interface ServerProcess {
   exited: Promise<{ code: number | null; signal: NodeJS.Signals | null }>;
 }
 
-/** The real server (src/main.ts through swc-node) as its own process, on a free port. */
-export async function startServerProcess(env: Record<string, string>): Promise<ServerProcess> {
+/**
+ * The real server (src/main.ts through swc-node) as its own process, on a free port.
+ * `nodeArgs` go before the script (a bench passes `--cpu-prof`, which NODE_OPTIONS refuses).
+ */
+export async function startServerProcess(
+  env: Record<string, string>,
+  nodeArgs: readonly string[] = [],
+): Promise<ServerProcess> {
   const child = spawn(
     process.execPath,
-    ['--conditions=workback-source', '--import', '@swc-node/register/esm-register', 'src/main.ts'],
+    [
+      ...nodeArgs,
+      '--conditions=workback-source',
+      '--import',
+      '@swc-node/register/esm-register',
+      'src/main.ts',
+    ],
     {
       cwd: apiRoot,
       // DATABASE_URL only when the test gives one: process.env may hold the last test app's.
