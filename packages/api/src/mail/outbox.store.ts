@@ -1,7 +1,7 @@
 import { randomBytes } from 'node:crypto';
 import { mkdir, readdir, readFile, writeFile } from 'node:fs/promises';
 import path from 'node:path';
-import { parseMail } from './mime.js';
+import { simpleParser } from 'mailparser';
 
 export interface OutboxItem {
   id: string;
@@ -22,19 +22,23 @@ export class OutboxStore {
 
   async save(raw: Buffer, recipients: string[]): Promise<OutboxItem> {
     await mkdir(this.dir, { recursive: true, mode: 0o700 });
-    const mail = parseMail(raw);
+    const mail = await simpleParser(raw, { skipTextToHtml: true, skipTextLinks: true });
     const now = new Date();
     const id = `${now.getTime().toString().padStart(15, '0')}-${randomBytes(4).toString('hex')}`;
     const item: OutboxItem = {
       id,
-      from: mail.from,
+      from: mail.from?.text ?? '',
       to: recipients.join(', '),
-      subject: mail.subject,
-      text: mail.text,
-      html: mail.html,
-      attachments: mail.attachments,
-      links: linksIn(mail.text),
-      messageId: mail.messageId,
+      subject: mail.subject ?? '',
+      text: mail.text ?? '',
+      html: mail.html || '',
+      attachments: mail.attachments.map((a) => ({
+        filename: a.filename ?? 'unnamed',
+        contentType: a.contentType,
+        size: a.size,
+      })),
+      links: linksIn(mail.text ?? ''),
+      messageId: mail.messageId ?? '',
       sentAt: now.toISOString(),
     };
     await writeFile(path.join(this.dir, `${id}.eml`), raw, { mode: 0o600 });
