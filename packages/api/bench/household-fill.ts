@@ -156,41 +156,90 @@ export interface FamiliesOptions {
   diagnosed: number;
 }
 
+/** Tables whose copies get ids worked out from each copy's number (PostgreSQL: sequences moved on). */
+const NUMBERED = [
+  'households',
+  'users',
+  'memberships',
+  'students',
+  'answer_keys',
+  'key_items',
+  'sittings',
+  'misses',
+  'review_plans',
+  'review_plan_items',
+];
+
+/**
+ * What differs between SQLite's SQL and PostgreSQL's in the fill: the list of a table's
+ * columns, a series of whole numbers, the clock, and going back a number of days.
+ */
+function dialectOf(sequelize: Sequelize) {
+  const postgres = sequelize.getDialect() === 'postgres';
+  return {
+    postgres,
+    columns: postgres
+      ? (table: string) =>
+          `SELECT column_name AS name FROM information_schema.columns
+           WHERE table_schema = current_schema() AND table_name = '${table}' ORDER BY ordinal_position`
+      : (table: string) => `PRAGMA table_info(${table})`,
+    /** Rows 0 … n−1 in a column named `name`. */
+    series: postgres
+      ? (name: string, n: number) => `SELECT generate_series(0, ${n - 1}) AS ${name}`
+      : (name: string, n: number) =>
+          `WITH RECURSIVE s(${name}) AS (SELECT 0 UNION ALL SELECT ${name} + 1 FROM s
+           WHERE ${name} < ${n - 1}) SELECT ${name} FROM s`,
+    now: postgres ? 'now()' : `datetime('now')`,
+    daysBefore: postgres
+      ? (date: string, days: string) => `(${date} - (${days}))`
+      : (date: string, days: string) => `date(${date}, '-' || (${days}) || ' days')`,
+  };
+}
+
 /**
  * Many households, each a copy of the demo household made by the app's services: its owner
  * (`family-N@workback.test`, the demo password), its students, answer keys and key items,
  * sittings and marks, `misses` misses (the demo's, repeated in turn) with their rules and photo
  * rows (keys renamed, since each row names its own file), and its review plan with its items.
  * Pure SQL with ids worked out from each copy's number, so 600,000 misses take a minute, not
- * hours. SQLite's SQL (date and string functions); run inside one transaction.
+ * hours. SQLite's or PostgreSQL's SQL, whichever the connection speaks; one transaction.
  */
 export async function fillFamilies(sequelize: Sequelize, o: FamiliesOptions): Promise<void> {
+  const d = dialectOf(sequelize);
   await sequelize.transaction(async (transaction) => {
     const run = async <T = Record<string, number>>(
       sql: string,
       replacements: Record<string, unknown> = {},
     ) => ((await sequelize.query(sql, { transaction, replacements })) as [T[], unknown])[0];
     const one = async (sql: string, r: Record<string, unknown> = {}) =>
-      Object.values((await run(sql, r))[0] ?? {})[0] as number;
+      Number(Object.values((await run(sql, r))[0] ?? {})[0]);
+    /** A temporary table; PostgreSQL gets its row counts at once (autovacuum skips them). */
+    const temp = async (name: string, sql: string) => {
+      await run(`CREATE TEMP TABLE ${name} AS ${sql}`);
+      if (d.postgres) await run(`ANALYZE ${name}`);
+    };
     const columns = async (table: string) =>
-      (await run<{ name: string }>(`PRAGMA table_info(${table})`)).map((c) => c.name);
-    /** INSERT INTO table (every column) SELECT each column from `t`, or its override. */
+      (await run<{ name: string }>(d.columns(table))).map((c) => c.name);
+    /**
+     * INSERT INTO table (every column) SELECT each column from `t`, or its override; a column
+     * set to null is left out, for the database to number.
+     */
     const copy = async (
       table: string,
       from: string,
-      set: Record<string, string>,
+      set: Record<string, string | null>,
       r: Record<string, unknown> = {},
     ) => {
-      const cols = await columns(table);
+      const cols = (await columns(table)).filter((c) => set[c] !== null);
       await run(
-        `INSERT INTO ${table} (${cols.join(', ')}) SELECT ${cols
-          .map((c) => set[c] ?? `t.${c}`)
+        `INSERT INTO ${table} (${cols.map((c) => `"${c}"`).join(', ')}) SELECT ${cols
+          .map((c) => set[c] ?? `t."${c}"`)
           .join(', ')} ${from}`,
         r,
       );
     };
     const [demo] = await run<{ household: number; user: number }>(
-      `SELECT m.household_id AS household, u.id AS user FROM users u
+      `SELECT m.household_id AS household, u.id AS "user" FROM users u
        JOIN memberships m ON m.user_id = u.id WHERE u.email = 'parent@workback.test'`,
     );
     const h = demo!.household;
@@ -209,12 +258,10 @@ export async function fillFamilies(sequelize: Sequelize, o: FamiliesOptions): Pr
     };
     const n = o.households;
     const per = o.misses;
-    await run(`CREATE TEMP TABLE k AS WITH RECURSIVE s(k) AS (SELECT 0 UNION ALL
-      SELECT k + 1 FROM s WHERE k < ${n - 1}) SELECT k FROM s`);
+    await temp('k', d.series('k', n));
     // Each demo row's rank, and from it the id of its copy in household k.
     const rank = async (name: string, sql: string) => {
-      await run(`CREATE TEMP TABLE ${name} AS SELECT row_number() OVER (ORDER BY id) - 1 AS rn,
-        id FROM (${sql})`);
+      await temp(name, `SELECT row_number() OVER (ORDER BY id) - 1 AS rn, id FROM (${sql}) AS src`);
       return one(`SELECT COUNT(*) FROM ${name}`);
     };
     const S = await rank('d_students', `SELECT id FROM students WHERE household_id = ${h}`);
@@ -231,31 +278,33 @@ export async function fillFamilies(sequelize: Sequelize, o: FamiliesOptions): Pr
       `SELECT id FROM review_plan_items WHERE plan_id IN (SELECT id FROM d_plans)`,
     );
     const map = (name: string, ranks: string, b0: number, size: number) =>
-      run(`CREATE TEMP TABLE ${name} AS SELECT k.k, d.id AS old, ${b0} + k.k * ${size} + d.rn + 1
-        AS new FROM k, ${ranks} d`);
+      temp(
+        name,
+        `SELECT k.k, d.id AS old, ${b0} + k.k * ${size} + d.rn + 1 AS new FROM k, ${ranks} d`,
+      );
     await map('m_students', 'd_students', b.student, S);
     await map('m_keys', 'd_keys', b.key, K);
     await map('m_items', 'd_items', b.item, I);
     await map('m_sittings', 'd_sittings', b.sitting, T);
     await map('m_plans', 'd_plans', b.plan, P);
     await map('m_plan_items', 'd_plan_items', b.planItem, PI);
-    await run(`CREATE TEMP TABLE m_misses AS WITH RECURSIVE j(j) AS (SELECT 0 UNION ALL
-      SELECT j + 1 FROM j WHERE j < ${per - 1})
+    await run(`CREATE TEMP TABLE m_misses AS WITH j AS (${d.series('j', per)})
       SELECT k.k, j.j, d.id AS old, ${b.miss} + k.k * ${per} + j.j + 1 AS new
       FROM k, j JOIN d_misses d ON d.rn = j.j % ${M}`);
     await run('CREATE INDEX m_misses_old ON m_misses (old)');
+    if (d.postgres) await run('ANALYZE m_misses');
     const hh = `${b.household} + k.k + 1`;
     const uu = `${b.user} + k.k + 1`;
 
     await run(`INSERT INTO households (id, name, created_at, updated_at)
-      SELECT ${hh}, 'Family ' || (k.k + 1), datetime('now'), datetime('now') FROM k`);
+      SELECT ${hh}, 'Family ' || (k.k + 1), ${d.now}, ${d.now} FROM k`);
     await copy('users', `FROM k, users t WHERE t.id = ${demo!.user}`, {
       id: uu,
       email: `'family-' || (k.k + 1) || '@workback.test'`,
       display_name: `'Parent ' || (k.k + 1)`,
     });
     await run(`INSERT INTO memberships (id, household_id, user_id, role, created_at, updated_at)
-      SELECT ${b.membership} + k.k + 1, ${hh}, ${uu}, 'owner', datetime('now'), datetime('now')
+      SELECT ${b.membership} + k.k + 1, ${hh}, ${uu}, 'owner', ${d.now}, ${d.now}
       FROM k`);
     await copy('students', 'FROM m_students m JOIN students t ON t.id = m.old', {
       id: 'm.new',
@@ -287,8 +336,16 @@ export async function fillFamilies(sequelize: Sequelize, o: FamiliesOptions): Pr
       'sitting_marks',
       `FROM m_sittings m JOIN sitting_marks t ON t.sitting_id = m.old
        JOIN m_items i ON i.old = t.key_item_id AND i.k = m.k`,
-      { id: 'NULL', sitting_id: 'm.new', key_item_id: 'i.new' },
+      { id: null, sitting_id: 'm.new', key_item_id: 'i.new' },
     );
+    // PostgreSQL: the two trigram indexes are built once over all the rows, not row by row.
+    const search = d.postgres
+      ? await run<{ name: string; def: string }>(
+          `SELECT indexname AS name, indexdef AS def FROM pg_indexes
+           WHERE schemaname = current_schema() AND tablename = 'misses' AND indexdef LIKE '%gin_trgm_ops%'`,
+        )
+      : [];
+    for (const index of search) await run(`DROP INDEX "${index.name}"`);
     await copy(
       'misses',
       `FROM m_misses m JOIN misses t ON t.id = m.old
@@ -300,7 +357,7 @@ export async function fillFamilies(sequelize: Sequelize, o: FamiliesOptions): Pr
         household_id: `${b.household} + m.k + 1`,
         student_id: 's.new',
         // The demo's misses again, a week further back each time round.
-        occurred_on: `date(t.occurred_on, '-' || (7 * (m.j / ${M})) || ' days')`,
+        occurred_on: d.daysBefore('t.occurred_on', `7 * (m.j / ${M})`),
         sitting_id: 'st.new',
         key_item_id: 'i.new',
         idempotency_key: 'NULL',
@@ -309,6 +366,7 @@ export async function fillFamilies(sequelize: Sequelize, o: FamiliesOptions): Pr
         updated_by: `${b.user} + m.k + 1`,
       },
     );
+    for (const index of search) await run(index.def);
     await run(`INSERT INTO miss_rules (miss_id, rule_id, household_id)
       SELECT m.new, t.rule_id, ${b.household} + m.k + 1 FROM m_misses m
       JOIN miss_rules t ON t.miss_id = m.old`);
@@ -316,7 +374,7 @@ export async function fillFamilies(sequelize: Sequelize, o: FamiliesOptions): Pr
       SELECT m.new, t.diagnosis FROM m_misses m JOIN miss_diagnoses t ON t.miss_id = m.old
       WHERE m.k < ${o.diagnosed}`);
     await copy('photos', 'FROM m_misses m JOIN photos t ON t.miss_id = m.old', {
-      id: 'NULL',
+      id: null,
       miss_id: 'm.new',
       storage_key: `t.storage_key || '.' || m.new`,
       thumb_key: `t.thumb_key || '.' || m.new`,
@@ -337,6 +395,14 @@ export async function fillFamilies(sequelize: Sequelize, o: FamiliesOptions): Pr
       SELECT i.new, mm.new FROM review_plan_item_misses t
       JOIN m_plan_items i ON i.old = t.item_id
       JOIN m_misses mm ON mm.old = t.miss_id AND mm.k = i.k AND mm.j < ${M}`);
+    // PostgreSQL numbers new rows from a sequence, which the ids given here did not move.
+    if (d.postgres) {
+      for (const table of NUMBERED) {
+        await run(
+          `SELECT setval(pg_get_serial_sequence('${table}', 'id'), (SELECT MAX(id) FROM ${table}))`,
+        );
+      }
+    }
     for (const t of [
       'k',
       'd_students',

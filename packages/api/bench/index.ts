@@ -6,6 +6,12 @@ import { benchPhotoPipeline } from './photo-pipeline.bench.js';
 
 // Figures only; not part of `npm test`. `npm run bench -w packages/api -- photos|request|load|families`
 // runs one; BENCH_DURATION=5 BENCH_MISSES=20000 for a quick load run.
+// A DATABASE_URL in the shell names the server the many-families run makes its throwaway
+// PostgreSQL database on (bench/postgres.ts); every other bench, and the SQLite runs, stay on SQLite.
+if (process.env.DATABASE_URL) {
+  process.env.BENCH_DATABASE_URL ??= process.env.DATABASE_URL;
+  delete process.env.DATABASE_URL;
+}
 const only = process.argv[2];
 if (!only || only === 'photos') await benchPhotoPipeline();
 if (!only || only === 'request') await benchPerRequest();

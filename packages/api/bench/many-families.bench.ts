@@ -7,8 +7,9 @@ import sharp from 'sharp';
 import type { Sequelize } from 'sequelize-typescript';
 import { createApp } from '../src/app.factory.js';
 import { startServerProcess } from '../test/support/server-process.js';
-import { report } from './figures.js';
+import { type Figure, report } from './figures.js';
 import { fillFamilies } from './household-fill.js';
+import { throwawayDatabase } from './postgres.js';
 import { type Session, signIn } from './sign-in.js';
 import { percentile, table } from './stats.js';
 
@@ -78,7 +79,7 @@ export async function prepareFamilies(env: Record<string, string>): Promise<Fami
     console.log(
       `\nbuilt ${HOUSEHOLDS.toLocaleString('en')} more households in ${((Date.now() - started) / 1000).toFixed(0)} s: ` +
         Object.entries(counts!)
-          .map(([k, v]) => `${v.toLocaleString('en')} ${k}`)
+          .map(([k, v]) => `${Number(v).toLocaleString('en')} ${k}`)
           .join(', '),
     );
     const families: Family[] = [];
@@ -101,18 +102,21 @@ export async function prepareFamilies(env: Record<string, string>): Promise<Fami
         'SELECT id FROM review_plans WHERE household_id = ? LIMIT 1',
         [h],
       );
-      const [sitting] = await q<{ id: number; items: string }>(
-        `SELECT s.id, group_concat(k.key_item_id) AS items FROM sittings s
-         JOIN sitting_marks k ON k.sitting_id = s.id WHERE s.household_id = ?
-         GROUP BY s.id ORDER BY s.id LIMIT 1`,
+      const [sitting] = await q<{ id: number }>(
+        `SELECT s.id FROM sittings s WHERE s.household_id = ?
+         AND EXISTS (SELECT 1 FROM sitting_marks k WHERE k.sitting_id = s.id) ORDER BY s.id LIMIT 1`,
         [h],
+      );
+      const marks = await q<{ id: number }>(
+        'SELECT key_item_id AS id FROM sitting_marks WHERE sitting_id = ? ORDER BY key_item_id',
+        [sitting!.id],
       );
       families.push({
         email,
         students: students.map((s) => s.id),
         missIds: range!,
         planId: plan!.id,
-        sitting: { id: sitting!.id, keyItemIds: sitting!.items.split(',').map(Number) },
+        sitting: { id: sitting!.id, keyItemIds: marks.map((k) => k.id) },
       });
     }
     return families;
@@ -273,12 +277,20 @@ async function runAt(base: string, rate: number, requests: () => Request[], tag:
   return { result: await instance, byKind };
 }
 
-/**
- * Many families on one machine: HOUSEHOLDS households of MISSES_EACH misses each, MEMBERS of
- * them signed in, an open-loop mix at each offered rate of BENCH_RATES (autocannon's
- * overallRate), each for BENCH_RATE_SECONDS.
- */
-export async function benchManyFamilies(): Promise<void> {
+type RateResult = {
+  rate: number;
+  result: Result;
+  byKind: Map<Kind, { times: number[]; failed: number }>;
+};
+
+/** SQLite in DATA_DIR, or PostgreSQL behind DATABASE_URL: the same fill, server and mix. */
+interface Database {
+  name: 'SQLite' | 'PostgreSQL';
+  env: Record<string, string>;
+}
+
+/** One database's run: the fill, the sign-ins, then the mix at each offered rate. */
+async function familiesOn(db: Database): Promise<RateResult[]> {
   // BENCH_DATA_DIR keeps the filled database between runs (it is not removed at the end).
   const kept = process.env.BENCH_DATA_DIR;
   const dataDir = kept || mkdtempSync(path.join(tmpdir(), 'workback-bench-'));
@@ -294,8 +306,11 @@ export async function benchManyFamilies(): Promise<void> {
     // Production refuses to start without them; nothing is mailed during the bench.
     SMTP_URL: 'smtp://127.0.0.1:9',
     PUBLIC_URL: 'http://localhost',
+    DATABASE_URL: '',
+    ...db.env,
   };
   const today = new Date().toISOString().slice(0, 10);
+  console.log(`\nmany families on ${db.name}:`);
   try {
     const families = await prepareFamilies(env);
     const server = await startServerProcess(
@@ -307,12 +322,7 @@ export async function benchManyFamilies(): Promise<void> {
       for (const f of families) members.push({ ...f, ...(await signIn(server.url, f.email)) });
       const { photo } = await photoForm();
       let last: Kind = 'L';
-      const rows: Record<string, string | number>[] = [];
-      const results: {
-        rate: number;
-        result: Result;
-        byKind: Map<Kind, { times: number[]; failed: number }>;
-      }[] = [];
+      const results: RateResult[] = [];
       for (const rate of RATES) {
         const { result, byKind } = await runAt(
           server.url,
@@ -321,58 +331,12 @@ export async function benchManyFamilies(): Promise<void> {
           () => last,
         );
         results.push({ rate, result, byKind });
-        const failures = result.errors + result.timeouts + result.non2xx;
-        rows.push({
-          offered: rate,
-          'answered/s': Math.round(result.requests.average),
-          'p50 ms': result.latency.p50,
-          'p99 ms': result.latency.p99,
-          'errors + non-2xx': failures,
-          ...Object.fromEntries(
-            [...byKind].map(([k, s]) => [
-              `${k} p99`,
-              Math.round(
-                percentile(
-                  [...s.times].sort((a, b) => a - b),
-                  99,
-                ),
-              ),
-            ]),
-          ),
-        });
+        console.log(
+          `  ${rate} req/s offered: p99 ${result.latency.p99} ms, ` +
+            `${result.errors + result.timeouts + result.non2xx} errors + non-2xx`,
+        );
       }
-      table(
-        `many families: ${HOUSEHOLDS.toLocaleString('en')} households × ${MISSES_EACH} misses, ${MEMBERS} signed in, ${SECONDS} s per offered rate (req/s); p99 per kind: ${Object.entries(
-          KINDS,
-        )
-          .map(([k, v]) => `${k} ${v}`)
-          .join(', ')}`,
-        rows,
-      );
-      const passes = (r: (typeof results)[number]) =>
-        r.result.latency.p99 <= TARGET_P99_MS &&
-        r.result.errors + r.result.timeouts + r.result.non2xx === 0;
-      const best = Math.max(0, ...results.filter(passes).map((r) => r.rate));
-      const at100 = results.find((r) => r.rate === 100);
-      report([
-        {
-          area: 'many families',
-          measure: `highest offered req/s with p99 ≤ ${TARGET_P99_MS} ms and 0 errors`,
-          value: best ? `${best}` : `none of ${RATES.join(', ')}`,
-          target: `≥ ${TARGET_RATE}`,
-          met: best >= TARGET_RATE,
-        },
-        {
-          area: 'many families',
-          measure: 'p99 at 100 req/s offered',
-          value: at100 ? `${at100.result.latency.p99} ms` : 'not run',
-        },
-        {
-          area: 'many families',
-          measure: 'households × misses, members signed in',
-          value: `${HOUSEHOLDS} × ${MISSES_EACH}, ${MEMBERS}`,
-        },
-      ]);
+      return results;
     } finally {
       server.child.kill('SIGTERM');
       await server.exited;
@@ -380,4 +344,98 @@ export async function benchManyFamilies(): Promise<void> {
   } finally {
     if (!kept) rmSync(dataDir, { recursive: true, force: true });
   }
+}
+
+function row(database: string, { rate, result, byKind }: RateResult) {
+  return {
+    database,
+    offered: rate,
+    'answered/s': Math.round(result.requests.average),
+    'p50 ms': result.latency.p50,
+    'p99 ms': result.latency.p99,
+    'errors + non-2xx': result.errors + result.timeouts + result.non2xx,
+    ...Object.fromEntries(
+      [...byKind].map(([k, s]) => [
+        `${k} p99`,
+        Math.round(
+          percentile(
+            [...s.times].sort((a, b) => a - b),
+            99,
+          ),
+        ),
+      ]),
+    ),
+  };
+}
+
+function figuresOf(database: string, results: RateResult[]): Figure[] {
+  const passes = (r: RateResult) =>
+    r.result.latency.p99 <= TARGET_P99_MS &&
+    r.result.errors + r.result.timeouts + r.result.non2xx === 0;
+  const best = Math.max(0, ...results.filter(passes).map((r) => r.rate));
+  const at100 = results.find((r) => r.rate === 100);
+  const area = `many families, ${database}`;
+  return [
+    {
+      area,
+      measure: `highest offered req/s with p99 ≤ ${TARGET_P99_MS} ms and 0 errors`,
+      value: best ? `${best}` : `none of ${RATES.join(', ')}`,
+      target: `≥ ${TARGET_RATE}`,
+      met: best >= TARGET_RATE,
+    },
+    {
+      area,
+      measure: 'p99 at 100 req/s offered',
+      value: at100 ? `${at100.result.latency.p99} ms` : 'not run',
+    },
+  ];
+}
+
+/**
+ * Many families on one machine: HOUSEHOLDS households of MISSES_EACH misses each, MEMBERS of
+ * them signed in, an open-loop mix at each offered rate of BENCH_RATES (autocannon's
+ * overallRate), each for BENCH_RATE_SECONDS — on SQLite, then on PostgreSQL in a throwaway
+ * database on the server BENCH_DATABASE_URL, TEST_DATABASE_URL or DATABASE_URL names (skipped,
+ * saying so, without one). BENCH_FAMILY_DATABASES=sqlite or =postgres runs one of them.
+ */
+export async function benchManyFamilies(): Promise<void> {
+  const wanted = (process.env.BENCH_FAMILY_DATABASES ?? 'sqlite,postgres').toLowerCase().split(',');
+  const rows: ReturnType<typeof row>[] = [];
+  const figures: Figure[] = [];
+  if (wanted.includes('sqlite')) {
+    const results = await familiesOn({ name: 'SQLite', env: {} });
+    rows.push(...results.map((r) => row('SQLite', r)));
+    figures.push(...figuresOf('SQLite', results));
+  }
+  if (wanted.includes('postgres')) {
+    const pg = await throwawayDatabase('workback_bench');
+    if ('skipped' in pg) {
+      console.log(`\nmany families on PostgreSQL: skipped — ${pg.skipped}`);
+      figures.push({ area: 'many families, PostgreSQL', measure: 'skipped', value: pg.skipped });
+    } else {
+      try {
+        const results = await familiesOn({ name: 'PostgreSQL', env: { DATABASE_URL: pg.url } });
+        rows.push(...results.map((r) => row('PostgreSQL', r)));
+        figures.push(...figuresOf('PostgreSQL', results));
+      } finally {
+        await pg.drop();
+      }
+    }
+  }
+  table(
+    `many families: ${HOUSEHOLDS.toLocaleString('en')} households × ${MISSES_EACH} misses, ${MEMBERS} signed in, ${SECONDS} s per offered rate (req/s); p99 per kind: ${Object.entries(
+      KINDS,
+    )
+      .map(([k, v]) => `${k} ${v}`)
+      .join(', ')}`,
+    rows,
+  );
+  report([
+    ...figures,
+    {
+      area: 'many families',
+      measure: 'households × misses, members signed in',
+      value: `${HOUSEHOLDS} × ${MISSES_EACH}, ${MEMBERS}`,
+    },
+  ]);
 }
