@@ -1,5 +1,5 @@
 import { Radio, RadioGroup, Tag } from '@blueprintjs/core';
-import { CAUSE_GUIDE, CAUSES, type Cause, type SuggestedCause } from '@workback/core';
+import { CAUSE_GUIDE, CAUSES, type Cause } from '@workback/core';
 
 /**
  * The cause as a choice, one line of guidance each. The checkers' suggestion is marked as
@@ -14,7 +14,8 @@ export function CausePicker({
 }: {
   value: Cause;
   onChange: (cause: Cause) => void;
-  suggestion: SuggestedCause | null;
+  /** The checkers' (or the interview stage's) suggestion and why. */
+  suggestion: { cause: Cause; because: string } | null;
   disabled?: boolean;
   name?: string;
 }) {

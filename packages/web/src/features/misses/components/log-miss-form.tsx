@@ -16,12 +16,13 @@ import { isApiError, type UploadProgress } from '../../../lib/api-client';
 import { missFields, newRequestKey, useCreateMiss } from '../api/create-miss';
 import { readPartials, useLiveDiagnosis, type LiveDiagnosis } from '../hooks/use-live-diagnosis';
 import { useRememberedStudent } from '../hooks/use-remembered-student';
+import { useWordSuggestion } from '../hooks/use-word-suggestion';
 import { formatDay, today, type MissInput, type StudentOption } from '../types';
 import { CausePicker } from './cause-picker';
 import { ExplanationPrompts } from './explanation-prompts';
 import { applyPhotoChange, checkPhotos, PhotoPicker } from './photo-picker';
 import { CheckersCaution, WorkingTrace } from './working-trace/working-trace';
-import { readLines, WordProblemFields } from './word-problem';
+import { placeLineErrors, readLines, validateLines, WordProblemFields } from './word-problem';
 import '../misses.css';
 
 type Values = {
@@ -48,18 +49,6 @@ const FIELDS = [
   'lines',
   'stage',
 ] as const;
-
-/** The API names a bad line `lines.2` (the third); the form shows it under the lines box. */
-function placeLineErrors(error: unknown): unknown {
-  if (!isApiError(error)) return error;
-  for (const [name, message] of Object.entries(error.fields)) {
-    const index = /^lines\.(\d+)$/.exec(name)?.[1];
-    if (index === undefined) continue;
-    delete error.fields[name];
-    error.fields.lines ??= `Line ${Number(index) + 1}: ${message}`;
-  }
-  return error;
-}
 
 /** Refusals about the photos themselves: too large, not an image, unreadable. */
 const PHOTO_REFUSALS = [413, 415, 422];
@@ -205,13 +194,18 @@ export function LogMissForm({
   const { field: causeField } = useController({ control, name: 'cause' });
   const { field: stageField } = useController({ control, name: 'stage' });
 
-  const [problem, answer, partials] = useWatch({
+  const [problem, answer, partials, linesText] = useWatch({
     control,
-    name: ['problem', 'answer', 'partials'],
+    name: ['problem', 'answer', 'partials', 'lines'],
   });
   const live = useLiveDiagnosis(problem, answer, partials);
   const diagnosis = live.result?.ok ? live.result : null;
-  const suggestion = diagnosis?.suggestedCause ?? null;
+  // The stage chosen feeds the cause offered (reading → misread, work it → the working's).
+  const suggestion = useWordSuggestion(
+    diagnosis,
+    wordOpen ? linesText : '',
+    wordOpen ? stageField.value : '',
+  );
   const showPartials =
     live.parsed?.ok === true &&
     live.parsed.problem.kind === 'multiplication' &&
@@ -426,10 +420,7 @@ export function LogMissForm({
       <WordProblemFields
         open={wordOpen}
         onOpen={setWordOpen}
-        registration={register('lines', {
-          validate: (value) =>
-            readLines(value).length <= 20 || 'Keep it to 20 number sentences or fewer.',
-        })}
+        registration={register('lines', { validate: validateLines })}
         error={errors.lines?.message ?? errors.stage?.message}
         stage={stageField.value}
         onStageChange={stageField.onChange}

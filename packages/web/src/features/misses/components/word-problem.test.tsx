@@ -140,6 +140,105 @@ describe('Log a miss: word problem', () => {
   });
 });
 
+describe('Log a miss: the cause follows the interview stage', () => {
+  it('offers the stage’s cause as it is chosen, until a cause is picked by hand', async () => {
+    api();
+    renderApp('/misses/new');
+    const user = userEvent.setup();
+    await fillWordProblem(user);
+    const cause = (name: RegExp) => screen.getByRole('radio', { name });
+    await user.click(screen.getByRole('radio', { name: /“Read it to me”/ }));
+    await waitFor(() => expect(cause(/^Misread/)).toBeChecked());
+    expect(screen.getByText(/could not read the question aloud/)).toBeVisible();
+    // "Work it": the first wrong line's own cause. 60 − 18 → 58 takes the smaller digit from the
+    // larger (Brown & Burton 1978, from memory): a method step.
+    await user.click(screen.getByRole('radio', { name: /“Work it”/ }));
+    await waitFor(() => expect(cause(/^Method step/)).toBeChecked());
+    await user.click(screen.getByRole('radio', { name: /“Write the answer”/ }));
+    await waitFor(() => expect(cause(/^Copying/)).toBeChecked());
+    await user.click(screen.getByRole('radio', { name: /Not asked yet/ }));
+    await waitFor(() => expect(cause(/^Method step/)).toBeChecked());
+    // Picked by hand: the stage no longer moves it.
+    await user.click(cause(/^Slip/));
+    await user.click(screen.getByRole('radio', { name: /“Read it to me”/ }));
+    await new Promise((r) => setTimeout(r, 300));
+    expect(cause(/^Slip/)).toBeChecked();
+  });
+});
+
+describe('Edit a miss: word problem', () => {
+  async function openEdit(extra: Parameters<typeof mockApi>[0] = {}) {
+    const calls = api({
+      'GET /misses/21': json(200, wordMiss()),
+      'GET /notes?missId=21&pageSize=100': list([]),
+      ...extra,
+    });
+    renderApp('/misses/21');
+    const user = userEvent.setup();
+    await user.click(await screen.findByRole('button', { name: 'Edit' }));
+    const dialog = await screen.findByRole('dialog');
+    return { user, dialog, requests: calls.requests };
+  }
+
+  it('shows the saved lines and stage, and sends changed lines and stage for checking', async () => {
+    const { user, dialog, requests } = await openEdit({
+      'PATCH /misses/21': (request) => json(200, wordMiss(request.body as Record<string, unknown>)),
+    });
+    const box = within(dialog).getByLabelText('The number sentences the child wrote');
+    expect(box).toHaveValue(LINES.join('\n'));
+    expect(within(dialog).getByRole('radio', { name: /“Work it”/ })).toBeChecked();
+    await user.clear(box);
+    await user.type(box, '4 x 15 = 60\n60 - 18 = 42\n\n42 + 7 = 49');
+    await user.click(within(dialog).getByRole('radio', { name: /“Read it to me”/ }));
+    // The saved cause was the suggestion (a method step), so it follows the new stage.
+    await waitFor(() =>
+      expect(within(dialog).getByRole('radio', { name: /^Misread/ })).toBeChecked(),
+    );
+    await user.click(within(dialog).getByRole('button', { name: 'Save changes' }));
+    expect(await screen.findByText('Saved the changes.')).toBeInTheDocument();
+    expect(requests.find((r) => r.method === 'PATCH')?.body).toMatchObject({
+      lines: ['4 x 15 = 60', '60 - 18 = 42', '42 + 7 = 49'],
+      stage: 'reading',
+      cause: 'reading',
+    });
+  });
+
+  it('sends neither lines nor stage when they are unchanged, and takes the stage back', async () => {
+    const { user, dialog, requests } = await openEdit({
+      'PATCH /misses/21': (request) => json(200, wordMiss(request.body as Record<string, unknown>)),
+    });
+    await user.click(within(dialog).getByRole('radio', { name: /Not asked yet/ }));
+    await user.click(within(dialog).getByRole('button', { name: 'Save changes' }));
+    expect(await screen.findByText('Saved the changes.')).toBeInTheDocument();
+    const body = requests.find((r) => r.method === 'PATCH')?.body as Record<string, unknown>;
+    expect(body).not.toHaveProperty('lines');
+    expect(body.stage).toBeNull();
+  });
+
+  it('checks the lines as the log form does, and shows a line the server refused', async () => {
+    const { user, dialog, requests } = await openEdit({
+      'PATCH /misses/21': json(400, {
+        statusCode: 400,
+        error: 'Bad Request',
+        message: 'Please check lines.1: Line 2 has no “=”',
+        fields: { 'lines.1': 'Line 2 has no “=”' },
+      }),
+    });
+    const box = within(dialog).getByLabelText('The number sentences the child wrote');
+    await user.clear(box);
+    await user.click(box);
+    await user.paste(Array.from({ length: 21 }, () => '1 + 1 = 2').join('\n'));
+    await user.click(within(dialog).getByRole('button', { name: 'Save changes' }));
+    expect(await within(dialog).findByText(/Keep it to 20 number sentences/)).toBeVisible();
+    expect(requests.some((r) => r.method === 'PATCH')).toBe(false);
+
+    await user.clear(box);
+    await user.type(box, '4 x 15 = 60\n60 - 18');
+    await user.click(within(dialog).getByRole('button', { name: 'Save changes' }));
+    expect(await within(dialog).findByText('Line 2: Line 2 has no “=”')).toBeVisible();
+  });
+});
+
 describe('The miss page: word problem', () => {
   it('shows each line right, differing or following, the first that differs marked softly', async () => {
     api({

@@ -4,6 +4,7 @@ import { INTERVIEW_STAGES, type CheckedLines, type InterviewStage } from '@workb
 import type { UseFormRegisterReturn } from 'react-hook-form';
 
 import { TextAreaField } from '../../../components/form/text-area-field';
+import { isApiError } from '../../../lib/api-client';
 import './word-problem.css';
 
 /**
@@ -27,7 +28,32 @@ export function readLines(text: string): string[] {
     .filter((l) => l !== '');
 }
 
-/** The log form's "Word problem" part: collapsed until the parent asks for it. */
+/** Most number sentences and longest sentence the server keeps (the API's MAX_LINES, MAX_LINE_LENGTH). */
+const MAX_LINES = 20;
+const MAX_LINE_LENGTH = 120;
+
+/** The form's check of the lines box, the same in the log form and the edit dialog. */
+export function validateLines(text: string): true | string {
+  const lines = readLines(text);
+  if (lines.length > MAX_LINES) return `Keep it to ${MAX_LINES} number sentences or fewer.`;
+  const long = lines.findIndex((l) => [...l].length > MAX_LINE_LENGTH);
+  if (long >= 0) return `Line ${long + 1}: keep each sentence under ${MAX_LINE_LENGTH} characters.`;
+  return true;
+}
+
+/** The API names a bad line `lines.2` (the third); the form shows it under the lines box. */
+export function placeLineErrors(error: unknown): unknown {
+  if (!isApiError(error)) return error;
+  for (const [name, message] of Object.entries(error.fields)) {
+    const index = /^lines\.(\d+)$/.exec(name)?.[1];
+    if (index === undefined) continue;
+    delete error.fields[name];
+    error.fields.lines ??= `Line ${Number(index) + 1}: ${message}`;
+  }
+  return error;
+}
+
+/** The "Word problem" part of the log form and the edit dialog: collapsed until asked for. */
 export function WordProblemFields({
   open,
   onOpen,
@@ -36,31 +62,35 @@ export function WordProblemFields({
   stage,
   onStageChange,
   disabled,
+  idPrefix = 'miss',
 }: {
   open: boolean;
   onOpen: (open: boolean) => void;
   registration: UseFormRegisterReturn;
   error?: string;
   stage: InterviewStage | '';
-  onStageChange: (stage: InterviewStage) => void;
+  onStageChange: (stage: InterviewStage | '') => void;
   disabled?: boolean;
+  idPrefix?: string;
 }) {
+  const titleId = `${idPrefix}-word-title`;
+  const bodyId = `${idPrefix}-word-body`;
   return (
-    <section className="wb-word-problem" aria-labelledby="word-title">
+    <section className="wb-word-problem" aria-labelledby={titleId}>
       <Button
         variant="minimal"
-        id="word-title"
+        id={titleId}
         aria-expanded={open}
-        aria-controls="word-body"
+        aria-controls={bodyId}
         icon={open ? <ChevronDownIcon /> : <ChevronRightIcon />}
         onClick={() => onOpen(!open)}
       >
         Word problem
       </Button>
       {open ? (
-        <div id="word-body">
+        <div id={bodyId}>
           <TextAreaField
-            idPrefix="miss"
+            idPrefix={idPrefix}
             label="The number sentences the child wrote"
             rows={3}
             placeholder={'4 x 15 = 60\n60 - 18 = 42'}
@@ -70,11 +100,11 @@ export function WordProblemFields({
           />
           <RadioGroup
             className="wb-word-stages"
-            name="stage"
+            name={`${idPrefix}-stage`}
             label="Ask in turn; where did it go wrong?"
             selectedValue={stage}
             disabled={disabled}
-            onChange={(event) => onStageChange(event.currentTarget.value as InterviewStage)}
+            onChange={(event) => onStageChange(event.currentTarget.value as InterviewStage | '')}
           >
             {INTERVIEW_STAGES.map((s) => (
               <Radio
@@ -88,6 +118,7 @@ export function WordProblemFields({
                 }
               />
             ))}
+            <Radio value="" labelElement={<span className="wb-muted">Not asked yet</span>} />
           </RadioGroup>
         </div>
       ) : null}
