@@ -138,6 +138,117 @@ describe('a word problem’s number sentences on a miss', () => {
     expect(cleared.body).toMatchObject({ lines: null, linesCheck: null, stage: 'encoding' });
   });
 
+  it('refuses a bad edit of lines or stage with a 400 naming the field, and changes nothing', async () => {
+    const student = await freshStudent('Bad edits');
+    const made = await owner.post('/api/misses', word(student, { stage: 'process' })).expect(201);
+    const id = made.body.id as number;
+    const cases: [Record<string, unknown>, string, RegExp][] = [
+      [{ lines: ['4 x 15 = 60', 'sixty - 18 = 42'] }, 'lines.1', /sixty/],
+      [{ lines: ['4 x 15 = 60', '60 - 18'] }, 'lines.1', /no “=”/],
+      [{ lines: { first: '4 x 15 = 60' }, stage: 'reading' }, 'lines', /list|text/],
+      [{ lines: null }, 'lines', /list|text/],
+      [{ stage: 'guessing', cause: 'reading' }, 'stage', /reading, comprehension/],
+    ];
+    for (const [body, field, message] of cases) {
+      const res = await owner.agent
+        .patch(`/api/misses/${id}`)
+        .set('x-csrf-token', owner.token)
+        .send(body);
+      expect(res.status, `${JSON.stringify(body)}: ${res.text}`).toBe(400);
+      expect(res.body.fields?.[field], res.text).toMatch(message);
+    }
+    const after = await owner.get(`/api/misses/${id}`).expect(200);
+    expect(after.body).toMatchObject({
+      lines: PENCILS,
+      stage: 'process',
+      cause: 'unsure',
+      suggestedCause: 'step',
+      ruleIds: made.body.ruleIds,
+      updatedAt: made.body.updatedAt,
+    });
+  });
+
+  it('takes the stage back with null, and re-diagnoses: the suggestion follows the new stage', async () => {
+    const student = await freshStudent('Stage back');
+    const made = await owner.post('/api/misses', word(student, { stage: 'reading' })).expect(201);
+    expect(made.body).toMatchObject({ suggestedCause: 'reading', kind: 'word' });
+    const process = await owner.agent
+      .patch(`/api/misses/${made.body.id}`)
+      .set('x-csrf-token', owner.token)
+      .send({ stage: 'process' });
+    expect(process.status, process.text).toBe(200);
+    // process → the first wrong line's own cause: 60 − 18 → 58 is a method step.
+    expect(process.body).toMatchObject({ stage: 'process', suggestedCause: 'step' });
+    const none = await owner.agent
+      .patch(`/api/misses/${made.body.id}`)
+      .set('x-csrf-token', owner.token)
+      .send({ stage: null, lines: [] });
+    expect(none.status, none.text).toBe(200);
+    // No lines and no stage: the words of the problem are all there is, not read by the checkers.
+    expect(none.body).toMatchObject({ stage: null, lines: null, kind: 'other' });
+    expect(none.body.ruleIds).toEqual([]);
+  });
+
+  it('filters the notebook by kind and by interview stage, each row naming its kind', async () => {
+    const student = await freshStudent('Kinds');
+    const post = async (problem: string, answer: string, over: Record<string, unknown> = {}) =>
+      (
+        await owner
+          .post('/api/misses', {
+            studentId: student,
+            occurredOn: today(),
+            problem,
+            answer,
+            ...over,
+          })
+          .expect(201)
+      ).body.id as number;
+    // Each problem is the issue's own example of a rule (issue 16), or plain arithmetic.
+    const money = await post('$12.50 - $3.75', '19.85');
+    const decimal = await post('4.5 + 2.25', '2.70');
+    const comparison = await post('0.45 ? 0.5', '>');
+    const time = await post('3:15 - 1:50', '1:65');
+    const whole = await post('81 - 38', '57');
+    const reading = await post('Pencils', '65', { lines: PENCILS, stage: 'reading' });
+    const process = await post('Pencils', '65', { lines: PENCILS, stage: 'process' });
+    const list = async (query: string) => {
+      const res = await owner.get(`/api/misses?studentId=${student}&${query}`);
+      expect(res.status, res.text).toBe(200);
+      return res.body.items as { id: number; kind: string; stage: string | null }[];
+    };
+    const ids = async (query: string) => (await list(query)).map((m) => m.id).sort((a, b) => a - b);
+    expect(await ids('kind=money')).toEqual([money]);
+    expect(await ids('kind=decimal')).toEqual([decimal, comparison]);
+    expect(await ids('kind=time')).toEqual([time]);
+    expect(await ids('kind=whole')).toEqual([whole]);
+    expect(await ids('kind=word')).toEqual([reading, process]);
+    expect(await ids('stage=reading')).toEqual([reading]);
+    expect(await ids('kind=word&stage=process')).toEqual([process]);
+    expect(await ids('kind=money&stage=process')).toEqual([]);
+    // The kind a row shows is the kind it was filtered by.
+    for (const kind of ['money', 'decimal', 'time', 'whole', 'word'])
+      for (const row of await list(`kind=${kind}`)) expect(row.kind).toBe(kind);
+    for (const row of await list('stage=reading')) expect(row.stage).toBe('reading');
+
+    // Editing the problem moves the miss to its new kind.
+    const moved = await owner.agent
+      .patch(`/api/misses/${whole}`)
+      .set('x-csrf-token', owner.token)
+      .send({ problem: '$8.10 - $3.80', answer: '5.70' });
+    expect(moved.status, moved.text).toBe(200);
+    expect(moved.body.kind).toBe('money');
+    expect(await ids('kind=money')).toEqual([money, whole]);
+
+    for (const [query, field, message] of [
+      ['kind=fractionz', 'kind', /whole, fraction, decimal, money, time, word, other/],
+      ['stage=guessing', 'stage', /reading, comprehension, transformation, process, encoding/],
+    ] as const) {
+      const res = await owner.get(`/api/misses?${query}`);
+      expect(res.status, res.text).toBe(400);
+      expect(res.body.fields[field]).toMatch(message);
+    }
+  });
+
   describe('refuses bad input with a 400 naming the field, and saves nothing', () => {
     const cases: [string, Record<string, unknown>, string, RegExp][] = [
       [

@@ -4,10 +4,12 @@ import { InjectConnection, InjectModel } from '@nestjs/sequelize';
 import {
   Cause,
   checkLines,
-  InterviewStage,
+  missKindOf,
   MissStatus,
+  suggestStageCause,
   type CheckedLines,
   type Diagnosis,
+  type InterviewStage,
   type PatternMiss,
   type WrittenSteps,
 } from '@workback/core';
@@ -114,6 +116,7 @@ export class MissesService {
             revisit: dedupe(dto.revisit ?? []),
             ...diagnosisColumns(checked),
             ...wordProblemColumns(checked, word),
+            kind: missKindOf(dto.problem, word),
             idempotencyKey: once?.key ?? null,
             requestDigest: once?.digest ?? null,
             createdBy: member.userId,
@@ -296,7 +299,11 @@ export class MissesService {
         {
           ...changes,
           ...(checked && word
-            ? { ...diagnosisColumns(checked), ...wordProblemColumns(checked, word) }
+            ? {
+                ...diagnosisColumns(checked),
+                ...wordProblemColumns(checked, word),
+                kind: missKindOf(changes.problem ?? miss.problem, word),
+              }
             : {}),
           updatedBy: member.userId,
         },
@@ -357,7 +364,11 @@ export class MissesService {
         })
       ).map((d) => [d.missId, d.diagnosis]),
     );
-    return rows.map((m) => ({ ...toMissSummary(m), diagnosis: diagnoses.get(m.id) ?? null }));
+    return rows.map((m) => ({
+      ...toMissSummary(m),
+      linesCheck: m.linesCheck,
+      diagnosis: diagnoses.get(m.id) ?? null,
+    }));
   }
 
   /**
@@ -460,6 +471,7 @@ export class MissesService {
         skills: dedupe(input.skills),
         revisit: dedupe(input.revisit),
         ...diagnosisColumns(checked),
+        kind: missKindOf(input.problem),
         createdBy: member.userId,
         updatedBy: member.userId,
       },
@@ -594,6 +606,8 @@ export class MissesService {
     if (q.studentId !== undefined) and.push({ studentId: q.studentId });
     if (q.cause) and.push({ cause: q.cause });
     if (q.status) and.push({ status: q.status });
+    if (q.kind) and.push({ kind: q.kind });
+    if (q.stage) and.push({ stage: q.stage });
     if (q.from) and.push({ occurredOn: { [Op.gte]: q.from } });
     if (q.to) and.push({ occurredOn: { [Op.lte]: q.to } });
     const bind: Record<string, string | number> = {};
@@ -736,22 +750,10 @@ function wordProblemColumns(checked: Checked, word: WordProblem) {
     linesCheck: word.linesCheck,
     stage: word.stage,
     ...(line ? { ruleIds: line.rules.map((r) => r.id), facts: line.facts } : {}),
-    suggestedCause: word.stage ? stageCause(word.stage, ownCause) : ownCause,
+    suggestedCause: word.stage
+      ? (suggestStageCause(word.stage, working?.suggestedCause ?? null)?.cause ?? null)
+      : ownCause,
   };
-}
-
-function stageCause(stage: InterviewStage, working: Cause | null): Cause | null {
-  switch (stage) {
-    case InterviewStage.reading:
-      return Cause.reading;
-    case InterviewStage.comprehension:
-    case InterviewStage.transformation:
-      return Cause.concept;
-    case InterviewStage.process:
-      return working;
-    case InterviewStage.encoding:
-      return Cause.copying;
-  }
 }
 
 /** Every rule id a diagnosis names, each id of a pair included. */
@@ -801,6 +803,7 @@ const SUMMARY_ATTRIBUTES = [
   'revisit',
   'lines',
   'stage',
+  'kind',
   'notCheckedReason',
   'expected',
   'correct',
@@ -841,12 +844,14 @@ function fromRawRow(r: RawMissRow): SummaryFields {
 
 /** Everything that decides which misses a list counts, but the page. */
 function countKey(member: MemberContext, q: ListMissesQuery): string {
-  const { studentId, cause, status, from, to, rule, skill } = q;
+  const { studentId, cause, status, kind, stage, from, to, rule, skill } = q;
   return JSON.stringify([
     member.studentIds,
     studentId,
     cause,
     status,
+    kind,
+    stage,
     from,
     to,
     rule,
@@ -873,6 +878,7 @@ export function toMissSummary(m: SummaryFields) {
     revisit: m.revisit,
     lines: m.lines,
     stage: m.stage,
+    kind: m.kind,
     checked: m.notCheckedReason === null,
     notCheckedReason: m.notCheckedReason,
     expected: m.expected,

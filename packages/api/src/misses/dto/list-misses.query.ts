@@ -1,5 +1,14 @@
 import { ApiPropertyOptional } from '@nestjs/swagger';
-import { CAUSES, MISS_STATUSES, type Cause, type MissStatus } from '@workback/core';
+import {
+  CAUSES,
+  INTERVIEW_STAGES,
+  MISS_KINDS,
+  MISS_STATUSES,
+  type Cause,
+  type InterviewStage,
+  type MissKind,
+  type MissStatus,
+} from '@workback/core';
 import {
   IsIn,
   IsInt,
@@ -40,6 +49,23 @@ export class ListMissesQuery extends PageQuery {
   @IsOptional()
   @IsIn(MISS_STATUSES, { message: `status must be one of ${MISS_STATUSES.join(', ')}` })
   status?: MissStatus;
+
+  @ApiPropertyOptional({
+    enum: MISS_KINDS,
+    description:
+      'The kind of problem: whole numbers, fractions, decimals, money, clock times, a word problem, or other',
+  })
+  @IsOptional()
+  @IsIn(MISS_KINDS, { message: `kind must be one of ${MISS_KINDS.join(', ')}` })
+  kind?: MissKind;
+
+  @ApiPropertyOptional({
+    enum: INTERVIEW_STAGES,
+    description: 'Word problems that went wrong at this interview stage',
+  })
+  @IsOptional()
+  @IsIn(INTERVIEW_STAGES, { message: `stage must be one of ${INTERVIEW_STAGES.join(', ')}` })
+  stage?: InterviewStage;
 
   @ApiPropertyOptional({ example: 'sub.borrow-across-zero' })
   @IsOptional()

@@ -2,6 +2,7 @@ import type {
   Cause,
   CheckedLines,
   InterviewStage,
+  MissKind,
   MissStatus,
   StoredDiagnosis,
   WrittenSteps,
@@ -57,6 +58,10 @@ export class Miss extends Model {
   /** The interview stage where the parent found the word problem went wrong (Newman 1977). */
   @Column({ type: DataType.STRING(16), allowNull: true })
   declare stage: InterviewStage | null;
+
+  /** The notebook's kind (`missKindOf`): whole, fraction, decimal, money, time, word or other (migration 0013). */
+  @Column({ type: DataType.STRING(16), allowNull: false, defaultValue: 'other' })
+  declare kind: MissKind;
 
   @Column({ type: DataType.STRING(16), allowNull: false })
   declare cause: Cause;
