@@ -109,6 +109,7 @@ function slipSites(
       sites.push({
         column: col.index,
         position,
+        right: fact.a + fact.b,
         wrong: wrongFacts('+', fact.a, fact.b),
         slip: (sum) => ({ column: col.index, sum }),
       });

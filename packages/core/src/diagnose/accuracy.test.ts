@@ -3,7 +3,16 @@
 // basic-fact slip, a rule together with a slip, two adjacent digits swapped, the right answer.
 // Compound errors and one-off slips beside systematic ones: Burton 1982 and VanLehn 1990
 // (shared/reference/README.md, [P2/M]); the list of plausible wrong facts is common
-// practice, no source.
+// practice, no source; so is ranking the explanation that needs fewer or smaller slips first.
+//
+// Why some cases are set aside (the "ambiguous" count): when another explanation exactly as
+// simple writes the very same answer (two rules that write the same digits on this problem,
+// two rules each with one slip as far off, or a swap that a single rule writes), the answer
+// holds nothing that says which one made it, and the generator's own methods, rerun on the
+// problem, cannot tell either. The engine lists both and keeps catalog order; scoring that
+// order against a coin-flip choice of the generator would measure the coin. A case where a
+// simpler explanation (one slip, one rule, two rules) writes the answer is NOT set aside: it
+// stays in and counts as not named.
 import { beforeAll, describe, expect, it } from 'vitest';
 import { ruleInfo } from '../rules/catalog.js';
 import { evaluationCases, type EvaluationCase } from '../testing/evaluationCases.js';
@@ -17,6 +26,13 @@ interface Scored {
   readonly d: Diagnosis;
   /** The first explanation is the one that made the answer. */
   readonly strict: boolean;
+  /**
+   * Another explanation exactly as simple writes this very answer, so one answer cannot say
+   * which made it (the generator's own methods cannot either): two single rules writing the
+   * same answer; two rules each with one slip of the same size; a swap that a single rule
+   * writes. Such cases are set aside from the strict figures (and counted, below).
+   */
+  readonly ambiguous: boolean;
   /** …or, where a simpler explanation gives the very same answer, a simpler one is first. */
   readonly fair: boolean;
 }
@@ -27,6 +43,7 @@ function score(c: EvaluationCase): Scored {
   const top = d.rules[0];
   let strict: boolean;
   let fair: boolean;
+  let ambiguous = false;
   switch (c.kind) {
     case 'right':
       strict = fair = d.correct && d.rules.length === 0;
@@ -34,23 +51,33 @@ function score(c: EvaluationCase): Scored {
     case 'swap':
       // Careless: no systematic rule is claimed for it, unless a rule writes this very answer.
       strict = !d.rules.some((r) => r.ids.some(isSystematic));
-      fair = strict || c.simplerAnswers.has(c.answer);
+      ambiguous = c.simplerAnswers.has(c.answer);
+      fair = strict || ambiguous;
       break;
     case 'rule':
       strict = top?.id === c.ids[0];
+      ambiguous = c.ties.length > 0;
       fair = strict || (top !== undefined && c.ties.includes(top.id));
       break;
     default: {
       strict = top?.id === c.ids.join('+');
+      ambiguous = c.ties.length > 0;
       const tie = top !== undefined && c.ties.includes(top.id);
-      // A simpler explanation (a single rule, or a single slip for a compound) ranks higher by design.
+      // A simpler explanation (a single rule, or a single slip for a compound) ranks higher by
+      // design; the strict figure still counts such a case as not named.
       const simplerFirst =
         c.simplerAnswers.has(c.answer) && (top?.score ?? 0) > (c.kind === 'fact' ? 0.75 : 0.4);
       fair = strict || tie || simplerFirst;
     }
   }
-  return { c, d, strict, fair };
+  return { c, d, strict, ambiguous, fair };
 }
+
+/** Strict top-1 over the cases one answer can decide (ambiguous ones set aside). */
+const strictRate = (set: readonly Scored[]): number => {
+  const decided = set.filter((s) => !s.ambiguous);
+  return decided.filter((s) => s.strict).length / Math.max(1, decided.length);
+};
 
 const pct = (n: number, of: number): string => `${((100 * n) / Math.max(1, of)).toFixed(1)}%`;
 
@@ -59,16 +86,19 @@ describe('top-1 on a seeded table of children’s answers', () => {
   beforeAll(() => {
     scored = evaluationCases(2026, 150).map(score);
     const rows: string[] = [];
-    for (const kind of ['rule', 'fact', 'compound', 'swap', 'right'] as const) {
-      const set = scored.filter((s) => s.c.kind === kind);
+    const row = (name: string, set: readonly Scored[]): string => {
+      const amb = set.filter((s) => s.ambiguous).length;
+      return `${name.padEnd(9)} ${String(set.length).padStart(5)}  strict top-1 ${pct(strictRate(set), 1).padStart(6)} (${String(amb).padStart(3)} ambiguous set aside; ${pct(set.filter((s) => s.strict).length, set.length)} counting them)  tie-aware ${pct(set.filter((s) => s.fair).length, set.length)}`;
+    };
+    for (const kind of ['rule', 'fact', 'compound', 'swap', 'right'] as const)
       rows.push(
-        `${kind.padEnd(9)} ${String(set.length).padStart(5)}  top-1 ${pct(set.filter((s) => s.strict).length, set.length).padStart(6)}  (ambiguous-aware ${pct(set.filter((s) => s.fair).length, set.length)})`,
+        row(
+          kind,
+          scored.filter((s) => s.c.kind === kind),
+        ),
       );
-    }
     const verdicts = scored.filter((s) => s.d.correct === (s.c.kind === 'right')).length;
-    rows.push(
-      `overall   ${String(scored.length).padStart(5)}  top-1 ${pct(scored.filter((s) => s.strict).length, scored.length).padStart(6)}  (ambiguous-aware ${pct(scored.filter((s) => s.fair).length, scored.length)}); right/wrong verdicts ${pct(verdicts, scored.length)}`,
-    );
+    rows.push(`${row('overall', scored)}; right/wrong verdicts ${pct(verdicts, scored.length)}`);
     console.log(`Diagnosis accuracy (seed 2026):\n${rows.join('\n')}`);
   }, 120_000);
 
@@ -77,19 +107,21 @@ describe('top-1 on a seeded table of children’s answers', () => {
       expect(s.d.correct, `${s.c.problem} → ${s.c.answer}`).toBe(s.c.kind === 'right');
   });
 
-  // The targets count a tie one answer cannot break (another rule writing the very same
-  // answer on this problem, or an explanation DESIGN.md ranks higher giving it) as named;
-  // the strict figures, printed above, are held too so that they cannot slide.
+  // The targets are held on the strict figures: the first explanation is exactly the one
+  // that made the answer. Only cases that another explanation exactly as simple writes
+  // identically are set aside (see `ambiguous`); a case where a simpler explanation (one
+  // slip, one rule, two rules) writes the answer stays in and counts as not named. The share
+  // set aside is held small too, so that the figures cannot rise by setting more aside.
   it('names a systematic rule plus one slip first in at least 90% of compounds', () => {
     const set = scored.filter((s) => s.c.kind === 'compound');
     expect(set.length).toBeGreaterThan(300);
-    expect(set.filter((s) => s.fair).length / set.length).toBeGreaterThanOrEqual(0.9);
-    expect(set.filter((s) => s.strict).length / set.length).toBeGreaterThanOrEqual(0.85);
+    expect(strictRate(set)).toBeGreaterThanOrEqual(0.9);
+    expect(set.filter((s) => s.ambiguous).length / set.length).toBeLessThanOrEqual(0.12);
   });
 
   it('names the cause first in at least 97% of all cases', () => {
-    expect(scored.filter((s) => s.fair).length / scored.length).toBeGreaterThanOrEqual(0.97);
-    expect(scored.filter((s) => s.strict).length / scored.length).toBeGreaterThanOrEqual(0.95);
+    expect(strictRate(scored)).toBeGreaterThanOrEqual(0.97);
+    expect(scored.filter((s) => s.ambiguous).length / scored.length).toBeLessThanOrEqual(0.05);
   });
 
   it('claims no rule for a careless digit swap that no rule writes', () => {

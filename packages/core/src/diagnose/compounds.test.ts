@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { readFixture } from '../testing/fixtures.js';
 import { diagnose } from './diagnose.js';
+import { wrongFacts, wrongProducts } from './wrongFacts.js';
 
 interface Compound {
   rules: string[];
@@ -36,5 +37,34 @@ describe('a rule together with one fact slip', () => {
     const m = diagnose('705 x 7', '7215');
     if (!m.ok) throw new Error('unreadable');
     expect(m.rules[0]?.explanation).toContain('the 7 with the carried 2 added first');
+  });
+
+  // The list of plausible wrong facts and the ranking by slip size: common practice, no source.
+  it('uses one list of wrong products: short by exactly the carry added after is a carry not added', () => {
+    expect(wrongFacts('x', 7, 8)).toEqual([55, 57, 54, 58, 63, 49, 64, 48]);
+    expect(wrongProducts(7, 8, 2)).toEqual([55, 57, 58, 63, 49, 64, 48]);
+    expect(wrongProducts(7, 8, 0)).toEqual(wrongFacts('x', 7, 8));
+  });
+
+  it('ranks the rule with the smaller slip first', () => {
+    // writes-carry with 0 + 2 taken as 1 (one off) before carry-reversed with 8 + 8 taken as 18 (two off).
+    const d = diagnose('408 + 5628', '5111');
+    if (!d.ok) throw new Error('unreadable');
+    expect(d.rules.map((r) => r.id)).toEqual([
+      'add.writes-carry+add.fact',
+      'add.carry-reversed+add.fact',
+    ]);
+    expect(d.facts).toMatchObject([{ a: 0, b: 2, written: 1 }]);
+  });
+
+  it('takes a slip as far off either way as equally small, then keeps catalog order', () => {
+    // 13 − 6 taken as 5 (two less, borrow-no-decrement) and 6 − 3 taken as 5 (two more,
+    // smaller-from-larger) write 4573 alike: one answer cannot tell them apart.
+    const d = diagnose('4397 - 624', '4573');
+    if (!d.ok) throw new Error('unreadable');
+    expect(d.rules.map((r) => r.id)).toEqual([
+      'sub.smaller-from-larger+sub.fact',
+      'sub.borrow-no-decrement+sub.fact',
+    ]);
   });
 });

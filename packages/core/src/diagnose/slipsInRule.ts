@@ -2,6 +2,8 @@
 export interface SlipSite<S> {
   /** The power of ten at which the fact's result is first written in the final answer. */
   readonly position: number;
+  /** The fact's right result. */
+  readonly right: number;
   /** The wrong results to try (from `wrongFacts`). */
   readonly wrong: readonly number[];
   /** The method option that makes the fact come out as `written`. */
@@ -20,7 +22,9 @@ function lowestDifference(a: string, b: string): number {
  * Finds every single basic-fact slip which, made inside a method (a rule's own working, its
  * effect carried on to the left), turns `methodResult` into `answer`. A slip changes nothing
  * to the right of where it is written, so only facts at or right of the lowest differing
- * digit are tried. Smaller slips first.
+ * digit are tried. Smaller slips first: `rank` is how far the written result is from the
+ * right one (taken as 9 or as 7 for 8 are equally small; the single-fact check measures
+ * slips the same way).
  * `slipsInRule('998', '999', sites, run)` → `[{ site: onesSite, written: 9 }]` for 923 − 35
  * worked without reducing the lending digit, 13 − 5 taken as 9.
  */
@@ -35,10 +39,9 @@ export function slipsInRule<T extends SlipSite<unknown>>(
   const out: { site: T; written: number; rank: number }[] = [];
   for (const site of sites) {
     if (site.position > lowest) continue;
-    site.wrong.forEach((w, rank) => {
+    for (const w of site.wrong)
       if (run(site.slip(w) as ReturnType<T['slip']>) === answer)
-        out.push({ site, written: w, rank });
-    });
+        out.push({ site, written: w, rank: Math.abs(w - site.right) });
   }
   out.sort((x, y) => x.rank - y.rank);
   return out;

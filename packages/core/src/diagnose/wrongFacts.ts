@@ -24,3 +24,14 @@ export function wrongFacts(op: '+' | '-' | 'x', a: number, b: number): number[] 
   }
   return out;
 }
+
+/**
+ * The wrong products a child plausibly writes for one cell of a long multiplication: the list
+ * of `wrongFacts`, less a product short by exactly the carry that is then added (`carryIn`),
+ * which is a carry not added — a slip of its own (`dropCarryAt`), not a fact to practise. The
+ * one list the single-fact check, the rule-plus-slip search and the evaluation table use.
+ * `wrongProducts(7, 8, 2)` → `[55, 57, 58, 63, 49, 64, 48]` (54 is 56 with the carried 2 not added).
+ */
+export function wrongProducts(a: number, b: number, carryIn: number): number[] {
+  return wrongFacts('x', a, b).filter((w) => !(carryIn > 0 && w === a * b - carryIn));
+}

@@ -1,7 +1,7 @@
 import { describeOutcome } from '../diagnose/describeOutcome.js';
 import { findFactSlip, type FactCell } from '../diagnose/findFactSlip.js';
 import { slipsInRule, type SlipSite } from '../diagnose/slipsInRule.js';
-import { wrongFacts } from '../diagnose/wrongFacts.js';
+import { wrongProducts } from '../diagnose/wrongFacts.js';
 import { firstWrongColumn } from '../diagnose/firstWrongColumn.js';
 import type {
   Candidate,
@@ -150,7 +150,8 @@ function slipSites(
       const rote = run.fired.some(
         (f) => f.partial === j && f.column === i && f.part === 'zeroDigit',
       );
-      const factor = method.carry === 'before' ? c.topDigit + c.carryIn : c.topDigit;
+      const before = method.carry === 'before';
+      const factor = before ? c.topDigit + c.carryIn : c.topDigit;
       // A top digit made 10 or more by adding the carry first is no longer a basic fact.
       if (!rote && factor <= 9) {
         sites.push({
@@ -158,7 +159,10 @@ function slipSites(
           column: i,
           factor,
           position,
-          wrong: wrongFacts('x', factor, c.multiplierDigit),
+          right: factor * c.multiplierDigit,
+          // The same list as the single-fact check: a carry added after multiplying and then
+          // left out is not a wrong fact.
+          wrong: wrongProducts(factor, c.multiplierDigit, before ? 0 : c.carryIn),
           slip: (product) => ({ partial: j, column: i, product }),
         });
       }
@@ -292,9 +296,12 @@ export function diagnoseMultiplication(
     BigInt(written) - BigInt(expected),
     cells,
     (cell, w) =>
-      wrongFacts('x', cell.data.c.topDigit, cell.data.c.multiplierDigit).includes(w) &&
       // Short by exactly the carry is a carry not added, not a fact to practise.
-      !(cell.data.c.carryIn > 0 && w === cell.data.c.product - cell.data.c.carryIn) &&
+      wrongProducts(
+        cell.data.c.topDigit,
+        cell.data.c.multiplierDigit,
+        cell.data.c.carryIn,
+      ).includes(w) &&
       (partials === undefined ||
         partialsAgree(
           multiplyLong(top, bottom, {

@@ -149,6 +149,7 @@ function slipSites(
       return {
         column: c.index,
         position: c.index,
+        right: f.expected,
         wrong: wrongFacts('-', f.a, f.b),
         slip: (difference: number) => ({ column: c.index, difference }),
       };

@@ -6,10 +6,13 @@
 // of wrong facts the engine uses (`wrongFacts`); the methods are the engine's column methods.
 import { addColumns, type AdditionMethod } from '../addition/addColumns.js';
 import { ADDITION_RULES } from '../addition/diagnoseAddition.js';
-import { wrongFacts } from '../diagnose/wrongFacts.js';
+import { wrongFacts, wrongProducts } from '../diagnose/wrongFacts.js';
 import { layoutOf, MULTIPLICATION_METHOD_RULES } from '../multiplication/diagnoseMultiplication.js';
 import { multiplyLong, type MultiplicationMethod } from '../multiplication/multiplyLong.js';
+import { parseProblem } from '../parse/parseProblem.js';
 import { seededRandom } from '../practice/seededRandom.js';
+import { applyRule } from '../rules/applyRule.js';
+import { RULES } from '../rules/catalog.js';
 import { ROUNDING_RULES } from '../rounding/diagnoseRounding.js';
 import { roundToPlace } from '../rounding/roundToPlace.js';
 import { SUBTRACTION_RULES } from '../subtraction/diagnoseSubtraction.js';
@@ -34,7 +37,11 @@ export interface EvaluationCase {
    * answer is one of them, one answer cannot tell the explanations apart.
    */
   readonly simplerAnswers: ReadonlySet<string>;
-  /** Other explanations (ids joined by `+`) of the same kind that give the very same answer here: a tie one answer cannot break. */
+  /**
+   * Other explanations (ids joined by `+`) exactly as simple that give the very same answer
+   * here — another single rule for a rule; another rule with one slip as far off for a
+   * compound: a tie one answer cannot break (the accuracy test sets these cases aside).
+   */
   readonly ties: readonly string[];
 }
 
@@ -124,10 +131,9 @@ function methodsFor(op: Op, values: readonly string[]): Method[] {
             {
               a,
               b,
-              // Short by exactly the carry is a carry not added, which the engine does not call a fact.
-              wrong: wrongFacts('x', a, b).filter(
-                (w) => !(c.carryIn > 0 && w === a * b - c.carryIn),
-              ),
+              // Short by exactly a carry added after multiplying is a carry not added, which
+              // the engine does not call a fact (the engine's own list).
+              wrong: wrongProducts(a, b, m.carry === 'before' ? 0 : c.carryIn),
               slip: (w: number) => ({ partial: j, column: i, product: w }),
             },
           ];
@@ -136,6 +142,29 @@ function methodsFor(op: Op, values: readonly string[]): Method[] {
     },
   });
   return [make(null, {}), ...MULTIPLICATION_METHOD_RULES.map((r) => make(r.id, r.method))];
+}
+
+const RIGHT: Record<Op, (a: number, b: number) => number> = {
+  addition: (a, b) => a + b,
+  subtraction: (a, b) => a - b,
+  multiplication: (a, b) => a * b,
+};
+
+/**
+ * Whether a method with one slip from the list, as far off as `size` (a fact worked out
+ * `size` more or less than it is), in its own working writes `answer`.
+ */
+function writesWithSlipOfSize(op: Op, m: Method, answer: string, size: number): boolean {
+  return m
+    .facts()
+    .some((f) =>
+      f.wrong.some(
+        (w) =>
+          Math.abs(w - RIGHT[op](f.a, f.b)) === size &&
+          !isRote(op, f.a, f.b, w) &&
+          m.run(f.slip(w)) === answer,
+      ),
+    );
 }
 
 /** The answers of two rules together (DESIGN.md ranks such a pair above a rule with a slip). */
@@ -239,7 +268,14 @@ export function evaluationCases(seed: number, perKind: number): EvaluationCase[]
           const r = correct.run(f.slip(w));
           if (r !== null && r !== expected) slipAnswers.add(r);
         }
+      // Every single rule of the catalog for this operation, those that are not a change to
+      // the column method too (mul.zeros-dropped sets the zeros aside): each is simpler than a slip.
       const rules = new Set(ruleAnswers.values());
+      const parsed = parseProblem(text);
+      if (parsed.ok)
+        for (const r of RULES)
+          if (r.operation === op && r.kind === 'systematic')
+            for (const a of applyRule(r.id, parsed.problem)) if (a !== expected) rules.add(a);
       const pairs = pairAnswers(op, values, methods);
       const kind = pick(['rule', 'fact', 'compound', 'swap', 'right'] as const);
       if (counts[kind] >= perKind) continue;
@@ -289,10 +325,15 @@ export function evaluationCases(seed: number, perKind: number): EvaluationCase[]
         const answer = m.run(f.slip(w));
         const own = ruleAnswers.get(m.id as string);
         if (answer === null || answer === expected || answer === own) continue;
-        // Another rule that writes the very same answer here takes the same slip alike.
-        const ties = [...ruleAnswers.entries()]
-          .filter(([other, a]) => other !== m.id && a === own)
-          .map(([other]) => `${other}+${FACT_ID[op]}`);
+        // Another rule with one slip just as far off (from the same list, in its own working)
+        // that writes this very answer: an explanation exactly as simple, which no one — the
+        // generator's own methods included — can tell from this one by the answer alone. The
+        // accuracy test sets such cases aside as ambiguous. (Where another rule needs only a
+        // smaller slip, that explanation is the simpler one; the case stays in the count.)
+        const size = Math.abs(w - RIGHT[op](f.a, f.b));
+        const ties = fired
+          .filter((other) => other !== m && writesWithSlipOfSize(op, other, answer, size))
+          .map((other) => `${other.id as string}+${FACT_ID[op]}`);
         out.push({
           ...base,
           kind,
