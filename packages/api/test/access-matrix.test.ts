@@ -447,6 +447,11 @@ function MISS_CASES(): Case[] {
       expect: scoped(200),
     },
     {
+      route: 'GET /api/photos/:id/small',
+      path: ({ photo }) => `/api/photos/${photo}/small`,
+      expect: scoped(200),
+    },
+    {
       route: 'PUT /api/photos/:id/marks',
       path: ({ photo }) => `/api/photos/${photo}/marks`,
       body: { marks: [{ x: 0.5, y: 0.5, label: 'here' }] },

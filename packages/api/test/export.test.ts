@@ -162,14 +162,16 @@ describe('GET /api/export', () => {
     const photos = json(files, 'tables/photos.json');
     expect(photos.length).toBeGreaterThan(0);
     for (const p of photos) {
-      for (const key of [p.storage_key, p.thumb_key] as string[]) {
+      // The list rows' small square has no column: its name follows from the display image's.
+      const small = (p.storage_key as string).replace(/\.jpg$/, '-small.jpg');
+      for (const key of [p.storage_key, p.thumb_key, small] as string[]) {
         const file = files.get(`photos/${key}`);
         expect(file, key).toBeDefined();
         expect((await sharp(file!).metadata()).format).toBeDefined();
       }
     }
     const inZip = [...files.keys()].filter((n) => n.startsWith('photos/'));
-    expect(inZip).toHaveLength(photos.length * 2);
+    expect(inZip).toHaveLength(photos.length * 3);
     expect(readdirSync(photosDir()).filter((f) => !f.startsWith('.')).length).toBeGreaterThan(
       inZip.length,
     );
@@ -206,8 +208,9 @@ describe('DELETE /api/households/current', () => {
         'SELECT p.storage_key, p.thumb_key FROM photos p JOIN misses m ON m.id = p.miss_id WHERE m.household_id = ?',
         { replacements: [otherHouseholdId], type: QueryTypes.SELECT },
       )
-    ).flatMap((p) => [p.storage_key, p.thumb_key]);
+    ).flatMap((p) => [p.storage_key, p.thumb_key, p.storage_key.replace(/\.jpg$/, '-small.jpg')]);
     expect(theirFiles.length).toBeGreaterThan(0);
+    for (const key of theirFiles) expect(existsSync(path.join(photosDir(), key)), key).toBe(true);
 
     // The tutor also belongs to another household: their account must survive.
     const tutorBoth = await registered(t, 'both-ways@example.test', 'The Both household');

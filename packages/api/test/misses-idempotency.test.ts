@@ -61,8 +61,8 @@ describe('POST /api/misses with an Idempotency-Key', () => {
     const after = await footprint(t);
     expect(after.misses).toBe(before.misses + 1);
     expect(after.photos).toBe(before.photos + 1);
-    // Kept: one display image and one thumbnail for the one photo, no copies.
-    expect(after.files.length - before.files.length).toBe(2);
+    // Kept: one display image, one thumbnail and one small square for the one photo, no copies.
+    expect(after.files.length - before.files.length).toBe(3);
   });
 
   it('makes one miss when two copies race', async () => {
@@ -76,7 +76,7 @@ describe('POST /api/misses with an Idempotency-Key', () => {
     expect(a.body.id).toBe(b.body.id);
     const after = await footprint(t);
     expect(after.misses).toBe(before.misses + 1);
-    expect(after.files.length - before.files.length).toBe(2);
+    expect(after.files.length - before.files.length).toBe(3);
   });
 
   it('refuses the key reused for other content with 409, writing nothing', async () => {

@@ -135,9 +135,10 @@ describe('POST /api/misses', () => {
     ]);
     expect(res.status).toBe(201);
     const added = photoFiles(t).filter((f) => !before.has(f));
-    expect(added).toHaveLength(2);
+    // The display image, its thumbnail and the list rows' small square.
+    expect(added).toHaveLength(3);
     for (const name of added) {
-      expect(name).toMatch(/^[0-9a-f-]{36}(-thumb)?\.jpg$/);
+      expect(name).toMatch(/^[0-9a-f-]{36}(-thumb|-small)?\.jpg$/);
       const { statSync } = await import('node:fs');
       const mode = statSync(`${t.dataDir}/photos/${name}`).mode & 0o777;
       expect(mode).toBe(0o600);
@@ -505,7 +506,7 @@ describe('DELETE', () => {
     );
     const before = photoFiles(t);
     await owner.send('delete', `/api/misses/${created.body.id}`).expect(204);
-    expect(photoFiles(t)).toHaveLength(before.length - 4);
+    expect(photoFiles(t)).toHaveLength(before.length - 6);
     await owner.get(`/api/misses/${created.body.id}`).expect(404);
     await owner.get(`/api/photos/${created.body.photos[0].id}/image`).expect(404);
   });
@@ -517,7 +518,7 @@ describe('DELETE', () => {
     const before = photoFiles(t);
     const [first, second] = created.body.photos;
     await owner.send('delete', `/api/photos/${first.id}`).expect(204);
-    expect(photoFiles(t)).toHaveLength(before.length - 2);
+    expect(photoFiles(t)).toHaveLength(before.length - 3);
     const res = await owner.get(`/api/misses/${created.body.id}`).expect(200);
     expect(res.body.photos.map((p: { id: number }) => p.id)).toEqual([second.id]);
   });

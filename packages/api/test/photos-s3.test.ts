@@ -49,8 +49,8 @@ describe('photos on S3-compatible storage', () => {
     const ids = await studentIds(owner);
     await missWithPhoto(ids.get('Wren')!);
     const added = (await s3.keys()).filter((k) => !before.has(k));
-    expect(added).toHaveLength(2);
-    for (const key of added) expect(key).toMatch(/^[0-9a-f-]{36}(-thumb)?\.jpg$/);
+    expect(added).toHaveLength(3);
+    for (const key of added) expect(key).toMatch(/^[0-9a-f-]{36}(-thumb|-small)?\.jpg$/);
     expect(photoFiles(t)).toEqual([]);
   });
 
@@ -58,7 +58,7 @@ describe('photos on S3-compatible storage', () => {
     const ids = await studentIds(owner);
     const wren = (await missWithPhoto(ids.get('Wren')!)).photos[0]!.id;
     const milo = (await missWithPhoto(ids.get('Milo')!)).photos[0]!.id;
-    for (const which of ['image', 'thumb']) {
+    for (const which of ['image', 'thumb', 'small']) {
       const res = await owner.get(`/api/photos/${wren}/${which}`).buffer(true).expect(200);
       expect(res.headers['content-type']).toBe('image/jpeg');
       expect(res.headers['cache-control']).toBe('private, max-age=3600');
@@ -74,7 +74,7 @@ describe('photos on S3-compatible storage', () => {
     const ids = await studentIds(owner);
     const before = new Set(await s3.keys());
     const miss = await missWithPhoto(ids.get('Wren')!);
-    expect((await s3.keys()).length).toBe(before.size + 2);
+    expect((await s3.keys()).length).toBe(before.size + 3);
     await owner.send('delete', `/api/photos/${miss.photos[0]!.id}`).expect(204);
     expect(await s3.keys()).toEqual([...before].sort());
   });

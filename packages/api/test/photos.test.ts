@@ -1,7 +1,10 @@
+import { existsSync, readFileSync, rmSync } from 'node:fs';
+import path from 'node:path';
+import { QueryTypes } from 'sequelize';
 import sharp from 'sharp';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { PhotosService } from '../src/photos/photos.service.js';
-import { fixture, photoFiles, postMultipart, studentIds, today } from './support/photos.js';
+import { db, fixture, photoFiles, postMultipart, studentIds, today } from './support/photos.js';
 import {
   type Client,
   DEMO,
@@ -42,16 +45,19 @@ beforeAll(async () => {
 });
 afterAll(() => t.close());
 
-describe('GET /api/photos/:id/image and /thumb', () => {
-  it.each(['image', 'thumb'])('serves the %s privately with its real type', async (which) => {
-    const res = await owner.get(`/api/photos/${wrenPhoto}/${which}`).buffer(true).expect(200);
-    expect(res.headers['content-type']).toBe('image/jpeg');
-    expect(res.headers['cache-control']).toBe('private, max-age=3600');
-    expect(res.headers['x-content-type-options']).toBe('nosniff');
-    const meta = await sharp(res.body as Buffer).metadata();
-    expect(meta.format).toBe('jpeg');
-    expect(Number(res.headers['content-length'])).toBe((res.body as Buffer).length);
-  });
+describe('GET /api/photos/:id/image, /thumb and /small', () => {
+  it.each(['image', 'thumb', 'small'])(
+    'serves the %s privately with its real type',
+    async (which) => {
+      const res = await owner.get(`/api/photos/${wrenPhoto}/${which}`).buffer(true).expect(200);
+      expect(res.headers['content-type']).toBe('image/jpeg');
+      expect(res.headers['cache-control']).toBe('private, max-age=3600');
+      expect(res.headers['x-content-type-options']).toBe('nosniff');
+      const meta = await sharp(res.body as Buffer).metadata();
+      expect(meta.format).toBe('jpeg');
+      expect(Number(res.headers['content-length'])).toBe((res.body as Buffer).length);
+    },
+  );
 
   it('serves a granted student’s photo to the tutor and 404s the rest', async () => {
     await tutor.get(`/api/photos/${wrenPhoto}/image`).expect(200);
@@ -59,7 +65,40 @@ describe('GET /api/photos/:id/image and /thumb', () => {
     await tutor.get(`/api/photos/${miloPhoto}/thumb`).expect(404);
     await stranger.get(`/api/photos/${wrenPhoto}/image`).expect(404);
     await stranger.get(`/api/photos/${wrenPhoto}/thumb`).expect(404);
+    await tutor.get(`/api/photos/${miloPhoto}/small`).expect(404);
+    await stranger.get(`/api/photos/${wrenPhoto}/small`).expect(404);
     await owner.get('/api/photos/999999/image').expect(404);
+    await owner.get('/api/photos/999999/small').expect(404);
+  });
+
+  it('serves the list rows a 128 px square cut from the thumbnail, with no metadata', async () => {
+    const res = await owner.get(`/api/photos/${wrenPhoto}/small`).buffer(true).expect(200);
+    const meta = await sharp(res.body as Buffer).metadata();
+    expect([meta.width, meta.height]).toEqual([128, 128]);
+    expect(meta.exif).toBeUndefined();
+    expect(meta.icc).toBeUndefined();
+    expect(meta.xmp).toBeUndefined();
+    const thumb = await owner.get(`/api/photos/${wrenPhoto}/thumb`).buffer(true).expect(200);
+    expect((res.body as Buffer).length).toBeLessThan((thumb.body as Buffer).length);
+  });
+
+  it('makes the square of a photo saved before squares existed on first request, and keeps it', async () => {
+    const { photo } = await missWithPhoto((await studentIds(owner)).get('Wren')!);
+    const [row] = await db(t).query<{ storage_key: string }>(
+      'SELECT storage_key FROM photos WHERE id = ?',
+      { replacements: [photo], type: QueryTypes.SELECT },
+    );
+    const square = path.join(t.dataDir, 'photos', row!.storage_key.replace(/\.jpg$/, '-small.jpg'));
+    // A photo from before: its display image and thumbnail only.
+    rmSync(square);
+    const res = await owner.get(`/api/photos/${photo}/small`).buffer(true).expect(200);
+    expect(res.headers['cache-control']).toBe('private, max-age=3600');
+    const meta = await sharp(res.body as Buffer).metadata();
+    expect([meta.format, meta.width, meta.height]).toEqual(['jpeg', 128, 128]);
+    expect(readFileSync(square).equals(res.body as Buffer)).toBe(true);
+    // Kept, and not taken for a file no row refers to.
+    await t.app.get(PhotosService).sweepOrphans();
+    expect(existsSync(square)).toBe(true);
   });
 
   it('exposes no photo folder: a stored file name is not a URL', async () => {
@@ -129,8 +168,8 @@ describe('files no row refers to', () => {
     await owner.get(`/api/photos/${photo}/image`).expect(404);
     // The database cascade removes the rows; the files wait for the sweep PhotosModule runs at start-up.
     const removed = await t.app.get(PhotosService).sweepOrphans();
-    expect(removed).toBe(2);
-    expect(photoFiles(t)).toHaveLength(before.length - 2);
+    expect(removed).toBe(3);
+    expect(photoFiles(t)).toHaveLength(before.length - 3);
     await owner.get(`/api/photos/${wrenPhoto}/image`).expect(200);
   });
 });

@@ -14,7 +14,12 @@ import { MemberCache } from '../households/member-cache.js';
 import { HouseholdsService } from '../households/households.service.js';
 import { SessionStoreService } from '../sessions/session-store.service.js';
 import { LocalPhotoStorage } from '../storage/local-photo-storage.js';
-import { isPhotoKey, PHOTO_STORAGE, type PhotoStorage } from '../storage/photo-storage.js';
+import {
+  isPhotoKey,
+  PHOTO_STORAGE,
+  smallKeyOf,
+  type PhotoStorage,
+} from '../storage/photo-storage.js';
 import {
   deletionOrder,
   type HouseholdTable,
@@ -333,6 +338,8 @@ export class HouseholdDataService {
         for (const [column, value] of Object.entries(row)) {
           if (typeof value === 'string' && FILE_COLUMNS.test(column) && value.length < 512) {
             await add(value);
+            // The list rows' small square has no column of its own (see smallKeyOf).
+            if (column === 'storage_key') await add(smallKeyOf(value));
           }
         }
       }
@@ -355,6 +362,9 @@ function objectsOf(tables: Map<string, Row[]>): Map<string, string> {
       for (const [column, value] of Object.entries(row)) {
         if (typeof value === 'string' && FILE_COLUMNS.test(column) && isPhotoKey(value)) {
           objects.set(value, `photos/${value}`);
+          if (column === 'storage_key') {
+            objects.set(smallKeyOf(value), `photos/${smallKeyOf(value)}`);
+          }
         }
       }
     }

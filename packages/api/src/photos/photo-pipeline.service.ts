@@ -9,6 +9,7 @@ import {
   ACCEPTED_TYPES_TEXT,
   DISPLAY_LONGEST_SIDE,
   MAX_INPUT_PIXELS,
+  SMALL_THUMB_SIDE,
   THUMB_LONGEST_SIDE,
 } from './photo-limits.js';
 
@@ -22,12 +23,27 @@ export interface ProcessedPhoto {
   contentType: 'image/jpeg';
   display: EncodedImage;
   thumb: EncodedImage;
+  /** The list rows' square thumbnail (SMALL_THUMB_SIDE). */
+  small: EncodedImage;
+}
+
+/**
+ * The list rows' square thumbnail, cut from the middle of an image already re-encoded (the
+ * thumbnail, or the display image): no metadata to carry over.
+ */
+export async function smallThumb(image: Buffer): Promise<EncodedImage> {
+  const out = await sharp(image, { failOn: 'error' })
+    .resize(SMALL_THUMB_SIDE, SMALL_THUMB_SIDE, { fit: 'cover', withoutEnlargement: true })
+    .jpeg({ quality: 78 })
+    .toBuffer({ resolveWithObject: true });
+  return { data: out.data, width: out.info.width, height: out.info.height };
 }
 
 /**
  * Checks an uploaded photo and re-encodes it: upright (EXIF orientation applied), no
  * metadata at all (EXIF, GPS, camera serials, XMP, ICC are dropped by re-encoding),
- * a display image and a thumbnail, both JPEG so PDFs can embed them as they are.
+ * a display image, a thumbnail and a small square for list rows, all JPEG so PDFs can embed
+ * them as they are.
  */
 @Injectable()
 export class PhotoPipeline {
@@ -61,6 +77,7 @@ export class PhotoPipeline {
         contentType: 'image/jpeg',
         display: { data: display.data, width: display.info.width, height: display.info.height },
         thumb: { data: thumb.data, width: thumb.info.width, height: thumb.info.height },
+        small: await smallThumb(thumb.data),
       };
     } catch (err) {
       throw new UnprocessableEntityException(refusal(label, err));

@@ -7,7 +7,7 @@ import { IdParam } from '../common/decorators/id-param.decorator.js';
 import { Roles } from '../common/decorators/roles.decorator.js';
 import type { MemberContext } from '../common/member-context.js';
 import { SetMarksDto } from './dto/set-marks.dto.js';
-import { PhotosService } from './photos.service.js';
+import { PhotosService, type PhotoFileKind } from './photos.service.js';
 
 @ApiTags('photos')
 @Controller('photos')
@@ -32,6 +32,16 @@ export class PhotosController {
     return this.send(member, id, 'thumb', res);
   }
 
+  /** A small square (128 px) for list rows; made on first request for older photos. */
+  @Get(':id/small')
+  small(
+    @CurrentMember() member: MemberContext,
+    @IdParam() id: number,
+    @Res({ passthrough: true }) res: Response,
+  ) {
+    return this.send(member, id, 'small', res);
+  }
+
   /** Replaces the photo's pins (parents and granted tutors alike). */
   @Put(':id/marks')
   setMarks(
@@ -52,7 +62,7 @@ export class PhotosController {
   private async send(
     member: MemberContext,
     id: number,
-    which: 'image' | 'thumb',
+    which: PhotoFileKind,
     res: Response,
   ): Promise<StreamableFile> {
     const file = await this.photos.file(member, id, which);

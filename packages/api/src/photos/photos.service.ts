@@ -17,12 +17,22 @@ import type { MemberContext } from '../common/member-context.js';
 import type { AppConfig } from '../config/app.config.js';
 import { missScope } from '../misses/miss-scope.js';
 import { Miss } from '../misses/models/miss.model.js';
-import { PHOTO_STORAGE, type PhotoStorage } from '../storage/photo-storage.js';
+import { PHOTO_STORAGE, smallKeyOf, type PhotoStorage } from '../storage/photo-storage.js';
 import type { MarkDto } from './dto/set-marks.dto.js';
 import { DecodeSlots } from './decode-slots.js';
 import { PhotoMark } from './models/photo-mark.model.js';
 import { Photo } from './models/photo.model.js';
-import { PhotoPipeline, type ProcessedPhoto } from './photo-pipeline.service.js';
+import { PhotoPipeline, smallThumb, type ProcessedPhoto } from './photo-pipeline.service.js';
+
+/** Which file of a photo: the display image, the thumbnail, or the list rows' small square. */
+export type PhotoFileKind = 'image' | 'thumb' | 'small';
+
+/** Every file a photo row may own. */
+const keysOf = (p: Pick<Photo, 'storageKey' | 'thumbKey'>) => [
+  p.storageKey,
+  p.thumbKey,
+  smallKeyOf(p.storageKey),
+];
 
 /** What the pipeline needs of an upload (a multer file has it; the demo seeder makes its own). */
 export interface UploadedPhoto {
@@ -130,6 +140,8 @@ export class PhotosService {
         written.push(item.storageKey);
         await this.storage.put(item.thumbKey, p.thumb.data);
         written.push(item.thumbKey);
+        await this.storage.put(smallKeyOf(item.storageKey), p.small.data);
+        written.push(smallKeyOf(item.storageKey));
         staged.push(item);
       }
       return staged;
@@ -147,7 +159,7 @@ export class PhotosService {
 
   /** Removes the files of photos whose rows were never committed. */
   async discard(staged: readonly StagedPhoto[]): Promise<void> {
-    await this.removeKeys(staged.flatMap((s) => [s.storageKey, s.thumbKey]));
+    await this.removeKeys(staged.flatMap(keysOf));
   }
 
   async createRows(
@@ -234,7 +246,7 @@ export class PhotosService {
       where: { missId },
       transaction,
     });
-    return rows.flatMap((r) => [r.storageKey, r.thumbKey]);
+    return rows.flatMap(keysOf);
   }
 
   /** Best effort: a file that cannot be removed is logged by key (no personal data) and swept later. */
@@ -253,7 +265,7 @@ export class PhotosService {
     const stored = await this.storage.keys();
     if (stored.length === 0) return 0;
     const rows = await this.photoModel.findAll({ attributes: ['storageKey', 'thumbKey'] });
-    const known = new Set(rows.flatMap((r) => [r.storageKey, r.thumbKey]));
+    const known = new Set(rows.flatMap(keysOf));
     const orphans = stored.filter((k) => !known.has(k));
     await this.removeKeys(orphans);
     return orphans.length;
@@ -273,11 +285,34 @@ export class PhotosService {
   async file(
     member: MemberContext,
     id: number,
-    which: 'image' | 'thumb',
+    which: PhotoFileKind,
   ): Promise<{ data: Buffer; contentType: string }> {
     const photo = await this.findModel(member, id);
+    if (which === 'small') return { data: await this.small(photo), contentType: 'image/jpeg' };
     const data = await this.storage.read(which === 'image' ? photo.storageKey : photo.thumbKey);
     return { data, contentType: photo.contentType };
+  }
+
+  /**
+   * The list rows' small square. A photo saved before squares were made gets its own on first
+   * request, cut from its thumbnail (already re-encoded, no metadata) and kept; two requests at
+   * once write the same bytes under the same key, so either may win.
+   */
+  private async small(photo: Photo): Promise<Buffer> {
+    const key = smallKeyOf(photo.storageKey);
+    try {
+      return await this.storage.read(key);
+    } catch (err) {
+      if ((err as NodeJS.ErrnoException).code !== 'ENOENT') throw err;
+    }
+    const { data } = await smallThumb(await this.storage.read(photo.thumbKey));
+    try {
+      await this.storage.put(key, data);
+    } catch (err) {
+      // Still shown: it is made again next time.
+      this.logger.warn(`could not keep photo file ${key}: ${(err as Error).message}`);
+    }
+    return data;
   }
 
   async setMarks(member: MemberContext, id: number, marks: readonly MarkDto[]): Promise<PhotoJson> {
@@ -304,7 +339,7 @@ export class PhotosService {
     const keys = await this.sequelize.transaction(async (transaction) => {
       const photo = await this.findModel(member, id, transaction);
       await photo.destroy({ transaction });
-      return [photo.storageKey, photo.thumbKey];
+      return keysOf(photo);
     });
     await this.removeKeys(keys);
   }

@@ -24,3 +24,12 @@ export function isPhotoKey(key: string): boolean {
 export function assertKey(key: string): void {
   if (!isPhotoKey(key)) throw new Error('Invalid photo storage key');
 }
+
+/**
+ * The list rows' small square follows from the display image's key (`<uuid>.jpg` →
+ * `<uuid>-small.jpg`), so photos saved before squares existed need no new column: theirs is made
+ * on first request (PhotosService).
+ */
+export function smallKeyOf(storageKey: string): string {
+  return storageKey.replace(/\.jpg$/, '-small.jpg');
+}
