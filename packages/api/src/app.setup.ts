@@ -16,6 +16,7 @@ import { API_VERSION } from './health/health.controller.js';
 import { mountDevOutboxPage } from './mail/dev-outbox.page.js';
 import { MetricsService } from './metrics/metrics.service.js';
 import { SessionStoreService } from './sessions/session-store.service.js';
+import { HttpExceptionFilter } from './common/filters/http-exception.filter.js';
 
 const strictCsp = {
   defaultSrc: ["'self'"],
@@ -90,8 +91,15 @@ export function configureApp(app: NestExpressApplication, config: AppConfig): vo
   sessions.use(absoluteLifetime(config.session.maxAgeMs));
   sessions.use(passport.initialize());
   sessions.use(passport.session());
+  // The store or the member lookup failing (a busy or unreachable database) answers as a
+  // route's error would: through the exception filter, never Express's default 500 page.
+  const errors = new HttpExceptionFilter(metrics);
   app.use((req: Request, res: Response, next: NextFunction) =>
-    needsSession(req.path) ? sessions(req, res, next) : next(),
+    needsSession(req.path)
+      ? sessions(req, res, (err?: unknown) =>
+          err && err !== 'route' ? errors.respond(err, req, res) : next(err),
+        )
+      : next(),
   );
 
   app.useGlobalPipes(createValidationPipe());

@@ -67,6 +67,8 @@ describe('a database held by another writer', () => {
       const res = await owner.post('/api/students', { name: 'Waits', gradeLevel: '2' });
       expect(res.status).toBe(503);
       expect(res.body.message).toMatch(/busy with other changes, so nothing was saved/);
+      // Worth trying again shortly: the other writer will be done.
+      expect(Number(res.headers['retry-after'])).toBeGreaterThan(0);
       await run(other, 'ROLLBACK');
     } finally {
       await new Promise((resolve) => other.close(resolve));

@@ -1,6 +1,6 @@
 import { mkdirSync } from 'node:fs';
 import path from 'node:path';
-import { Injectable, type OnApplicationShutdown } from '@nestjs/common';
+import { Injectable, Logger, type OnApplicationShutdown } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
 import connectPgSimple from 'connect-pg-simple';
 import connectSqlite3 from 'connect-sqlite3';
@@ -40,6 +40,7 @@ function throttleTouches(store: session.Store, intervalMs: number): session.Stor
 export class SessionStoreService implements OnApplicationShutdown {
   private readonly sqlite: sqlite3.Database | undefined;
   private readonly pool: pg.Pool | undefined;
+  private readonly logger = new Logger('Sessions');
   readonly store: session.Store;
 
   constructor(config: ConfigService) {
@@ -47,6 +48,9 @@ export class SessionStoreService implements OnApplicationShutdown {
     const touchEvery = Math.min(60_000, app.session.idleMs / 10);
     if (app.databaseUrl) {
       this.pool = new pg.Pool({ connectionString: app.databaseUrl, max: 4 });
+      // An idle connection the server dropped (a restart, pg_terminate_backend) is let go and
+      // a new one made at the next request; without a listener the 'error' would end the process.
+      this.pool.on('error', (e) => this.logger.warn(`a sessions connection closed: ${e.message}`));
       this.store = throttleTouches(
         new PgStore({ pool: this.pool, tableName: 'sessions', createTableIfMissing: false }),
         touchEvery,

@@ -9,6 +9,7 @@ import {
 import type { Request, Response } from 'express';
 import { MetricsService } from '../../metrics/metrics.service.js';
 import {
+  ConnectionError,
   DatabaseError,
   ForeignKeyConstraintError,
   UniqueConstraintError,
@@ -37,6 +38,8 @@ export interface ErrorBody {
   error: string;
   message: string;
   fields?: Record<string, string>;
+  /** Seconds, sent as Retry-After (not in the body): the fault passes, the request can be sent again. */
+  retryAfter?: number;
 }
 
 /** Every error leaves as `{ statusCode, error, message, fields? }` (DESIGN.md). */
@@ -47,15 +50,29 @@ export class HttpExceptionFilter implements ExceptionFilter {
   constructor(private readonly metrics: MetricsService) {}
 
   catch(exception: unknown, host: ArgumentsHost): void {
-    const res = host.switchToHttp().getResponse<Response>();
-    const body = this.toBody(exception);
+    this.respond(
+      exception,
+      host.switchToHttp().getRequest<Request>(),
+      host.switchToHttp().getResponse<Response>(),
+    );
+  }
+
+  /** Also for errors of the Express middleware before Nest's routes (the session store's). */
+  respond(exception: unknown, req: Request, res: Response): void {
+    const { retryAfter, ...body } = this.toBody(exception);
     // Only what identifies the fault: errors from the ORM carry row values (children's data).
     if (body.statusCode >= 500) {
       const e = exception instanceof Error ? exception : new Error(String(exception));
-      const reqId = host.switchToHttp().getRequest<Request>().id;
-      this.logger.error({ reqId, name: e.name, message: e.message, stack: e.stack });
+      this.logger.error({
+        reqId: req.id,
+        name: e.name,
+        message: e.message,
+        code: faultCode(exception),
+        stack: e.stack,
+      });
     }
     if (res.headersSent) return;
+    if (retryAfter) res.setHeader('Retry-After', String(retryAfter));
     res.status(body.statusCode).json(body);
   }
 
@@ -120,9 +137,67 @@ export class HttpExceptionFilter implements ExceptionFilter {
 }
 
 function faultCode(exception: unknown): unknown {
-  return exception instanceof DatabaseError
-    ? (exception.parent as { code?: string }).code
-    : (exception as { code?: unknown } | null)?.code;
+  if (exception instanceof DatabaseError || exception instanceof ConnectionError) {
+    return (exception.parent as { code?: string } | undefined)?.code;
+  }
+  return (exception as { code?: unknown } | null)?.code;
+}
+
+/**
+ * PostgreSQL's SQLSTATEs (and the network's errors) that say "not now" rather than "wrong":
+ * another transaction won (serialization failure, deadlock), a lock or statement waited past
+ * its timeout, the server is shutting down, restarting or out of connections, or the
+ * connection broke. The transaction was rolled back whole; the same request can be sent again.
+ */
+const POSTGRES_BUSY = new Set(['40001', '40P01', '55P03', '57014']);
+const DATABASE_GONE = new Set([
+  '57P01',
+  '57P02',
+  '57P03',
+  '53300',
+  '53400',
+  'ECONNREFUSED',
+  'ECONNRESET',
+  'ETIMEDOUT',
+  'EPIPE',
+  'ENOTFOUND',
+  'EAI_AGAIN',
+  'EHOSTUNREACH',
+]);
+
+/** The connection dropped under a query: pg's errors for it carry no code, only these words. */
+const BROKEN_CONNECTION =
+  /Connection terminated|not queryable|terminating connection|Connection refused|timeout exceeded when trying to connect/i;
+
+function databaseUnavailable(exception: unknown): ErrorBody | undefined {
+  const code = faultCode(exception);
+  if (code === 'SQLITE_BUSY' || (typeof code === 'string' && POSTGRES_BUSY.has(code))) {
+    // Another write held the database past its wait; the request was rolled back whole.
+    return {
+      statusCode: HttpStatus.SERVICE_UNAVAILABLE,
+      error: REASONS[503]!,
+      message: 'The notebook is busy with other changes, so nothing was saved. Please try again.',
+      retryAfter: 2,
+    };
+  }
+  const cause =
+    exception instanceof DatabaseError || exception instanceof ConnectionError
+      ? exception.parent
+      : exception;
+  if (
+    exception instanceof ConnectionError ||
+    (typeof code === 'string' && (DATABASE_GONE.has(code) || code.startsWith('08'))) ||
+    (cause instanceof Error && !code && BROKEN_CONNECTION.test(cause.message))
+  ) {
+    return {
+      statusCode: HttpStatus.SERVICE_UNAVAILABLE,
+      error: REASONS[503]!,
+      message:
+        'The server cannot reach its database right now, so nothing was saved. Please try again in a minute.',
+      retryAfter: 30,
+    };
+  }
+  return undefined;
 }
 
 /** Express maps broken JSON and broken %-escapes to 400s with parser wording; name what was wrong. */
@@ -148,19 +223,13 @@ function withRequestFault(body: ErrorBody, cause: unknown): ErrorBody {
 }
 
 /**
- * A full disk, a read-only data folder or a database held too long by another writer: the
- * write was refused whole and can be retried later.
+ * A full disk, a read-only data folder, a database held too long by another writer, or a
+ * PostgreSQL that is busy or out of reach: the write was refused whole and can be retried later.
  */
 function storageFault(exception: unknown): ErrorBody | undefined {
+  const unavailable = databaseUnavailable(exception);
+  if (unavailable) return unavailable;
   const code = faultCode(exception);
-  if (code === 'SQLITE_BUSY') {
-    // Another write held the database past busy_timeout; the request was rolled back whole.
-    return {
-      statusCode: HttpStatus.SERVICE_UNAVAILABLE,
-      error: REASONS[503]!,
-      message: 'The notebook is busy with other changes, so nothing was saved. Please try again.',
-    };
-  }
   if (code === 'SQLITE_FULL' || code === 'ENOSPC') {
     return {
       statusCode: 507,
