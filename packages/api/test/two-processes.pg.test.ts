@@ -129,6 +129,58 @@ describe('two processes, one PostgreSQL and one bucket', () => {
     await as(a, tutor).get(`/api/misses/${milos.body.id}`).expect(404);
   });
 
+  /** One owner session on A for the tests below (SIGN_IN_LIMIT_PER_MINUTE is 3 per address). */
+  let ownerOnA: Promise<Client> | undefined;
+  const signedInOnA = () =>
+    (ownerOnA ??= (async () => {
+      const owner = new Client(request.agent(a.url));
+      expect((await owner.signIn(DEMO.owner)).status).toBe(200);
+      return owner;
+    })());
+
+  it('holds on one process, at its next request, a grant taken away on the other', async () => {
+    const owner = await signedInOnA();
+    const students = await studentIds(owner);
+    const [wren, milo] = [students.get('Wren')!, students.get('Milo')!];
+    const members = (await owner.get('/api/members').expect(200)).body.items as {
+      id: number;
+      email: string;
+    }[];
+    const grant = members.find((m) => m.email === DEMO.tutor)!.id;
+    const tutor = new Client(request.agent(b.url));
+    await tutor.signIn(DEMO.tutor);
+    // The demo tutor works with Wren; asked twice on B, as a busy tutor would.
+    await tutor.get(`/api/students/${wren}`).expect(200);
+    await tutor.get(`/api/students/${wren}`).expect(200);
+    await tutor.get(`/api/students/${milo}`).expect(404);
+    try {
+      await owner.send('patch', `/api/members/${grant}`, { studentIds: [milo] }).expect(200);
+      // No wait: B's very next request already knows.
+      await tutor.get(`/api/students/${wren}`).expect(404);
+      await tutor.get(`/api/students/${milo}`).expect(200);
+    } finally {
+      await owner.send('patch', `/api/members/${grant}`, { studentIds: [wren] }).expect(200);
+    }
+    await tutor.get(`/api/students/${wren}`).expect(200);
+  });
+
+  it('counts on one process a miss just logged on the other', async () => {
+    const owner = await signedInOnA();
+    const wren = (await studentIds(owner)).get('Wren')!;
+    const onB = as(b, owner);
+    const list = `/api/misses?studentId=${wren}`;
+    const before = (await onB.get(list).expect(200)).body.total as number;
+    expect((await onB.get(list).expect(200)).body.total).toBe(before);
+    const created = await postMultipart(owner, '/api/misses', {
+      studentId: wren,
+      occurredOn: today(),
+      problem: '62 - 27',
+      answer: '45',
+    });
+    expect(created.status, created.text).toBe(201);
+    expect((await onB.get(list).expect(200)).body.total).toBe(before + 1);
+  });
+
   it('holds a sign-in limit counted on one process on the other', async () => {
     const tries = async (p: ServerProcess) =>
       (await new Client(request.agent(p.url)).signIn(DEMO.parent, 'not-the-password')).status;

@@ -42,8 +42,11 @@ const HOOKS = [
  * A short-lived cache of the session user and their memberships, so a signed-in request does
  * not read `users`, `memberships` and `student_grants` every time. Any write through the models
  * above empties it (again once its transaction commits), and services that change those tables
- * in raw SQL call `clear()` themselves; entries also expire after `ttlMs`, which bounds how
- * long another server process sharing the database can go on using a revoked grant.
+ * in raw SQL call `clear()` themselves; entries also expire after `ttlMs`.
+ *
+ * On PostgreSQL (DATABASE_URL) nothing is kept: several processes share the database, and a
+ * grant removed through one must hold on the others at their very next request, which no
+ * per-process copy can promise (a notice from the other process could still be on its way).
  */
 @Injectable()
 export class MemberCache implements OnModuleDestroy {
@@ -53,9 +56,11 @@ export class MemberCache implements OnModuleDestroy {
   private readonly users = new Map<number, Entry<SessionUser | null>>();
   private readonly memberships = new Map<number, Entry<readonly CachedMembership[]>>();
   private readonly hookName = `member-cache-${randomUUID()}`;
+  private readonly shared: boolean;
 
   // The connection is injected so the models are registered with it before hooks are added.
-  constructor(@InjectConnection() _sequelize: Sequelize) {
+  constructor(@InjectConnection() sequelize: Sequelize) {
+    this.shared = sequelize.getDialect() === 'postgres';
     const onWrite = (...args: unknown[]) => {
       this.clear();
       const options = args.find(
@@ -94,6 +99,7 @@ export class MemberCache implements OnModuleDestroy {
   }
 
   private get<T>(map: Map<number, Entry<T>>, key: number, load: () => Promise<T>): Promise<T> {
+    if (this.shared) return load();
     const now = Date.now();
     const hit = map.get(key);
     if (hit && hit.generation === this.generation && now - hit.at < this.ttlMs) return hit.value;

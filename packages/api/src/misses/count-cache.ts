@@ -1,8 +1,11 @@
 import { randomUUID } from 'node:crypto';
 import { Injectable, type OnModuleDestroy } from '@nestjs/common';
+import { ConfigService } from '@nestjs/config';
 import { InjectConnection } from '@nestjs/sequelize';
 import type { Transaction } from 'sequelize';
 import type { Sequelize } from 'sequelize-typescript';
+import type { AppConfig } from '../config/app.config.js';
+import { PgChannel } from '../database/pg-channel.js';
 import { Miss } from './models/miss.model.js';
 
 const HOOKS = [
@@ -19,32 +22,48 @@ const HOOKS = [
  * notebook is the costliest part of paging through it, and the number only moves when a miss
  * of that household is written. Writes through the Miss model forget the household's counts
  * (again when their transaction commits); anything written past the model shows within ttlMs.
+ *
+ * On PostgreSQL several processes share the database: each such write also posts the household
+ * on the `workback_counts` channel (LISTEN/NOTIFY, sent when the write commits), and every
+ * process forgets that household's counts when it hears it. While a process is not listening
+ * (its listening connection lost) it keeps no counts.
  */
 @Injectable()
 export class CountCache implements OnModuleDestroy {
   static readonly TTL_MS = 10_000;
   private readonly counts = new Map<number, Map<string, { at: number; value: Promise<number> }>>();
   private readonly hookName = `count-cache-${randomUUID()}`;
+  private readonly channel: PgChannel | undefined;
 
   // The connection is injected so the model is registered with it before hooks are added.
-  constructor(@InjectConnection() _sequelize: Sequelize) {
-    const onWrite = (...args: unknown[]) => {
+  constructor(@InjectConnection() sequelize: Sequelize, config: ConfigService) {
+    const url = config.getOrThrow<AppConfig>('app').databaseUrl;
+    this.channel = url
+      ? new PgChannel(url, 'workback_counts', (household) => this.forget(household))
+      : undefined;
+    const onWrite = async (...args: unknown[]) => {
       const row = args[0] instanceof Miss ? args[0] : undefined;
-      const forget = () => {
-        if (row) this.counts.delete(row.householdId);
-        else this.counts.clear();
-      };
-      forget();
+      const household = row ? String(row.householdId) : '';
+      this.forget(household);
       const options = args.find(
         (a): a is { transaction?: Transaction | null } =>
           typeof a === 'object' && a !== null && 'transaction' in a,
       );
-      options?.transaction?.afterCommit(forget);
+      options?.transaction?.afterCommit(() => this.forget(household));
+      // Awaited by the write, so the notice is out before the request answers.
+      await this.channel?.send(sequelize, household, options?.transaction);
     };
     for (const hook of HOOKS) Miss.addHook(hook, this.hookName, onWrite);
   }
 
+  /** One household's counts ('12'), or everyone's ('' or null). */
+  private forget(household: string | null): void {
+    if (household) this.counts.delete(Number(household));
+    else this.counts.clear();
+  }
+
   count(householdId: number, key: string, load: () => Promise<number>): Promise<number> {
+    if (this.channel && !this.channel.listening) return load();
     const now = Date.now();
     let household = this.counts.get(householdId);
     if (!household) this.counts.set(householdId, (household = new Map()));
@@ -60,7 +79,8 @@ export class CountCache implements OnModuleDestroy {
     return value;
   }
 
-  onModuleDestroy(): void {
+  async onModuleDestroy(): Promise<void> {
     for (const hook of HOOKS) Miss.removeHook(hook, this.hookName);
+    await this.channel?.close();
   }
 }
