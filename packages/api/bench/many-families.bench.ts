@@ -422,14 +422,15 @@ export async function benchManyFamilies(): Promise<void> {
       }
     }
   }
-  table(
-    `many families: ${HOUSEHOLDS.toLocaleString('en')} households × ${MISSES_EACH} misses, ${MEMBERS} signed in, ${SECONDS} s per offered rate (req/s); p99 per kind: ${Object.entries(
-      KINDS,
-    )
-      .map(([k, v]) => `${k} ${v}`)
-      .join(', ')}`,
-    rows,
-  );
+  if (rows.length)
+    table(
+      `many families: ${HOUSEHOLDS.toLocaleString('en')} households × ${MISSES_EACH} misses, ${MEMBERS} signed in, ${SECONDS} s per offered rate (req/s); p99 per kind: ${Object.entries(
+        KINDS,
+      )
+        .map(([k, v]) => `${k} ${v}`)
+        .join(', ')}`,
+      rows,
+    );
   report([
     ...figures,
     {
