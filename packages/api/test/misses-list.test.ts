@@ -1,6 +1,9 @@
 import { readFileSync } from 'node:fs';
+import { getConnectionToken } from '@nestjs/sequelize';
 import { CAUSES, MISS_STATUSES } from '@workback/core';
+import type { Sequelize } from 'sequelize-typescript';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import * as search0014 from '../src/database/migrations/0014-miss-search-by-household.js';
 import { studentIds } from './support/photos.js';
 import {
   type Client,
@@ -162,6 +165,49 @@ describe('GET /api/misses filters', () => {
     expect(await search('ZEBRA cross')).toEqual([extra.body.id]);
     await parent.send('delete', `/api/misses/${extra.body.id}`).expect(204);
     expect(await search('zebra')).toEqual([]);
+  });
+
+  it('searches only the household’s own misses, however many other households match', async () => {
+    const demo = await signedIn(t, DEMO.owner);
+    const demoStudent = [...(await studentIds(demo)).values()][0]!;
+    const words = 'quokka tally marks';
+    const theirs = await demo
+      .post('/api/misses', {
+        studentId: demoStudent,
+        occurredOn: '2025-02-02',
+        problem: '9 x 6',
+        answer: '56',
+        explanation: words,
+        cause: 'fact',
+      })
+      .expect(201);
+    const ours = await parent
+      .post('/api/misses', {
+        studentId: ada,
+        occurredOn: '2025-02-02',
+        problem: '9 x 6',
+        answer: '56',
+        explanation: words,
+        cause: 'fact',
+      })
+      .expect(201);
+    expect(await ids('q=QUOKKA')).toEqual([ours.body.id]);
+    const other = await demo.get('/api/misses?pageSize=100&q=quokka').expect(200);
+    expect(other.body.items.map((m: { id: number }) => m.id)).toEqual([theirs.body.id]);
+    await parent.send('delete', `/api/misses/${ours.body.id}`).expect(204);
+    await demo.send('delete', `/api/misses/${theirs.body.id}`).expect(204);
+    expect(await ids('q=quokka')).toEqual([]);
+  });
+
+  it('rebuilds the text search from the misses when migration 0014 runs on a filled database', async () => {
+    const qi = t.app.get<Sequelize>(getConnectionToken()).getQueryInterface();
+    const before = await ids('q=carried');
+    expect(before).toEqual(idsWhere((m) => m.explanation.includes('carried')));
+    // Back to 0006's table keyed by id, then 0014 again: its index is made from the rows.
+    // On PostgreSQL both are no-ops and the pg_trgm search answers the same.
+    await search0014.down({ context: qi });
+    await search0014.up({ context: qi });
+    expect(await ids('q=carried')).toEqual(before);
   });
 
   it('finds the rule in the diagnosis of the seeded borrow-across-zero misses', () => {

@@ -638,7 +638,11 @@ export class MissesService {
     }
     const text = q.q?.trim();
     if (text) {
-      and.push(postgres ? likeCondition('ILIKE', text, param) : textCondition(text, param));
+      and.push(
+        postgres
+          ? likeCondition('ILIKE', text, param)
+          : textCondition(text, member.householdId, param),
+      );
     }
     return { where: { [Op.and]: and }, bind };
   }
@@ -646,17 +650,20 @@ export class MissesService {
 
 /**
  * Problem or explanation containing `text`, any case. From three characters on, the trigram
- * index (migration 0006) finds the rows; shorter text has no trigram and scans the household's.
+ * index finds the rows: its rowids are `(household_id << 32) + id` (migration 0014), so the
+ * household's range is all it reads, however many other households match. Shorter text has no
+ * trigram and scans the household's misses.
  */
-type Param = (name: string, value: string) => string;
+type Param = (name: string, value: string | number) => string;
 
-function textCondition(text: string, param: Param): WhereOptions<Miss> {
+function textCondition(text: string, householdId: number, param: Param): WhereOptions<Miss> {
   if ([...text].length >= 3) {
     const phrase = `"${text.replace(/"/g, '""')}"`;
+    const first = `(${param('household', householdId)} << 32)`;
     return {
       id: {
         [Op.in]: literal(
-          `(SELECT rowid FROM misses_search WHERE misses_search MATCH ${param('phrase', phrase)})`,
+          `(SELECT rowid - ${first} FROM misses_search WHERE misses_search MATCH ${param('phrase', phrase)} AND rowid BETWEEN ${first} AND ${first} + 4294967295)`,
         ),
       },
     };

@@ -11,6 +11,7 @@ import * as m0010 from './0010-shared-state.js';
 import * as m0011 from './0011-check-ups.js';
 import * as m0012 from './0012-word-problem-lines.js';
 import * as m0013 from './0013-miss-kind.js';
+import * as m0014 from './0014-miss-search-by-household.js';
 
 /** Every migration in order; listed explicitly so src and dist behave alike. */
 export const MIGRATIONS = [
@@ -27,4 +28,5 @@ export const MIGRATIONS = [
   m0011,
   m0012,
   m0013,
+  m0014,
 ];
