@@ -173,8 +173,47 @@ describe('answer keys and sittings', () => {
         .getAttribute('href');
       expect(href).toMatch(/^\/misses\/\d+$/);
 
-      // The sittings list and the student page with the scores chart.
+      // A key answer the checker flags (Trail assessment 2 prints 1,138 for 47 × 24 = 1,128):
+      // the grid says so on the item, and the wrong mark makes no miss until the parent says
+      // which answer is right (issue 11 §5).
       await page.setViewportSize(WIDE);
+      await page.goto('/sittings/new');
+      await page.getByLabel('Student').selectOption({ label: 'Wren' });
+      await page.getByLabel('Answer key').selectOption({ label: 'Trail assessment 2 (10 items)' });
+      await page.getByRole('button', { name: 'Start marking' }).click();
+      await page.getByRole('heading', { name: 'Mark the sitting', exact: true }).waitFor();
+      expect(await page.getByTestId('mark-row-4').getByRole('note').innerText()).toBe(
+        'The checker works this out as 1128: check the key. No miss is made from this item until you say which answer is right.',
+      );
+      expect(await page.getByTestId('mark-row-3').getByRole('note').count()).toBe(0);
+      await page.getByRole('button', { name: 'Item 4 wrong' }).click();
+      await page.getByRole('textbox', { name: 'What the child wrote for item 4' }).fill('1,028');
+      await page.getByRole('button', { name: 'Mark the rest right' }).click();
+      await page.getByRole('button', { name: 'Save marks' }).click();
+      await page.getByRole('heading', { name: 'No misses yet', exact: true }).waitFor();
+      const heldUrl = page.url();
+      const held = page.getByRole('list', { name: 'Waiting for the key to be checked' });
+      expect(await held.innerText()).toMatch(
+        /Item 4\s*47 x 24\s*Wrote 1,028 · key 1,138 · the checker works it out as 1128/,
+      );
+      expect(await page.getByRole('list', { name: 'Misses from this sitting' }).count()).toBe(0);
+      await checkPage(page, 'sitting-held');
+      // The parent checks the key: the checker was right, so they fix the key's answer; the
+      // re-marking then makes the miss (the child's 1,028 is wrong either way).
+      await held.getByRole('link', { name: 'Fix the key’s answer' }).click();
+      await page.getByRole('heading', { name: 'Trail assessment 2', exact: true }).waitFor();
+      await page.getByRole('textbox', { name: 'Answer, item 4' }).fill('1,128');
+      await page.getByLabel('Why did the key change?').fill('The printed key had a typo in item 4');
+      await page.getByRole('button', { name: 'Save the key' }).click();
+      await page.getByText('Saved Trail assessment 2.').first().waitFor();
+      await page.goto(heldUrl);
+      await page.getByRole('heading', { name: '1 miss to talk through', exact: true }).waitFor();
+      const made = page.getByRole('list', { name: 'Misses from this sitting' });
+      expect(await made.innerText()).toMatch(/Item 4\s*47 x 24\s*Wrote 1,028 · key 1,128/);
+      await made.getByRole('link', { name: 'Explain item 4' }).waitFor();
+      expect(await held.count()).toBe(0);
+
+      // The sittings list and the student page with the scores chart.
       await page.goto('/sittings');
       await page.getByRole('region', { name: 'Sittings' }).waitFor();
       await checkPage(page, 'sittings');

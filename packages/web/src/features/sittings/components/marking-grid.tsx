@@ -163,7 +163,7 @@ export function MarkingGrid({
             return (
               <tr
                 key={item.id}
-                className={`wb-mark-row wb-mark-${state}`}
+                className={`wb-mark-row wb-mark-${state}${keyFlagged(item) ? ' wb-mark-flagged' : ''}`}
                 data-testid={`mark-row-${item.number}`}
               >
                 <td data-label="No." className="wb-cell-strong wb-mark-number">

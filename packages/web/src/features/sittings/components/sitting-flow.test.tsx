@@ -125,6 +125,68 @@ describe('a sitting from marks to misses', () => {
     );
   });
 
+  it('keeps a wrong mark on a flagged key item apart until the parent says the key is right', async () => {
+    // The key says 239 for 304 − 75; the checker works out 229 (DESIGN.md's catalog example).
+    const flaggedKey = {
+      ...key,
+      items: key.items.map((i) =>
+        i.id === 32 ? { ...i, answer: '239', check: { status: 'disagrees', expected: '229' } } : i,
+      ),
+    };
+    const marks = (missId: number | null) => [
+      { id: 1, keyItemId: 31, number: 1, correct: true, answer: null, missId: null },
+      { id: 2, keyItemId: 32, number: 2, correct: false, answer: '139', missId, held: !missId },
+    ];
+    let saved = sitting(marks(null), 1);
+    const { requests } = renderAppWith(
+      {
+        'GET /answer-keys/3': json(200, flaggedKey),
+        'GET /sittings/5': () => json(200, saved),
+        'PUT /sittings/5/marks': () => {
+          saved = sitting(marks(41), 1);
+          return json(200, {
+            ...saved,
+            misses: {
+              heldItemIds: [],
+              createdMissIds: [41],
+              reopenedMissIds: [],
+              resolvedMissIds: [],
+              updatedMissIds: [],
+            },
+          });
+        },
+      },
+      '/sittings/5/misses',
+    );
+    const user = userEvent.setup();
+    expect(await screen.findByRole('heading', { name: 'No misses yet' })).toBeInTheDocument();
+    const held = screen.getByRole('list', { name: 'Waiting for the key to be checked' });
+    expect(held).toHaveTextContent('Wrote 139 · key 239 · the checker works it out as 229');
+    expect(within(held).getByRole('link', { name: 'Fix the key’s answer' })).toHaveAttribute(
+      'href',
+      '/keys/3',
+    );
+    expect(screen.queryByRole('list', { name: 'Misses from this sitting' })).toBeNull();
+
+    await user.click(
+      within(held).getByRole('button', { name: 'The key’s 239 is right: make the miss' }),
+    );
+    expect(
+      await screen.findByRole('heading', { name: '1 miss to talk through' }),
+    ).toBeInTheDocument();
+    expect(requests.find((r) => r.method === 'PUT')?.body).toEqual({
+      marks: [
+        { keyItemId: 31, correct: true, answer: null },
+        { keyItemId: 32, correct: false, answer: '139', keyAnswerRight: true },
+      ],
+    });
+    expect(screen.getByRole('link', { name: 'Explain item 2' })).toHaveAttribute(
+      'href',
+      '/misses/41',
+    );
+    expect(screen.queryByRole('list', { name: 'Waiting for the key to be checked' })).toBeNull();
+  });
+
   it('sends a tutor to the result instead of the marking grid', async () => {
     renderAppWith({ 'GET /auth/me': json(200, tutorMe) }, '/sittings/5');
     expect(await screen.findByRole('heading', { name: 'Not marked yet' })).toBeInTheDocument();
