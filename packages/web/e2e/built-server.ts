@@ -12,6 +12,9 @@ const webBuild = join(repoRoot, 'packages/web/dist/index.html');
 export type BuiltServer = {
   /** `http://127.0.0.1:<port>` */
   baseUrl: string;
+  /** PUBLIC_URL, the origin links in mail start from: `http://localhost:<port>`, the same
+   * server under another name, so a test can tell a configured link from the server's own. */
+  publicUrl: string;
   port: number;
   stop: () => Promise<void>;
 };
@@ -61,6 +64,7 @@ export async function startBuiltServer(env: Record<string, string> = {}): Promis
   const port = await freePort();
   const dataDir = await mkdtemp(join(tmpdir(), 'workback-e2e-'));
   const baseUrl = `http://127.0.0.1:${port}`;
+  const publicUrl = `http://localhost:${port}`;
   let output = '';
   const server = spawn(process.execPath, [serverEntry], {
     cwd: repoRoot,
@@ -72,6 +76,7 @@ export async function startBuiltServer(env: Record<string, string> = {}): Promis
       NODE_ENV: 'test',
       // Many journeys sign the same demo accounts in within a minute; the limit has API tests.
       SIGN_IN_LIMIT_PER_MINUTE: '200',
+      PUBLIC_URL: publicUrl,
       ...env,
     },
     stdio: ['ignore', 'pipe', 'pipe'],
@@ -100,5 +105,5 @@ export async function startBuiltServer(env: Record<string, string> = {}): Promis
     }
     await rm(dataDir, { recursive: true, force: true });
   };
-  return { baseUrl, port, stop };
+  return { baseUrl, publicUrl, port, stop };
 }

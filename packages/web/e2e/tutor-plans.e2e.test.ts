@@ -6,6 +6,7 @@ import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import { capture, checkPage, launchBrowser, openApp, PHONE, WIDE, type Watched } from './browser';
 
 const baseUrl = inject('baseUrl');
+const publicUrl = inject('publicUrl');
 const DEMO_PASSWORD = 'workback-demo';
 
 type Mail = {
@@ -73,7 +74,8 @@ function expectCleanRun(watched: Watched) {
 const sideNav = (page: Page) => page.getByRole('navigation', { name: 'Main' });
 
 describe('a tutor joins, reads the patterns and notes on one; the parent sends a plan', () => {
-  it('runs the whole journey', async () => {
+  // Nine pages checked with axe at two widths, three people: more time than the default.
+  it('runs the whole journey', { timeout: 180_000 }, async () => {
     const owner = await openApp(browser, baseUrl);
     const tutorEmail = `tutor-${Date.now()}@example.test`;
     await signIn(owner.page, 'parent@workback.test', DEMO_PASSWORD);
@@ -179,8 +181,17 @@ describe('a tutor joins, reads the patterns and notes on one; the parent sends a
     await capture(owner.page, 'review-plan-send');
     await send.getByRole('button', { name: 'Send' }).click();
     await toast(owner.page, 'The plan is on its way to Jules.');
+    const planPath = new URL(owner.page.url()).pathname;
+    expect(planPath).toMatch(/^\/review-plans\/\d+$/);
     const sent = await mailTo('coparent@workback.test', /plan/i);
     expect(sent.attachments.some((a) => a.contentType === 'application/pdf')).toBe(true);
+    // The mail says where the answers are and links back to this plan at PUBLIC_URL (the
+    // server's configured name, not the address this browser used) (issue 11 §5).
+    expect(sent.text).toMatch(
+      /Where the answers are: on the last page of the PDF, headed “Answers”/,
+    );
+    expect(sent.links).toContain(`${publicUrl}${planPath}`);
+    expect(publicUrl).not.toBe(baseUrl);
     expectCleanRun(owner);
     await owner.context.close();
   });
