@@ -20,7 +20,11 @@ export function activitiesFor(family: string, facts: readonly BasicFact[]): Prac
   });
   const first = own[0];
   const list = own.map((o) => o.text).join(', ');
-  const name = times ? `${n}s` : `+ and − with ${n}`;
+  // "other 8s facts", "an 8s fact"; an addition family: "other + and − facts with 8".
+  const many = times ? `${n}s facts` : `+ and − facts with ${n}`;
+  const one = times
+    ? `${/^(8|11|18)$/.test(String(n)) ? 'an' : 'a'} ${n}s fact`
+    : `a + or − fact with ${n}`;
   const out: PracticeActivity[] = [];
   const push = (id: PracticeActivity['id'], how: string) =>
     out.push({ ...PRACTICE_ACTIVITIES[id], how });
@@ -76,11 +80,11 @@ export function activitiesFor(family: string, facts: readonly BasicFact[]): Prac
   }
   push(
     'flash-cards',
-    `Write each missed fact (${list}) on a card with the answer on the back, with a few other ${name} facts the child knows. A fact answered quickly and right goes on the “got it” pile; the others go back for one more round. Five minutes is plenty.`,
+    `Write each missed fact (${list}) on a card with the answer on the back, with a few other ${many} the child knows. A fact answered quickly and right goes on the “got it” pile; the others go back for one more round. Five minutes is plenty.`,
   );
   push(
     'timer-game',
-    `Set a timer for two minutes. Take turns at the table: one calls out a ${name} fact (such as ${first?.text ?? `one with ${n}`}), the next answers. Count the table’s answers together and try to beat that count next time; the score belongs to everyone.`,
+    `Set a timer for two minutes. Take turns at the table: one calls out ${one} (such as ${first?.text ?? `one with ${n}`}), the next answers. Count the table’s answers together and try to beat that count next time; the score belongs to everyone.`,
   );
   return out;
 }

@@ -72,6 +72,17 @@ describe('activitiesFor', () => {
     expect(plus[0]!.how).toContain('8 + 2 makes 10, then 10 + 5 makes 15');
     expect(plus.map((a) => a.id)).toContain('near-doubles');
   });
+  it('names a fact as people say it: “an 8s fact”, “a 7s fact”, “a + or − fact with 8”', () => {
+    const timer = (family: string, a: number, b: number, op: '+' | 'x') =>
+      activitiesFor(family, [{ op, a, b }]).find((x) => x.id === 'timer-game')!.how;
+    expect(timer('x8', 7, 8, 'x')).toContain('one calls out an 8s fact (such as 7 × 8)');
+    expect(timer('x7', 6, 7, 'x')).toContain('one calls out a 7s fact (such as 6 × 7)');
+    expect(timer('+8', 8, 7, '+')).toContain('one calls out a + or − fact with 8');
+    const cards = activitiesFor('+8', [{ op: '+', a: 8, b: 7 }]).find(
+      (x) => x.id === 'flash-cards',
+    );
+    expect(cards!.how).toContain('a few other + and − facts with 8 the child knows');
+  });
 });
 
 describe('ruleName', () => {
