@@ -6,6 +6,7 @@ import {
   type CheckedLines,
   type Diagnosis,
   type InterviewStage,
+  type MissKind,
   type MissStatus,
   type WrittenSteps,
 } from '@workback/core';
@@ -48,6 +49,8 @@ export type MissSummary = {
   lines?: string[] | null;
   /** Where the word problem went wrong, by the interview prompts. */
   stage?: InterviewStage | null;
+  /** The notebook's kind: whole, fraction, decimal, money, time, word or other. */
+  kind?: MissKind;
   checked: boolean;
   notCheckedReason: string | null;
   expected: string | null;
@@ -106,6 +109,8 @@ export type MissFilters = {
   studentId?: number;
   cause?: Cause;
   status?: MissStatus;
+  kind?: MissKind;
+  stage?: InterviewStage;
   rule?: string;
   skill?: string;
   from?: string;

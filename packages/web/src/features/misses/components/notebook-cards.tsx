@@ -10,6 +10,7 @@ import {
   statusLabel,
   type MissSummary,
 } from '../types';
+import { kindText } from './word-problem';
 
 /** The same misses as cards, for phones; each card opens its miss. */
 export function NotebookCards({
@@ -54,6 +55,11 @@ export function NotebookCards({
                 <Tag minimal round>
                   {statusLabel(miss.status)}
                 </Tag>
+                {miss.kind ? (
+                  <Tag minimal round className="wb-kind-tag">
+                    {kindText(miss.kind, miss.stage)}
+                  </Tag>
+                ) : null}
                 {shownRule(miss.ruleIds, filterRule) ? (
                   <span className="wb-muted">
                     {ruleTitle(shownRule(miss.ruleIds, filterRule)!)}

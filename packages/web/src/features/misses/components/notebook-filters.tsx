@@ -1,10 +1,20 @@
 import { Button, FormGroup, HTMLSelect, InputGroup } from '@blueprintjs/core';
 import { FilterIcon, SearchIcon } from '@blueprintjs/icons';
-import { CAUSE_GUIDE, CAUSES, MISS_STATUSES, RULES, ruleName } from '@workback/core';
+import {
+  CAUSE_GUIDE,
+  CAUSES,
+  INTERVIEW_STAGES,
+  MISS_KIND_LABEL,
+  MISS_KINDS,
+  MISS_STATUSES,
+  RULES,
+  ruleName,
+} from '@workback/core';
 import { useEffect, useState } from 'react';
 
 import { SORTS, type FilterParams } from '../hooks/use-notebook-filters';
 import { statusLabel, type StudentOption } from '../types';
+import { stageLabel } from './word-problem';
 
 const TYPING_DELAY_MS = 350;
 
@@ -155,6 +165,26 @@ export function NotebookFilters({
               ...MISS_STATUSES.map((s) => ({ value: s, label: statusLabel(s) })),
             ]}
             onChange={(status) => set({ status })}
+          />
+          <SelectFilter
+            id="filter-kind"
+            label="Kind of problem"
+            value={value('kind')}
+            options={[
+              { value: '', label: 'Any kind' },
+              ...MISS_KINDS.map((k) => ({ value: k, label: MISS_KIND_LABEL[k] })),
+            ]}
+            onChange={(kind) => set({ kind })}
+          />
+          <SelectFilter
+            id="filter-stage"
+            label="Word problem went wrong at"
+            value={value('stage')}
+            options={[
+              { value: '', label: 'Any stage' },
+              ...INTERVIEW_STAGES.map((s) => ({ value: s, label: stageLabel(s) })),
+            ]}
+            onChange={(stage) => set({ stage })}
           />
           <SelectFilter
             id="filter-rule"

@@ -11,9 +11,10 @@ import {
   statusLabel,
   type MissSummary,
 } from '../types';
+import { kindText } from './word-problem';
 
 const ROW_HEIGHT = 56;
-const WIDTHS = [64, 100, 108, 168, 80, 108, 170, 120];
+const WIDTHS = [64, 96, 104, 160, 76, 150, 100, 160, 110];
 
 /** The misses as a table (wide screens); a click anywhere on a row opens the miss. */
 export function NotebookTable({
@@ -95,6 +96,15 @@ export function NotebookTable({
       cellRenderer={(row) => {
         const miss = misses[row];
         return cell(row, miss ? causeLabel(miss.cause) : '');
+      }}
+    />,
+    <Column
+      key="kind"
+      name="Kind"
+      cellRenderer={(row) => {
+        const miss = misses[row];
+        const text = miss ? kindText(miss.kind, miss.stage) : '';
+        return cell(row, text, undefined, text);
       }}
     />,
     <Column

@@ -1,7 +1,7 @@
 import { screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { checkLines } from '@workback/core';
-import { afterEach, beforeEach, describe, expect, it } from 'vitest';
+import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 
 import { fakeUploads } from '../../../testing/fake-xhr';
 import { CSRF, json, mockApi, ownerMe, students } from '../../../testing/mock-api';
@@ -61,7 +61,10 @@ function api(extra: Parameters<typeof mockApi>[0] = {}) {
 }
 
 beforeEach(() => window.localStorage.clear());
-afterEach(() => window.localStorage.clear());
+afterEach(() => {
+  window.localStorage.clear();
+  vi.restoreAllMocks();
+});
 
 async function fillWordProblem(user: ReturnType<typeof userEvent.setup>) {
   await user.selectOptions(await screen.findByLabelText('Student'), 'Juniper');
@@ -268,5 +271,68 @@ describe('The miss page: word problem', () => {
     renderApp('/misses/21');
     await screen.findByRole('heading', { level: 1 });
     expect(screen.queryByRole('region', { name: 'The number sentences' })).toBeNull();
+  });
+});
+
+describe('The notebook: kind and interview stage', () => {
+  it('filters by kind and stage from the address bar, each card naming the kind it matched', async () => {
+    // A phone: cards, and the filters folded behind one button.
+    vi.spyOn(window, 'matchMedia').mockImplementation(
+      (query: string) =>
+        ({
+          matches: query.includes('max-width'),
+          media: query,
+          addEventListener: () => undefined,
+          removeEventListener: () => undefined,
+        }) as unknown as MediaQueryList,
+    );
+    const { requests } = api({
+      'GET /misses?kind=word&stage=process&sort=-occurredOn&page=1&pageSize=25': json(200, {
+        items: [{ ...wordMiss(), kind: 'word' }],
+        total: 1,
+        page: 1,
+        pageSize: 25,
+      }),
+      'GET /misses?kind=money&stage=process&sort=-occurredOn&page=1&pageSize=25': list([]),
+    });
+    const { router } = renderApp('/notebook?kind=word&stage=process');
+    const cards = await screen.findByRole('list', { name: 'Misses' });
+    expect(within(cards).getByText('Word problem: doing the arithmetic')).toBeInTheDocument();
+    const user = userEvent.setup();
+    await user.click(screen.getByRole('button', { name: 'Filters (2 on)' }));
+    expect(screen.getByLabelText('Kind of problem')).toHaveValue('word');
+    expect(screen.getByLabelText('Word problem went wrong at')).toHaveValue('process');
+    expect(
+      within(screen.getByLabelText('Kind of problem'))
+        .getAllByRole('option')
+        .map((o) => o.textContent),
+    ).toEqual([
+      'Any kind',
+      'Whole numbers',
+      'Fractions',
+      'Decimals',
+      'Money',
+      'Clock times',
+      'Word problem',
+      'Not read by the checkers',
+    ]);
+    await user.selectOptions(screen.getByLabelText('Kind of problem'), 'money');
+    await waitFor(() => expect(router.state.location.search).toBe('?kind=money&stage=process'));
+    await waitFor(() =>
+      expect(requests.map((r) => r.path)).toContain(
+        '/misses?kind=money&stage=process&sort=-occurredOn&page=1&pageSize=25',
+      ),
+    );
+  });
+
+  it('leaves out a kind or stage the server would refuse', async () => {
+    const { requests } = api({
+      'GET /misses?sort=-occurredOn&page=1&pageSize=25': list([]),
+    });
+    renderApp('/notebook?kind=sums&stage=guessing');
+    await screen.findByText(/No misses match these filters/);
+    expect(requests.filter((r) => r.path.startsWith('/misses?')).map((r) => r.path)).toEqual([
+      '/misses?sort=-occurredOn&page=1&pageSize=25',
+    ]);
   });
 });

@@ -1,6 +1,12 @@
 import { Button, Radio, RadioGroup } from '@blueprintjs/core';
 import { ChevronDownIcon, ChevronRightIcon } from '@blueprintjs/icons';
-import { INTERVIEW_STAGES, type CheckedLines, type InterviewStage } from '@workback/core';
+import {
+  INTERVIEW_STAGES,
+  MISS_KIND_LABEL,
+  type CheckedLines,
+  type InterviewStage,
+  type MissKind,
+} from '@workback/core';
 import type { UseFormRegisterReturn } from 'react-hook-form';
 
 import { TextAreaField } from '../../../components/form/text-area-field';
@@ -19,6 +25,20 @@ export const STAGE_PROMPTS: Readonly<Record<InterviewStage, { prompt: string; st
   process: { prompt: 'Work it', stage: 'Doing the arithmetic' },
   encoding: { prompt: 'Write the answer', stage: 'Writing the answer down' },
 };
+
+/** `stageLabel('process')` → `'Doing the arithmetic'`. */
+export const stageLabel = (stage: InterviewStage): string => STAGE_PROMPTS[stage].stage;
+
+/**
+ * The kind a notebook row shows, the one the kind filter matches: `'Money'`, and for a word
+ * problem with its stage `'Word problem: doing the arithmetic'`.
+ */
+export function kindText(kind: MissKind | undefined, stage: InterviewStage | null | undefined) {
+  if (!kind) return '';
+  return kind === 'word' && stage
+    ? `${MISS_KIND_LABEL.word}: ${stageLabel(stage).toLowerCase()}`
+    : MISS_KIND_LABEL[kind];
+}
 
 /** The textarea's text as the lines the API takes: trimmed, blank lines left out. */
 export function readLines(text: string): string[] {

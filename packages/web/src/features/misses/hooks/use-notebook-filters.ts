@@ -1,4 +1,13 @@
-import { CAUSES, MISS_STATUSES, type Cause, type MissStatus } from '@workback/core';
+import {
+  CAUSES,
+  INTERVIEW_STAGES,
+  MISS_KINDS,
+  MISS_STATUSES,
+  type Cause,
+  type InterviewStage,
+  type MissKind,
+  type MissStatus,
+} from '@workback/core';
 import { useCallback, useMemo } from 'react';
 import { useSearchParams } from 'react-router-dom';
 
@@ -18,6 +27,8 @@ export type FilterParams = {
   student: string;
   cause: string;
   status: string;
+  kind: string;
+  stage: string;
   rule: string;
   skill: string;
   from: string;
@@ -27,7 +38,18 @@ export type FilterParams = {
   page: string;
 };
 
-const FILTER_NAMES = ['student', 'cause', 'status', 'rule', 'skill', 'from', 'to', 'q'] as const;
+const FILTER_NAMES = [
+  'student',
+  'cause',
+  'status',
+  'kind',
+  'stage',
+  'rule',
+  'skill',
+  'from',
+  'to',
+  'q',
+] as const;
 const DAY = /^\d{4}-\d{2}-\d{2}$/;
 
 /**
@@ -40,6 +62,8 @@ export function filtersFromParams(params: URLSearchParams): MissFilters {
   const page = Number(params.get('page'));
   const cause = text('cause');
   const status = text('status');
+  const kind = text('kind');
+  const stage = text('stage');
   const sort = text('sort');
   const from = text('from');
   const to = text('to');
@@ -49,6 +73,11 @@ export function filtersFromParams(params: URLSearchParams): MissFilters {
     status:
       status && (MISS_STATUSES as readonly string[]).includes(status)
         ? (status as MissStatus)
+        : undefined,
+    kind: kind && (MISS_KINDS as readonly string[]).includes(kind) ? (kind as MissKind) : undefined,
+    stage:
+      stage && (INTERVIEW_STAGES as readonly string[]).includes(stage)
+        ? (stage as InterviewStage)
         : undefined,
     rule: text('rule'),
     skill: text('skill'),
