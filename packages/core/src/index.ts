@@ -111,7 +111,8 @@ export type {
 // Word problems: the child's number sentences, line by line
 export { checkLines } from './lines/checkLines.js';
 export type { CheckedLine, CheckedLines } from './lines/checkLines.js';
-export { InterviewStage, INTERVIEW_STAGES } from './lines/stages.js';
+export { InterviewStage, INTERVIEW_STAGES, INTERVIEW_STAGE_GUIDE } from './lines/stages.js';
+export { lineVerdict } from './lines/lineVerdict.js';
 export { suggestStageCause } from './lines/suggestStageCause.js';
 export type { StageSuggestion } from './lines/suggestStageCause.js';
 

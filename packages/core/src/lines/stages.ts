@@ -16,3 +16,18 @@ export type InterviewStage = (typeof InterviewStage)[keyof typeof InterviewStage
 
 /** In interview order. */
 export const INTERVIEW_STAGES: readonly InterviewStage[] = Object.values(InterviewStage);
+
+/**
+ * What the parent asks at each stage and what the stage is called, in our own words (after
+ * Newman 1977; White 2005): `INTERVIEW_STAGE_GUIDE.process` → `{ prompt: 'Work it', stage:
+ * 'Doing the arithmetic' }`. The log form, the miss page and the plan's print and export use them.
+ */
+export const INTERVIEW_STAGE_GUIDE: Readonly<
+  Record<InterviewStage, { readonly prompt: string; readonly stage: string }>
+> = {
+  reading: { prompt: 'Read it to me', stage: 'Reading the words' },
+  comprehension: { prompt: 'What is it asking?', stage: 'Understanding the question' },
+  transformation: { prompt: 'How will you work it out?', stage: 'Choosing the operations' },
+  process: { prompt: 'Work it', stage: 'Doing the arithmetic' },
+  encoding: { prompt: 'Write the answer', stage: 'Writing the answer down' },
+};
