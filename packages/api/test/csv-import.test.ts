@@ -152,6 +152,53 @@ describe('CSV import', () => {
     expect(await keyCount()).toBe(before);
   });
 
+  it('reads an awkward file exactly as the web’s preview does, refused or imported', async () => {
+    // The web's own preview module (a path TypeScript does not follow into the web package).
+    const webPreview = new URL(
+      '../../web/src/features/answer-keys/utils/read-key-csv.ts',
+      import.meta.url,
+    ).pathname;
+    const { readKeyCsv: preview } = (await import(webPreview)) as {
+      readKeyCsv: (text: string) => {
+        rows: (Omit<Item, 'number'> & { line: number; number: string })[];
+        problems: { line: number; field: string; message: string }[];
+      };
+    };
+    const good = [
+      `\uFEFF${HEADER}`,
+      '1,"12 + 5, then 3",20,"adding, then more",,',
+      '',
+      "2,'=3 + 4,7,,2-4,sevens",
+      '3,"47 x 24","1,128",multiplication; partial products,5,',
+    ];
+    const bad = [
+      ...good,
+      '4,365 + 574,,,,',
+      '5,"two',
+      'lines",9,,,',
+      '6,81 - 38',
+      '2,7 + 7,14,,,',
+      '7,9 + 9,18,,4-2,',
+      '',
+    ].join('\r\n');
+    const refused = await upload(owner, bad);
+    expect(refused.status).toBe(400);
+    const seen = preview(bad);
+    expect(seen.problems.length).toBeGreaterThanOrEqual(5);
+    expect(refused.body.fields).toEqual(
+      Object.fromEntries(seen.problems.map((p) => [`line ${p.line}.${p.field}`, p.message])),
+    );
+
+    const file = [...good, ''].join('\r\n');
+    const imported = await upload(owner, file);
+    expect(imported.status, imported.text).toBe(201);
+    const read = preview(file);
+    expect(read.problems).toEqual([]);
+    expect(plain(imported.body.items)).toEqual(
+      read.rows.map(({ line: _, number, ...cells }) => ({ number: Number(number), ...cells })),
+    );
+  });
+
   it('refuses control characters in a cell by line and field, importing nothing', async () => {
     const before = await keyCount();
     const res = await upload(

@@ -186,3 +186,17 @@ export type {
   FocusProblem,
   PlanSummary,
 } from './plans/types.js';
+
+// Answer keys: the key CSV's rules (the browser's preview and the API's import) and lessons to revisit.
+export { readKeyCsv, KEY_CSV_COLUMNS, MAX_KEY_ITEMS } from './keys/readKeyCsv.js';
+export type {
+  KeyCsvColumn,
+  KeyCsvParseOptions,
+  KeyCsvProblem,
+  KeyCsvRead,
+  KeyCsvRow,
+  ParseCsv,
+} from './keys/readKeyCsv.js';
+export { readRevisit } from './keys/readRevisit.js';
+export type { RevisitRead } from './keys/readRevisit.js';
+export { revisitLessons } from './keys/revisitLessons.js';

@@ -25,12 +25,18 @@ import { CreateAnswerKeyDto } from './dto/create-answer-key.dto.js';
 import { ImportAnswerKeyBody, ImportAnswerKeyDto } from './dto/import-answer-key.dto.js';
 import { ListAnswerKeysQuery } from './dto/list-answer-keys.query.js';
 import { UpdateAnswerKeyDto } from './dto/update-answer-key.dto.js';
+import { KeyCorrectionsService } from './key-corrections.service.js';
+import { KeyImportService } from './key-import.service.js';
 import { KeyUpload } from './key-upload.js';
 
 @ApiTags('answer keys')
 @Controller('answer-keys')
 export class AnswerKeysController {
-  constructor(private readonly keys: AnswerKeysService) {}
+  constructor(
+    private readonly keys: AnswerKeysService,
+    private readonly csv: KeyImportService,
+    private readonly corrections: KeyCorrectionsService,
+  ) {}
 
   @Get()
   findAll(@CurrentMember() member: MemberContext, @Query() query: ListAnswerKeysQuery) {
@@ -58,7 +64,7 @@ export class AnswerKeysController {
         'Send the key as multipart/form-data with the CSV in “file”',
       );
     }
-    return this.keys.importCsv(member, dto, file);
+    return this.csv.importCsv(member, dto, file);
   }
 
   @Get(':id')
@@ -73,7 +79,7 @@ export class AnswerKeysController {
     @IdParam() id: number,
     @Res({ passthrough: true }) res: Response,
   ) {
-    const { filename, body } = await this.keys.exportCsv(member, id);
+    const { filename, body } = await this.csv.exportCsv(member, id);
     res.setHeader('Content-Disposition', `attachment; filename="${filename}"`);
     return body;
   }
@@ -85,7 +91,7 @@ export class AnswerKeysController {
     @IdParam() id: number,
     @Body() dto: UpdateAnswerKeyDto,
   ) {
-    return this.keys.update(member, id, dto);
+    return this.corrections.update(member, id, dto);
   }
 
   @Roles(Role.owner, Role.parent)

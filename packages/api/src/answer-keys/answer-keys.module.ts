@@ -4,6 +4,8 @@ import { CurriculumModule } from '../curriculum/curriculum.module.js';
 import { UsersModule } from '../users/users.module.js';
 import { AnswerKeysController } from './answer-keys.controller.js';
 import { AnswerKeysService } from './answer-keys.service.js';
+import { KeyCorrectionsService } from './key-corrections.service.js';
+import { KeyImportService } from './key-import.service.js';
 import { AnswerKey } from './models/answer-key.model.js';
 import { KeyCorrection } from './models/key-correction.model.js';
 import { KeyItem } from './models/key-item.model.js';
@@ -15,7 +17,7 @@ import { KeyItem } from './models/key-item.model.js';
     UsersModule,
   ],
   controllers: [AnswerKeysController],
-  providers: [AnswerKeysService],
+  providers: [AnswerKeysService, KeyImportService, KeyCorrectionsService],
   exports: [AnswerKeysService],
 })
 export class AnswerKeysModule {}

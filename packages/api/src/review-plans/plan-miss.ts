@@ -1,5 +1,4 @@
-import type { PlanMiss } from '@workback/core';
-import { revisitLessons } from '../answer-keys/revisit.js';
+import { revisitLessons, type PlanMiss } from '@workback/core';
 import type { MissesService } from '../misses/misses.service.js';
 import { toPatternMiss } from '../misses/pattern-miss.js';
 

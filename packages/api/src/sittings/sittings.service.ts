@@ -2,16 +2,12 @@ import { Injectable, NotFoundException, type OnModuleInit } from '@nestjs/common
 import { InjectConnection, InjectModel } from '@nestjs/sequelize';
 import { Op, type Transaction, type WhereOptions } from 'sequelize';
 import type { Sequelize } from 'sequelize-typescript';
-import type { Cause } from '@workback/core';
-import {
-  AnswerKeysService,
-  type AnswerChange,
-  type RemarkedSitting,
-} from '../answer-keys/answer-keys.service.js';
+import { revisitLessons, type Cause } from '@workback/core';
+import { AnswerKeysService } from '../answer-keys/answer-keys.service.js';
+import type { AnswerChange, RemarkedSitting } from '../answer-keys/key-usage.js';
 import { AnswerKey } from '../answer-keys/models/answer-key.model.js';
 import type { KeyItem } from '../answer-keys/models/key-item.model.js';
 import { checkItem } from '../answer-keys/cross-check.js';
-import { revisitLessons } from '../answer-keys/revisit.js';
 import { sameAnswer as sameAnswerOf } from '../answer-keys/same-answer.js';
 import type { MemberContext } from '../common/member-context.js';
 import { fieldsError } from '../common/pipes/validation.pipe.js';

@@ -1,4 +1,5 @@
 import { ApiProperty, ApiPropertyOptional } from '@nestjs/swagger';
+import { MAX_KEY_ITEMS } from '@workback/core';
 import { Transform, Type } from 'class-transformer';
 import {
   ArrayMaxSize,
@@ -17,7 +18,8 @@ import { Trim } from '../../common/decorators/trim.decorator.js';
 import { KEY_KINDS, type KeyKind } from '../models/answer-key.model.js';
 import { KeyItemDto } from './key-item.dto.js';
 
-export const MAX_KEY_ITEMS = 300;
+// One limit for typed keys and imported files (core's key CSV rules hold it).
+export { MAX_KEY_ITEMS };
 
 /** Multipart fields arrive as text: `'3'` → 3, `''` → left out. */
 const wholeFromText = ({ value }: { value: unknown }) =>

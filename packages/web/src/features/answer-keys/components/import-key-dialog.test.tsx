@@ -137,8 +137,8 @@ describe('importing a key from CSV', () => {
         .getAllByRole('listitem')
         .map((li) => li.textContent),
     ).toEqual([
-      'Line 2, answer: answer is missing',
-      'Line 3, lessons to revisit: The range “7-5” runs backwards: write 5-7.',
+      'Line 2, answer: answer is missing (1 to 80 characters)',
+      'Line 3, lessons to revisit: range “7-5” runs backwards; write 5-7',
       'Line 4, columns: has 3 values; the header has 4 (put a cell holding a comma in double quotes)',
     ]);
     expect(within(dialog).getByRole('button', { name: 'Import 2 items' })).toBeDisabled();

@@ -43,9 +43,3 @@ export function readRevisit(raw: readonly string[]): RevisitRead {
   }
   return { ok: true, entries, lessons: [...lessons].sort((a, b) => a - b) };
 }
-
-/** The lesson numbers named by already-normalised entries. */
-export function revisitLessons(entries: readonly string[]): number[] {
-  const read = readRevisit(entries);
-  return read.ok ? read.lessons : [];
-}
