@@ -187,6 +187,25 @@ describe('the printed plan', () => {
     );
   });
 
+  it('prints an unchanged plan from its kept copy, and a changed plan afresh', async () => {
+    const download = async () =>
+      (
+        await owner
+          .get(`/api/review-plans/${plan.id}/export.pdf`)
+          .buffer(true)
+          .parse(binary)
+          .expect(200)
+      ).body as Buffer;
+    // The kept bytes, creation time and all.
+    expect((await download()).equals(pdf)).toBe(true);
+    const move = (scheduledFor: string) =>
+      owner.send('patch', `/api/review-plans/${plan.id}`, { scheduledFor }).expect(200);
+    await move('2026-12-05');
+    expect((await pages(await download()))[0]).toContain('Review day 5 December 2026');
+    await move('2026-12-04');
+    expect((await pages(await download()))[0]).toContain('Review day 4 December 2026');
+  });
+
   it('renders to PNG pages with pdftoppm (Debian poppler-utils)', () => {
     const dir = mkdtempSync(path.join(tmpdir(), 'plan-png-'));
     const file = path.join(dir, 'plan.pdf');
@@ -222,7 +241,7 @@ describe('the printed plan', () => {
       /Review plan for Print child, 4 December 2026/,
     );
     expect(mail.text).toContain(
-      'Where the answers are: on the last page of the PDF, headed “Answers”',
+      'Where the answers are: at the end of the PDF, from the page headed “Answers”',
     );
     expect(mail.text).toContain('Lesson 4 “Adding two-digit numbers”');
     expect(mail.links).toContain(`https://workback.example.test/review-plans/${plan.id}`);

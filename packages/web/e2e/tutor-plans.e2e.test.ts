@@ -188,7 +188,7 @@ describe('a tutor joins, reads the patterns and notes on one; the parent sends a
     // The mail says where the answers are and links back to this plan at PUBLIC_URL (the
     // server's configured name, not the address this browser used) (issue 11 §5).
     expect(sent.text).toMatch(
-      /Where the answers are: on the last page of the PDF, headed “Answers”/,
+      /Where the answers are: at the end of the PDF, from the page headed “Answers”/,
     );
     expect(sent.links).toContain(`${publicUrl}${planPath}`);
     expect(publicUrl).not.toBe(baseUrl);

@@ -98,7 +98,7 @@ export async function renderReviewPlanPdf(plan: ReviewPlanJson): Promise<Buffer>
   }
   doc.moveDown(0.5);
   small(
-    'This page is the summary: start here. Every problem with its working follows from page 2, then fresh practice; the answers are on the last page, headed “Answers”.',
+    'This page is the summary: start here. Every problem with its working follows from page 2, then fresh practice; the answers come last, from the page headed “Answers”.',
     0,
   );
   heading(doc, 'Lessons to revisit');

@@ -90,6 +90,13 @@ describe('ruleName', () => {
     expect(ruleName('add.no-carry')).toBe('Carry dropped (addition)');
     expect(ruleName('mul.no-carry')).toBe('Carry dropped (multiplication)');
     expect(ruleName('sub.borrow-across-zero')).toBe('Zeros skipped when regrouping');
+    // A pair reads as one sentence: the second name is not capitalised mid-sentence.
+    expect(ruleName('sub.borrow-from-zero+sub.fact')).toBe(
+      'Zero changed to 9, regrouping stopped with one subtraction fact',
+    );
+    expect(ruleName('sub.borrow-no-decrement+sub.n-minus-zero-is-zero')).toBe(
+      'Ten added, nothing taken with N − 0 written as 0',
+    );
   });
 });
 

@@ -32,7 +32,7 @@ const SECTIONS: readonly { kind: PlanItemKind; title: string; intro: string }[] 
     kind: 'practice',
     title: 'Fresh practice problems',
     intro:
-      'New problems that need the same steps. The answers are on the last page of the PDF, headed “Answers”.',
+      'New problems that need the same steps. The answers come last in the PDF, from the page headed “Answers”.',
   },
   {
     kind: 'miss',
