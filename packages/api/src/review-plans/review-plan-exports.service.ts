@@ -68,7 +68,7 @@ export class ReviewPlanExportsService {
               ]
             : []),
           ...(dto.message ? [`${sender} adds: ${dto.message}`] : []),
-          `Where the answers are: on the last page of the PDF, headed “Answers”. Keep that page apart while the problems are worked.`,
+          `Where the answers are: at the end of the PDF, from the page headed “Answers”. Keep those pages apart while the problems are worked.`,
         ],
         action: { label: 'Open the plan in Workback', url: `${origin}/review-plans/${plan.id}` },
         sentBy: `${sender}, of ${household.name}`,
