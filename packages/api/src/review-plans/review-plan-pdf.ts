@@ -182,7 +182,7 @@ export async function renderReviewPlanPdf(plan: ReviewPlanJson): Promise<Buffer>
 
   doc.addPage();
   doc.font('sansBold').fontSize(16).text('Answers');
-  small('For the grown-up: keep this page apart while the problems are worked.', 0);
+  small('For the grown-up: keep the answers apart while the problems are worked.', 0);
   doc.moveDown(0.6);
   const answer = (text: string) => {
     ensureRoom(doc, 18);
