@@ -123,7 +123,8 @@ export function buildReviewPlan(
     ...practice.map((p) => ({
       kind: 'practice' as const,
       key: `practice:${p.ruleId}`,
-      title: `Work ${p.problems.length} fresh problems (${p.title.toLowerCase()})`,
+      // "…: zeros skipped when regrouping"; a name like "N − 0 written as 0" keeps its capital.
+      title: `Work ${p.problems.length} fresh problems: ${p.title.replace(/^[A-Z](?=[a-z])/, (c) => c.toLowerCase())}`,
       payload: p,
       missIds: p.missIds,
     })),

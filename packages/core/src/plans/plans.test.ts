@@ -223,6 +223,14 @@ describe('buildReviewPlan', () => {
       'miss:5',
     ]);
     expect(plan.items[0]!.title).toBe('Revisit lessons 12–14');
+    expect(plan.items[4]!.title).toBe('Work 4 fresh problems: zeros skipped when regrouping');
+    // A rule named with a letter keeps it: DESIGN.md's example 47 − 20 → 20 (N − 0 written as 0).
+    const nZero = buildReviewPlan([missOf('2026-03-02', '47 - 20', '20', { id: 9 })], {
+      planId: 7,
+    });
+    expect(nZero.items.find((i) => i.kind === 'practice')?.title).toBe(
+      'Work 4 fresh problems: N − 0 written as 0',
+    );
     expect(plan.items[5]).toMatchObject({
       kind: 'miss',
       title: 'Re-work 304 − 75 together',
