@@ -3,6 +3,7 @@ import type {
   FactFamilyDrill,
   FirstWrongStep,
   FocusProblem,
+  InterviewStage,
   LessonRange,
   MissStatus,
   PlanItemKind,
@@ -60,6 +61,21 @@ export type PlanMiss = {
   ruleExplanation: string | null;
   working: { expected: string; child: string | null } | null;
   ruleName?: string | null;
+  /** A word problem's number sentences, each with its verdict (null when none were recorded). */
+  lines?: PlanLine[] | null;
+  firstWrongLine?: number | null;
+  stage?: InterviewStage | null;
+};
+
+/** One number sentence on a plan: `verdict` is null when the line could not be checked. */
+export type PlanLine = {
+  line: number;
+  text: string;
+  ok: boolean | null;
+  written: string;
+  expected: string | null;
+  followsFrom: number | null;
+  verdict: string | null;
 };
 
 /** The plan's first page: lessons, facts and the problems most worth re-working. */

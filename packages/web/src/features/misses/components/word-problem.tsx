@@ -1,7 +1,9 @@
 import { Button, Radio, RadioGroup } from '@blueprintjs/core';
 import { ChevronDownIcon, ChevronRightIcon } from '@blueprintjs/icons';
 import {
+  INTERVIEW_STAGE_GUIDE,
   INTERVIEW_STAGES,
+  lineVerdict,
   MISS_KIND_LABEL,
   type CheckedLines,
   type InterviewStage,
@@ -18,13 +20,7 @@ import './word-problem.css';
  * White 2005 for the interview in practice): the first one the child cannot do is where the
  * word problem went wrong.
  */
-export const STAGE_PROMPTS: Readonly<Record<InterviewStage, { prompt: string; stage: string }>> = {
-  reading: { prompt: 'Read it to me', stage: 'Reading the words' },
-  comprehension: { prompt: 'What is it asking?', stage: 'Understanding the question' },
-  transformation: { prompt: 'How will you work it out?', stage: 'Choosing the operations' },
-  process: { prompt: 'Work it', stage: 'Doing the arithmetic' },
-  encoding: { prompt: 'Write the answer', stage: 'Writing the answer down' },
-};
+export const STAGE_PROMPTS = INTERVIEW_STAGE_GUIDE;
 
 /** `stageLabel('process')` → `'Doing the arithmetic'`. */
 export const stageLabel = (stage: InterviewStage): string => STAGE_PROMPTS[stage].stage;
@@ -166,11 +162,7 @@ export function LinesCheckView({
               <li key={l.line} className={`wb-word-line${first ? ' wb-word-line-first' : ''}`}>
                 <span className="wb-word-line-number">{l.line}.</span>
                 <span className="wb-mono">{l.text}</span>
-                <span className="wb-word-line-verdict">
-                  {l.ok ? 'Right' : `Differs: this comes to ${l.expected}`}
-                  {first ? ' · the first line that differs' : ''}
-                  {l.followsFrom !== null ? ` · follows from line ${l.followsFrom}` : ''}
-                </span>
+                <span className="wb-word-line-verdict">{lineVerdict(l, check.firstWrongLine)}</span>
               </li>
             );
           })}

@@ -1,5 +1,10 @@
 import { Button, Checkbox } from '@blueprintjs/core';
-import type { FactFamilyDrill, LessonRange, PracticeBlock } from '@workback/core';
+import {
+  INTERVIEW_STAGE_GUIDE,
+  type FactFamilyDrill,
+  type LessonRange,
+  type PracticeBlock,
+} from '@workback/core';
 import { useState } from 'react';
 import { Link } from 'react-router-dom';
 
@@ -30,6 +35,37 @@ function PracticeProblems({ block }: { block: PracticeBlock }) {
       >
         {answers ? 'Hide the answers' : 'Show the answers'}
       </Button>
+    </div>
+  );
+}
+
+/** A word problem's number sentences with their verdicts, the first that differs marked softly. */
+function PlanLines({ miss }: { miss: PlanMiss }) {
+  if (!miss.lines && !miss.stage) return null;
+  const stage = miss.stage ? INTERVIEW_STAGE_GUIDE[miss.stage] : null;
+  return (
+    <div className="wb-plan-lines">
+      {miss.lines ? (
+        <ol className="wb-plan-line-list" aria-label="Number sentences">
+          {miss.lines.map((l) => (
+            <li
+              key={l.line}
+              className={
+                l.line === miss.firstWrongLine ? 'wb-plan-line wb-plan-line-first' : 'wb-plan-line'
+              }
+            >
+              <span className="wb-plan-line-number">{l.line}.</span>
+              <span className="wb-mono">{l.text}</span>
+              {l.verdict ? <span className="wb-plan-line-verdict">{l.verdict}</span> : null}
+            </li>
+          ))}
+        </ol>
+      ) : null}
+      {stage ? (
+        <p className="wb-muted">
+          Where it went wrong: “{stage.prompt}” ({stage.stage.toLowerCase()}).
+        </p>
+      ) : null}
     </div>
   );
 }
@@ -80,6 +116,7 @@ function ItemBody({ item, missById }: { item: PlanItem; missById: Map<number, Pl
             <Link to={paths.app.miss.getHref(payload.missId)}>open the miss</Link>
           </span>
           {miss?.explanation ? <p className="wb-activity">“{miss.explanation}”</p> : null}
+          {miss ? <PlanLines miss={miss} /> : null}
         </div>
       );
     }

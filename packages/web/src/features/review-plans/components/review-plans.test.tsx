@@ -181,3 +181,77 @@ describe('review plans', () => {
     expect(screen.queryByRole('button', { name: 'Send by e-mail' })).not.toBeInTheDocument();
   });
 });
+
+describe('a word problem on a plan', () => {
+  it('lists its number sentences with their verdicts, the first that differs marked, and the stage', async () => {
+    // 60 − 18 = 42 by plain arithmetic: line 2 differs and line 3 goes on with its 58.
+    const lines = [
+      {
+        line: 1,
+        text: '4 x 15 = 60',
+        ok: true,
+        written: '60',
+        expected: '60',
+        followsFrom: null,
+        verdict: 'Right',
+      },
+      {
+        line: 2,
+        text: '60 - 18 = 58',
+        ok: false,
+        written: '58',
+        expected: '42',
+        followsFrom: null,
+        verdict: 'Differs: this comes to 42 · the first line that differs',
+      },
+      {
+        line: 3,
+        text: '58 + 7 = 65',
+        ok: true,
+        written: '65',
+        expected: '65',
+        followsFrom: 2,
+        verdict: 'Right · follows from line 2',
+      },
+    ];
+    mockApi({
+      ...CSRF,
+      'GET /auth/me': json(200, ownerMe),
+      'GET /review-plans/5': json(200, {
+        ...plan,
+        misses: [
+          {
+            id: 41,
+            occurredOn: '2026-03-09',
+            problem: 'Pencils: 4 boxes of 15, 18 given away, 7 bought',
+            answer: '65',
+            expected: null,
+            explanation: '',
+            cause: 'step',
+            status: 'planned',
+            ruleIds: ['sub.smaller-from-larger'],
+            firstWrongStep: null,
+            ruleExplanation: null,
+            working: null,
+            lines,
+            firstWrongLine: 2,
+            stage: 'process',
+          },
+        ],
+      }),
+    });
+    renderApp('/review-plans/5');
+    const list = await screen.findByRole('list', { name: 'Number sentences' });
+    const items = within(list).getAllByRole('listitem');
+    expect(items.map((i) => i.textContent)).toEqual([
+      '1.4 x 15 = 60Right',
+      '2.60 - 18 = 58Differs: this comes to 42 · the first line that differs',
+      '3.58 + 7 = 65Right · follows from line 2',
+    ]);
+    expect(items[1]).toHaveClass('wb-plan-line-first');
+    expect(items[2]).not.toHaveClass('wb-plan-line-first');
+    expect(
+      screen.getByText('Where it went wrong: “Work it” (doing the arithmetic).'),
+    ).toBeVisible();
+  });
+});
