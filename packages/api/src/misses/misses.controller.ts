@@ -23,6 +23,8 @@ import { PhotoUpload } from '../photos/photo-upload.js';
 import { CreateMissDto } from './dto/create-miss.dto.js';
 import { ListMissesQuery } from './dto/list-misses.query.js';
 import { UpdateMissDto } from './dto/update-miss.dto.js';
+import { MissPhotosService } from './miss-photos.service.js';
+import { MissSearchService } from './miss-search.service.js';
 import { MissesService } from './misses.service.js';
 
 /** A client-made key, e.g. a UUID: long enough not to be guessed, short enough to index. */
@@ -31,11 +33,15 @@ const IDEMPOTENCY_KEY = /^[A-Za-z0-9_-]{16,100}$/;
 @ApiTags('misses')
 @Controller('misses')
 export class MissesController {
-  constructor(private readonly misses: MissesService) {}
+  constructor(
+    private readonly misses: MissesService,
+    private readonly search: MissSearchService,
+    private readonly photos: MissPhotosService,
+  ) {}
 
   @Get()
   findAll(@CurrentMember() member: MemberContext, @Query() query: ListMissesQuery) {
-    return this.misses.findAll(member, query);
+    return this.search.findAll(member, query);
   }
 
   @Roles(Role.owner, Role.parent)
@@ -95,6 +101,6 @@ export class MissesController {
     @IdParam() id: number,
     @UploadedFiles() files: Express.Multer.File[] | undefined,
   ) {
-    return this.misses.addPhotos(member, id, files ?? []);
+    return this.photos.addPhotos(member, id, files ?? []);
   }
 }

@@ -4,11 +4,16 @@ import { DiagnoseModule } from '../diagnose/diagnose.module.js';
 import { PhotosModule } from '../photos/photos.module.js';
 import { StudentsModule } from '../students/students.module.js';
 import { CountCache } from './count-cache.js';
+import { MarkedMissesService } from './marked-misses.service.js';
+import { MissDiagnosesService } from './miss-diagnoses.service.js';
+import { MissPhotosService } from './miss-photos.service.js';
+import { MissSearchService } from './miss-search.service.js';
 import { MissesController } from './misses.controller.js';
 import { MissesService } from './misses.service.js';
 import { MissDiagnosis } from './models/miss-diagnosis.model.js';
 import { MissRule } from './models/miss-rule.model.js';
 import { Miss } from './models/miss.model.js';
+import { PageCache } from './page-cache.js';
 
 @Module({
   imports: [
@@ -18,7 +23,15 @@ import { Miss } from './models/miss.model.js';
     DiagnoseModule,
   ],
   controllers: [MissesController],
-  providers: [MissesService, CountCache],
-  exports: [MissesService],
+  providers: [
+    MissesService,
+    MissSearchService,
+    MissPhotosService,
+    MissDiagnosesService,
+    MarkedMissesService,
+    CountCache,
+    PageCache,
+  ],
+  exports: [MissesService, MarkedMissesService],
 })
 export class MissesModule {}

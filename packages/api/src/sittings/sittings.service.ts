@@ -12,7 +12,7 @@ import { sameAnswer as sameAnswerOf } from '../answer-keys/same-answer.js';
 import type { MemberContext } from '../common/member-context.js';
 import { fieldsError } from '../common/pipes/validation.pipe.js';
 import { checkCalendarDate } from '../misses/dto/calendar-date.validator.js';
-import { MissesService } from '../misses/misses.service.js';
+import { MarkedMissesService } from '../misses/marked-misses.service.js';
 import { StudentsService } from '../students/students.service.js';
 import type { CreateSittingDto } from './dto/create-sitting.dto.js';
 import type { ListSittingsQuery, SittingRangeQuery } from './dto/list-sittings.query.js';
@@ -47,7 +47,7 @@ export class SittingsService implements OnModuleInit {
     @InjectConnection() private readonly sequelize: Sequelize,
     private readonly students: StudentsService,
     private readonly keys: AnswerKeysService,
-    private readonly misses: MissesService,
+    private readonly misses: MarkedMissesService,
   ) {}
 
   onModuleInit(): void {

@@ -1,0 +1,101 @@
+import { Injectable } from '@nestjs/common';
+import { InjectModel } from '@nestjs/sequelize';
+import {
+  checkLines,
+  type CheckedLines,
+  type InterviewStage,
+  type WrittenSteps,
+} from '@workback/core';
+import { Op, type Transaction } from 'sequelize';
+import { fieldsError } from '../common/pipes/validation.pipe.js';
+import { DiagnoseService, type Checked } from '../diagnose/diagnose.service.js';
+import { MAX_LINE_LENGTH } from './dto/create-miss.dto.js';
+import { firstWrongLine, ruleIdsOf, type WordProblem } from './miss-columns.js';
+import { MissDiagnosis } from './models/miss-diagnosis.model.js';
+import { MissRule } from './models/miss-rule.model.js';
+import type { Miss } from './models/miss.model.js';
+
+/** What the engine makes of a miss (its working, a word problem's lines) and the rows that keep it. */
+@Injectable()
+export class MissDiagnosesService {
+  constructor(
+    @InjectModel(MissRule) private readonly ruleModel: typeof MissRule,
+    @InjectModel(MissDiagnosis) private readonly diagnosisModel: typeof MissDiagnosis,
+    private readonly diagnoser: DiagnoseService,
+  ) {}
+
+  check(problem: string, answer: string, steps: WrittenSteps | null): Checked {
+    const checked = this.diagnoser.check(problem, answer, steps);
+    // Steps are structured input: if the engine cannot read them the request is wrong, not the problem.
+    if (!checked.checked && checked.part === 'steps') throw fieldsError({ steps: checked.reason });
+    return checked;
+  }
+
+  /**
+   * A word problem's lines checked one by one (null when there are none). A line the engine
+   * cannot read is refused like unreadable steps, naming it (`lines.2` is the third line);
+   * an engine failure keeps the lines unchecked rather than losing the entry.
+   */
+  wordProblem(lines: string[] | null, stage: InterviewStage | null): WordProblem {
+    if (!lines || lines.length === 0) return { lines: null, linesCheck: null, stage };
+    const long = lines.findIndex((l) => [...l].length > MAX_LINE_LENGTH);
+    if (long >= 0) {
+      throw fieldsError({
+        [`lines.${long}`]: `line ${long + 1} must be at most ${MAX_LINE_LENGTH} characters`,
+      });
+    }
+    let linesCheck: CheckedLines;
+    try {
+      linesCheck = checkLines(lines);
+    } catch {
+      return { lines, linesCheck: null, stage };
+    }
+    if (!linesCheck.ok) {
+      throw fieldsError({ [`lines.${linesCheck.line - 1}`]: linesCheck.error.message });
+    }
+    return { lines, linesCheck, stage };
+  }
+
+  /** The diagnosis row and the rule rows of a miss, replaced by the new findings. */
+  async writeRules(
+    miss: Miss,
+    checked: Checked,
+    transaction: Transaction,
+    word: WordProblem | null = null,
+  ) {
+    await this.diagnosisModel.destroy({ where: { missId: miss.id }, transaction });
+    if (checked.checked) {
+      await this.diagnosisModel.create(
+        { missId: miss.id, diagnosis: checked.diagnosis },
+        { transaction },
+      );
+    }
+    await this.ruleModel.destroy({ where: { missId: miss.id }, transaction });
+    const counted = checked.checked ? checked.diagnosis : firstWrongLine(word?.linesCheck ?? null);
+    const ids = counted ? ruleIdsOf(counted) : [];
+    if (ids.length === 0) return;
+    await this.ruleModel.bulkCreate(
+      ids.map((ruleId) => ({ missId: miss.id, ruleId, householdId: miss.householdId })),
+      { transaction },
+    );
+  }
+
+  /** The engine's findings as it checks a marked item: no written steps, never refused. */
+  checkAnswer(problem: string, answer: string, steps: WrittenSteps | null = null): Checked {
+    return this.diagnoser.check(problem, answer, steps);
+  }
+
+  /** The stored full diagnosis of one miss (null when the engine could not read it). */
+  async diagnosisOf(missId: number) {
+    return (await this.diagnosisModel.findByPk(missId))?.diagnosis ?? null;
+  }
+
+  /** The stored full diagnoses of these misses, by miss id. */
+  async diagnosesOf(missIds: readonly number[], transaction?: Transaction) {
+    const rows = await this.diagnosisModel.findAll({
+      where: { missId: { [Op.in]: [...missIds] } },
+      transaction,
+    });
+    return new Map(rows.map((d) => [d.missId, d.diagnosis]));
+  }
+}
