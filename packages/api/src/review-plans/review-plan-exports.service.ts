@@ -9,7 +9,7 @@ import { writtenDate } from '../common/pdf/written-date.js';
 import { UsersService } from '../users/users.service.js';
 import type { SendReviewPlanDto } from './dto/send-review-plan.dto.js';
 import { renderReviewPlanCsv } from './review-plan-csv.js';
-import { renderReviewPlanPdf } from './review-plan-pdf.js';
+import { PlanPdfCache } from './plan-pdf-cache.js';
 import { ReviewPlansService } from './review-plans.service.js';
 
 /** A plan printed (PDF), as a spreadsheet (CSV), or e-mailed to chosen household members. */
@@ -21,11 +21,12 @@ export class ReviewPlanExportsService {
     private readonly households: HouseholdsService,
     private readonly users: UsersService,
     private readonly mail: MailService,
+    private readonly pdfs: PlanPdfCache,
   ) {}
 
   async pdf(member: MemberContext, id: number) {
     const plan = await this.plans.findOne(member, id);
-    return { filename: filenameOf(plan, 'pdf'), body: await renderReviewPlanPdf(plan) };
+    return { filename: filenameOf(plan, 'pdf'), body: await this.pdfs.pdf(plan) };
   }
 
   async csv(member: MemberContext, id: number) {
@@ -49,7 +50,7 @@ export class ReviewPlanExportsService {
       recipients.push(target);
     }
     if (Object.keys(errors).length) throw fieldsError(errors);
-    const pdf = await renderReviewPlanPdf(plan);
+    const pdf = await this.pdfs.pdf(plan);
     const household = await this.households.findCurrent(member);
     const sender = (await this.users.findById(member.userId))?.displayName ?? 'A member';
     const filename = filenameOf(plan, 'pdf');

@@ -10,6 +10,7 @@ import { UsersModule } from '../users/users.module.js';
 import { ReviewPlanItemMiss } from './models/review-plan-item-miss.model.js';
 import { ReviewPlanItem } from './models/review-plan-item.model.js';
 import { ReviewPlan } from './models/review-plan.model.js';
+import { PlanPdfCache } from './plan-pdf-cache.js';
 import { ReviewPlanExportsService } from './review-plan-exports.service.js';
 import { ReviewPlansController } from './review-plans.controller.js';
 import { ReviewPlansService } from './review-plans.service.js';
@@ -26,7 +27,7 @@ import { ReviewPlansService } from './review-plans.service.js';
     MailModule,
   ],
   controllers: [ReviewPlansController],
-  providers: [ReviewPlansService, ReviewPlanExportsService],
+  providers: [ReviewPlansService, ReviewPlanExportsService, PlanPdfCache],
   exports: [ReviewPlansService],
 })
 export class ReviewPlansModule {}

@@ -1,6 +1,7 @@
 import { readFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import path from 'node:path';
+import * as fontkit from 'fontkit';
 import PDFDocument from 'pdfkit';
 import { woffToSfnt } from './woff.js';
 
@@ -20,13 +21,40 @@ function fontFile(pkg: string, file: string): Buffer {
   return woffToSfnt(woff);
 }
 
+/**
+ * Each face is parsed once per process (fontkit), not again by every document: pdfkit takes a
+ * parsed font as it takes a file, and each document still embeds its own subset of it.
+ */
 const FONTS = {
-  sans: fontFile('@fontsource/ibm-plex-sans', 'ibm-plex-sans-latin-400-normal.woff'),
-  sansBold: fontFile('@fontsource/ibm-plex-sans', 'ibm-plex-sans-latin-600-normal.woff'),
-  sansItalic: fontFile('@fontsource/ibm-plex-sans', 'ibm-plex-sans-latin-400-italic.woff'),
-  mono: fontFile('@fontsource/ibm-plex-mono', 'ibm-plex-mono-latin-400-normal.woff'),
-  monoBold: fontFile('@fontsource/ibm-plex-mono', 'ibm-plex-mono-latin-600-normal.woff'),
+  sans: parsed('@fontsource/ibm-plex-sans', 'ibm-plex-sans-latin-400-normal.woff'),
+  sansBold: parsed('@fontsource/ibm-plex-sans', 'ibm-plex-sans-latin-600-normal.woff'),
+  sansItalic: parsed('@fontsource/ibm-plex-sans', 'ibm-plex-sans-latin-400-italic.woff'),
+  mono: parsed('@fontsource/ibm-plex-mono', 'ibm-plex-mono-latin-400-normal.woff'),
+  monoBold: parsed('@fontsource/ibm-plex-mono', 'ibm-plex-mono-latin-600-normal.woff'),
 };
+type Face = keyof typeof FONTS;
+
+function parsed(pkg: string, file: string): fontkit.Font {
+  return fontkit.create(fontFile(pkg, file)) as fontkit.Font;
+}
+
+/**
+ * pdfkit shapes every word it measures or writes (fontkit's OpenType layout, most of a PDF's
+ * time) and keeps the result per document and face (`layoutCache`, word → glyph run). The runs
+ * depend only on the face and the word, so one table per face serves every document; it is
+ * started afresh past LAYOUT_WORDS words, which bounds its memory.
+ */
+const LAYOUT_WORDS = 20_000;
+const layouts = new Map<Face, { words: Record<string, unknown>; documents: number }>();
+
+function sharedLayouts(face: Face): Record<string, unknown> {
+  let table = layouts.get(face);
+  // Counting its words now and then, not at every document.
+  if (table && ++table.documents % 50 === 0 && Object.keys(table.words).length > LAYOUT_WORDS)
+    table = undefined;
+  if (!table) layouts.set(face, (table = { words: Object.create(null), documents: 0 }));
+  return table.words;
+}
 
 export const INK = '#1f2a44';
 export const PENCIL = '#5d6678';
@@ -44,7 +72,12 @@ export function newDocument(title: string): Doc {
     bufferPages: true,
     info: { Title: title, Creator: 'Workback', Producer: 'Workback' },
   });
-  for (const [name, file] of Object.entries(FONTS)) doc.registerFont(name, file);
+  for (const [face, font] of Object.entries(FONTS) as [Face, fontkit.Font][]) {
+    // PDFFontSource does not list a parsed font, which pdfkit's font factory takes as it is.
+    doc.registerFont(face, font as unknown as Buffer);
+    const embedded = (doc.font(face) as unknown as { _font?: { layoutCache?: object } })._font;
+    if (embedded?.layoutCache) embedded.layoutCache = sharedLayouts(face);
+  }
   doc.font('sans').fontSize(10.5).fillColor(INK);
   return doc;
 }
