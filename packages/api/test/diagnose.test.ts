@@ -71,4 +71,16 @@ describe('POST /api/diagnose', () => {
     expect(res.body.fields).toHaveProperty(field);
     expect(res.body.message.length).toBeGreaterThan(5);
   });
+
+  // Issue 11 §3: the message names a whole word, quotes an emoji whole, shortens long input.
+  it.each([
+    [{ problem: '45 ÷ 6', answer: '7 rem 3' }, 'answer', 'the word “rem”'],
+    [{ problem: '81 - 38', answer: 'forty-three' }, 'answer', 'the word “forty-three”'],
+    [{ problem: '81 👍🏽 38', answer: '43' }, 'problem', '“👍🏽”'],
+    [{ problem: `${'7'.repeat(150)} + 1`, answer: '8' }, 'problem', '…”'],
+  ])('says what it could not read in %j', async (body, field, words) => {
+    const res = await tutor.post('/api/diagnose', body).expect(422);
+    expect(res.body.fields[field]).toContain(words);
+    expect(res.body.message.length).toBeLessThan(200);
+  });
 });

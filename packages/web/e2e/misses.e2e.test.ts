@@ -63,6 +63,11 @@ describe('logging a miss on a phone', () => {
     expect(await page.getByText('Seven and six is thirteen, so I wrote the one.').isVisible()).toBe(
       true,
     );
+    // Words a parent understands (issue 11 §4): the usual answer is said once on the page, and
+    // no digit "became -1".
+    const said = await page.locator('main').innerText();
+    expect(said.match(/usual working gives/gi)).toHaveLength(1);
+    expect(said).not.toMatch(/became\s*[-−]\d/);
     const missUrl = page.url();
     await page.getByText('Saved the miss.').waitFor({ state: 'detached', timeout: 10_000 });
     await checkPage(page, 'miss-saved', PHONE);

@@ -59,7 +59,9 @@ function DifficultyCard({
         <h3 className="wb-finding-title">{card.title}</h3>
       </div>
       {card.recurring ? (
-        <p className="wb-recurring-sentence">{recurringSentence(name, card.recurring)}</p>
+        <p className="wb-recurring-line">
+          <span className="wb-recurring-sentence">{recurringSentence(name, card.recurring)}</span>
+        </p>
       ) : null}
       <p className="wb-difficulty-sentence">{card.sentence}</p>
       {card.skills.length > 0 ? (
