@@ -1,4 +1,46 @@
+import { existsSync, readFileSync } from 'node:fs';
+import { join } from 'node:path';
+
 import type { VitePWAOptions } from 'vite-plugin-pwa';
+
+/**
+ * The pages a parent needs with no connection: the notebook (what waits to send) and the log
+ * form. Their build files are kept when the worker installs, so they open offline even on a
+ * phone that never opened them online.
+ */
+const OFFLINE_ROUTES = ['src/app/routes/notebook.tsx', 'src/app/routes/log-miss.tsx'];
+
+/** Loaded later by those pages, but not needed offline: the wide screen's table. */
+const ONLINE_ONLY = ['index.html', 'src/features/misses/components/notebook-table.tsx'];
+
+type ViteManifest = Record<
+  string,
+  { file: string; imports?: string[]; dynamicImports?: string[]; css?: string[] }
+>;
+
+/**
+ * The build files of `OFFLINE_ROUTES` and all they import, at once or on use (the photo cropper,
+ * the photo preparer and its worker), read from Vite's build manifest.
+ */
+function offlineFiles(): Set<string> {
+  const path = join(import.meta.dirname, 'dist/.vite/manifest.json');
+  if (!existsSync(path)) return new Set();
+  const manifest = JSON.parse(readFileSync(path, 'utf8')) as ViteManifest;
+  const files = new Set<string>();
+  const seen = new Set<string>();
+  const visit = (key: string) => {
+    const chunk = manifest[key];
+    if (!chunk || seen.has(key)) return;
+    seen.add(key);
+    files.add(chunk.file);
+    for (const css of chunk.css ?? []) files.add(css);
+    for (const imported of chunk.imports ?? []) visit(imported);
+    if (key === 'index.html') return;
+    for (const later of chunk.dynamicImports ?? []) if (!ONLINE_ONLY.includes(later)) visit(later);
+  };
+  OFFLINE_ROUTES.forEach(visit);
+  return files;
+}
 
 /**
  * The installable app: a web app manifest with our own icons (scripts/make-icons.mjs), and a
@@ -34,9 +76,22 @@ export const pwaOptions: Partial<VitePWAOptions> = {
     ],
   },
   workbox: {
-    // Kept at install: the page itself and the icons. The code and styles a page uses are kept
-    // as it uses them (below), so installing downloads nothing more on a slow connection.
-    globPatterns: ['index.html', 'icons/*.png'],
+    // Kept at install: the page itself, the icons, and the build files of the pages that work
+    // offline (the first open has loaded most of them already: the worker installs after it).
+    // The code and styles of other pages are kept as they are used (below).
+    globPatterns: ['index.html', 'icons/*.png', 'assets/*.{js,css}'],
+    // Build files are named by their content: kept as they are, so the worker takes the ones the
+    // first open loaded from the browser's cache instead of downloading them again.
+    dontCacheBustURLsMatching: /^assets\//,
+    manifestTransforms: [
+      (entries) => {
+        const offline = offlineFiles();
+        return {
+          manifest: entries.filter((e) => !e.url.startsWith('assets/') || offline.has(e.url)),
+          warnings: offline.size === 0 ? ['no build manifest: offline pages not precached'] : [],
+        };
+      },
+    ],
     navigateFallback: 'index.html',
     navigateFallbackDenylist: [/^\/api(\/|$)/],
     runtimeCaching: [

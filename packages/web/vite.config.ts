@@ -31,6 +31,9 @@ export default defineConfig({
   build: {
     // The API serves this folder under a strict CSP: no inline scripts, so keep modules external.
     modulePreload: { polyfill: false },
+    // dist/.vite/manifest.json: the service worker keeps the offline pages' files (pwa.config.ts).
+    // A dot-folder, which the server's static files never serve.
+    manifest: true,
     chunkSizeWarningLimit: 1200,
     rolldownOptions: {
       output: {

@@ -39,6 +39,18 @@ describe('on the home network', () => {
     expect(await page.evaluate(() => getComputedStyle(document.body).fontFamily)).toMatch(/Plex/);
     await capture(page, 'home-network-students', PHONE);
 
+    // No service worker here (browsers allow one only over https or on localhost): the notebook
+    // still opens, its rows showing the small square photos.
+    expect(await page.evaluate(() => 'serviceWorker' in navigator)).toBe(false);
+    await page.goto('/notebook');
+    const thumb = page.locator('ul[aria-label="Misses"] img.wb-thumb').first();
+    await thumb.waitFor();
+    const size = await thumb.evaluate(async (img: HTMLImageElement) => {
+      await img.decode();
+      return [img.naturalWidth, img.naturalHeight];
+    });
+    expect(size).toEqual([128, 128]);
+
     expect(watched.foreignRequests, 'requests to other sites').toEqual([]);
     expect(signedOutAnswersAside(watched.consoleErrors), 'console errors').toEqual([]);
     expect(watched.cspViolations, 'CSP violations').toEqual([]);

@@ -8,8 +8,8 @@ import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 
 import { capture, launchBrowser, openApp, PHONE } from './browser';
 
-// Issue 12 at phone width (390 px): the logging flow (§4), offline drafts sent exactly once and
-// the installable shell (§5), and the phone bar (§6).
+// Issue 12 at phone width (390 px): the logging flow (§4), offline drafts sent exactly once, a
+// refused one put right, the installable shell opened cold offline (§5), and the phone bar (§6).
 
 const baseUrl = inject('baseUrl');
 const rotated = resolve(import.meta.dirname, '../../../fixtures/photos/rotated-gps.jpg');
@@ -370,6 +370,55 @@ describe('offline on a phone', () => {
     // The shell opens from the phone: our page, with its scripts running.
     await page.waitForFunction(() => (document.getElementById('root')?.childElementCount ?? 0) > 0);
     expect(await page.title()).toBe('Workback');
+
+    // Opened cold at its start address with no connection, the signed-in parent lands in the
+    // notebook's frame (never opened online here: the worker kept it), told they are offline.
+    await page.goto('/');
+    await page.waitForURL('**/notebook');
+    await page.getByText('You are offline.').waitFor();
+    await page.getByRole('heading', { name: 'Notebook', exact: true }).waitFor();
+    await page.getByRole('main').getByRole('link', { name: 'Log a miss' }).click();
+    await page.getByRole('heading', { name: 'Log a miss', exact: true }).waitFor();
+    // The form offers the children kept from the last time; a typo puts the work in 1926.
+    const problem = '6023 - 2748';
+    await fillMiss(page, problem, '4725');
+    await page.getByLabel('Date of the work').fill('1926-11-02');
+    await page.getByRole('button', { name: 'Save', exact: true }).click();
+    await page.getByText(/the miss is kept on this phone/).waitFor();
+    const waiting = page.getByRole('list', { name: 'Misses waiting to send' });
+    await waiting.getByText(problem).waitFor();
+    await capture(page, 'offline-cold-open', PHONE);
+
+    // Back online the server refuses the day, naming it; the miss waits to be put right.
+    const posts: string[] = [];
+    page.on('request', (r) => {
+      if (r.method() === 'POST' && new URL(r.url()).pathname === '/api/misses') {
+        posts.push(r.headers()['idempotency-key'] ?? '');
+      }
+    });
+    await context.setOffline(false);
+    await waiting.getByText(/Not accepted: .*occurredOn must be in this century/).waitFor();
+    await page.getByText('You are offline.').waitFor({ state: 'detached' });
+    expect(posts).toHaveLength(1);
+    expect(await countMisses(context, problem)).toBe(0);
+    await waiting.getByRole('button', { name: `Put the waiting miss ${problem} right` }).click();
+    const dialog = page.getByRole('dialog', { name: 'Put the waiting miss right' });
+    // The server's words stand under the field they name.
+    await dialog.getByText('occurredOn must be in this century', { exact: true }).waitFor();
+    expect(await dialog.getByLabel('Date of the work').getAttribute('aria-invalid')).toBe('true');
+    await capture(page, 'offline-refused-draft', PHONE);
+    await dialog.getByLabel('Date of the work').fill('2026-11-02');
+    await dialog.getByRole('button', { name: 'Send again' }).click();
+    await page.getByText('Sent 1 miss that was waiting.').waitFor();
+    await waiting.waitFor({ state: 'detached' });
+    expect(await countMisses(context, problem)).toBe(1);
+    // Sent once, with the key it was kept with; reopening sends nothing more.
+    await page.reload();
+    await page.getByRole('heading', { name: 'Log a miss', exact: true }).waitFor();
+    await page.waitForTimeout(1000);
+    expect(posts).toHaveLength(2);
+    expect(posts[1]).toBe(posts[0]);
+    expect(await countMisses(context, problem)).toBe(1);
     await context.close();
   });
 });

@@ -2,7 +2,6 @@ import type { QueryClient } from '@tanstack/react-query';
 import { useMemo } from 'react';
 import {
   createBrowserRouter,
-  Navigate,
   RouterProvider,
   type LoaderFunctionArgs,
   type RouteObject,
@@ -10,7 +9,7 @@ import {
 
 import { PageSkeleton } from '../components/page-skeleton';
 import { paths } from '../config/paths';
-import { protectedLoader, ProtectedRoute } from './routes/protected';
+import { HomeRedirect, protectedLoader, ProtectedRoute } from './routes/protected';
 import { RouteError } from './routes/route-error';
 
 type RouteModule = {
@@ -61,7 +60,7 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
           loader: protectedLoader(queryClient),
           element: <ProtectedRoute />,
           children: [
-            { index: true, element: <Navigate to={paths.app.students.getHref()} replace /> },
+            { index: true, element: <HomeRedirect /> },
             {
               path: paths.app.students.path,
               lazy: lazyRoute(queryClient, () => import('./routes/students')),

@@ -2,6 +2,7 @@ import { EDITOR_ROLES, type Role } from '@workback/core';
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 
 import { api, forgetCsrfToken, isApiError } from './api-client';
+import { forgetKept, keepMe, keptMe } from './kept-me';
 
 export type HouseholdSummary = { id: number; name: string; role: Role };
 
@@ -16,6 +17,11 @@ export type Me = {
   };
   household: HouseholdSummary | null;
   households: HouseholdSummary[];
+  /**
+   * Set when the server could not be reached and this is the answer kept on this phone from the
+   * last time (see kept-me.ts): the app opens in its offline state.
+   */
+  offline?: true;
 };
 
 export type SignInInput = { email: string; password: string };
@@ -33,18 +39,33 @@ export const authKeys = {
   me: () => [...authKeys.all, 'me'] as const,
 };
 
-/** The signed-in person, or `null` when nobody is signed in (the API answers 401). */
+/**
+ * The signed-in person, or `null` when nobody is signed in (the API answers 401). With no
+ * connection, the person last signed in on this phone, marked `offline`.
+ */
 export async function getMe(): Promise<Me | null> {
   try {
-    return await api.get<Me>('/auth/me');
+    const me = await api.get<Me>('/auth/me');
+    keepMe(me);
+    return me;
   } catch (error) {
-    if (isApiError(error, 401)) return null;
+    if (isApiError(error, 401)) {
+      forgetKept();
+      return null;
+    }
+    const kept = isApiError(error, 0) ? keptMe() : null;
+    if (kept) return { ...kept, offline: true };
     throw error;
   }
 }
 
 export const meQueryOptions = () =>
-  queryOptions({ queryKey: authKeys.me(), queryFn: getMe, staleTime: 60_000 });
+  queryOptions({
+    queryKey: authKeys.me(),
+    queryFn: getMe,
+    // The kept answer is asked again as soon as anything refetches.
+    staleTime: (query) => (query.state.data?.offline ? 0 : 60_000),
+  });
 
 export const useMe = () => useQuery(meQueryOptions());
 
@@ -63,16 +84,20 @@ export function canEditHousehold(me: Me): boolean {
 export async function signIn(input: SignInInput): Promise<Me> {
   const me = await api.post<Me>('/auth/login', input);
   forgetCsrfToken();
+  keepMe(me);
   return me;
 }
 
 export async function createAccount(input: CreateAccountInput): Promise<Me> {
   const me = await api.post<Me>('/auth/register', input);
   forgetCsrfToken();
+  keepMe(me);
   return me;
 }
 
 export async function signOut(): Promise<void> {
+  // Forgotten first: even when the server cannot be told, this phone keeps nothing of the person.
+  forgetKept();
   try {
     await api.post<void>('/auth/logout');
   } finally {

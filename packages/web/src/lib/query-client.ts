@@ -2,6 +2,7 @@ import { QueryCache, QueryClient, type DefaultOptions } from '@tanstack/react-qu
 
 import { isApiError } from './api-client';
 import { authKeys } from './auth';
+import { forgetKept } from './kept-me';
 
 const defaultOptions: DefaultOptions = {
   queries: {
@@ -22,7 +23,10 @@ export function createQueryClient(overrides: DefaultOptions = {}): QueryClient {
     },
     queryCache: new QueryCache({
       onError: (error) => {
-        if (isApiError(error, 401)) queryClient.setQueryData(authKeys.me(), null);
+        if (isApiError(error, 401)) {
+          forgetKept();
+          queryClient.setQueryData(authKeys.me(), null);
+        }
       },
     }),
   });

@@ -6,22 +6,38 @@ import { Link } from 'react-router-dom';
 import { NoHouseholdCallout, seesChildren } from '../../components/no-household';
 import { EmptyState, ErrorState, LoadingState } from '../../components/states';
 import { paths } from '../../config/paths';
+import { useOffline } from '../../features/drafts/components/offline-banner';
 import { WaitingList } from '../../features/drafts/components/waiting-list';
 import { keepDraft, photosOf } from '../../features/drafts/drafts-store';
 import { LogMissForm, type OfflineMiss } from '../../features/misses/components/log-miss-form';
 import { studentsQueryOptions, useStudents } from '../../features/students/api/get-students';
-import { canEditHousehold, meQueryOptions, useSignedIn } from '../../lib/auth';
+import { canEditHousehold, meQueryOptions, useSignedIn, type Me } from '../../lib/auth';
+import { keptStudents } from '../../lib/kept-me';
 
 export const clientLoader = (queryClient: QueryClient) => async () => {
   const me = await queryClient.ensureQueryData(meQueryOptions()).catch(() => null);
-  if (me && seesChildren(me)) void queryClient.prefetchQuery(studentsQueryOptions());
+  if (me && seesChildren(me) && !me.offline) void queryClient.prefetchQuery(studentsQueryOptions());
   return null;
 };
 
-function LogMissBody({ householdId }: { householdId: number }) {
+function LogMissBody({ me, householdId }: { me: Me; householdId: number }) {
   const students = useStudents();
-  if (students.isPending) return <LoadingState label="Loading students…" />;
-  if (students.isError) {
+  const offline = useOffline(me);
+  // With no connection, the children's names kept on this phone the last time (kept-me.ts).
+  const kept = offline && !students.isSuccess ? keptStudents(householdId) : null;
+  if (offline && !students.isSuccess && !kept) {
+    return (
+      <>
+        <WaitingList householdId={householdId} />
+        <Callout className="wb-callout" title="The form needs the children’s names">
+          This phone has not kept them yet. Open Log a miss once with a connection; after that it
+          works offline too.
+        </Callout>
+      </>
+    );
+  }
+  if (students.isPending && !kept) return <LoadingState label="Loading students…" />;
+  if (students.isError && !kept) {
     return (
       <ErrorState
         title="The students could not be loaded."
@@ -30,7 +46,8 @@ function LogMissBody({ householdId }: { householdId: number }) {
       />
     );
   }
-  if (students.data.items.length === 0) {
+  const list = kept ?? students.data?.items ?? [];
+  if (list.length === 0) {
     return (
       <EmptyState
         icon={<PeopleIcon size={40} />}
@@ -61,11 +78,7 @@ function LogMissBody({ householdId }: { householdId: number }) {
   return (
     <>
       <WaitingList householdId={householdId} />
-      <LogMissForm
-        students={students.data.items}
-        householdId={householdId}
-        keepOffline={keepOffline}
-      />
+      <LogMissForm students={list} householdId={householdId} keepOffline={keepOffline} />
     </>
   );
 }
@@ -84,7 +97,7 @@ export default function LogMissRoute() {
       </Callout>
     );
   } else {
-    body = <LogMissBody householdId={me.household.id} />;
+    body = <LogMissBody me={me} householdId={me.household.id} />;
   }
   return (
     <>

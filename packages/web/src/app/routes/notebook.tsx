@@ -1,20 +1,23 @@
+import { Classes } from '@blueprintjs/core';
 import type { QueryClient } from '@tanstack/react-query';
-import type { LoaderFunctionArgs } from 'react-router-dom';
+import { Link, type LoaderFunctionArgs } from 'react-router-dom';
 
 import { NoHouseholdCallout, seesChildren } from '../../components/no-household';
 import { ErrorState, LoadingState } from '../../components/states';
+import { paths } from '../../config/paths';
+import { useOffline } from '../../features/drafts/components/offline-banner';
 import { WaitingList } from '../../features/drafts/components/waiting-list';
 import { missesQueryOptions } from '../../features/misses/api/get-misses';
 import { Notebook } from '../../features/misses/components/notebook';
 import { filtersFromParams } from '../../features/misses/hooks/use-notebook-filters';
 import { studentsQueryOptions, useStudents } from '../../features/students/api/get-students';
-import { canEditHousehold, meQueryOptions, useSignedIn } from '../../lib/auth';
+import { canEditHousehold, meQueryOptions, useSignedIn, type Me } from '../../lib/auth';
 
 export const clientLoader =
   (queryClient: QueryClient) =>
   async ({ request }: LoaderFunctionArgs) => {
     const me = await queryClient.ensureQueryData(meQueryOptions()).catch(() => null);
-    if (me && seesChildren(me)) {
+    if (me && seesChildren(me) && !me.offline) {
       const filters = filtersFromParams(new URL(request.url).searchParams);
       void queryClient.prefetchQuery(studentsQueryOptions());
       void queryClient.prefetchQuery(missesQueryOptions(filters));
@@ -22,8 +25,32 @@ export const clientLoader =
     return null;
   };
 
-function NotebookBody({ canEdit, householdId }: { canEdit: boolean; householdId: number }) {
+/** With no connection: the misses are on the server, but what waits on the phone is here. */
+function OfflineNotebook({ canEdit, householdId }: { canEdit: boolean; householdId: number }) {
+  return (
+    <>
+      <h1 className="wb-page-title">Notebook</h1>
+      <WaitingList householdId={householdId} />
+      <p className="wb-muted">The notebook’s misses show again when the connection returns.</p>
+      {canEdit ? (
+        <Link
+          className={`${Classes.BUTTON} ${Classes.INTENT_PRIMARY}`}
+          to={paths.app.logMiss.getHref()}
+        >
+          Log a miss
+        </Link>
+      ) : null}
+    </>
+  );
+}
+
+function NotebookBody({ me, householdId }: { me: Me; householdId: number }) {
   const students = useStudents();
+  const offline = useOffline(me);
+  const canEdit = canEditHousehold(me);
+  if (offline && !students.isSuccess) {
+    return <OfflineNotebook canEdit={canEdit} householdId={householdId} />;
+  }
   if (students.isPending) return <LoadingState label="Loading the notebook…" />;
   if (students.isError) {
     return (
@@ -53,5 +80,5 @@ export default function NotebookRoute() {
       </>
     );
   }
-  return <NotebookBody canEdit={canEditHousehold(me)} householdId={me.household.id} />;
+  return <NotebookBody me={me} householdId={me.household.id} />;
 }

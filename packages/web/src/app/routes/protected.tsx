@@ -5,7 +5,8 @@ import { AppShell } from '../../components/layouts/app-shell';
 import { paths } from '../../config/paths';
 import { VerifyEmailNotice } from '../../features/email-verification/components/verify-email-notice';
 import { DraftSender } from '../../features/drafts/components/draft-sender';
-import { meQueryOptions, useMe } from '../../lib/auth';
+import { OfflineBanner } from '../../features/drafts/components/offline-banner';
+import { canEditHousehold, meQueryOptions, useMe, useSignedIn } from '../../lib/auth';
 
 /** Runs before every signed-in page: nobody signed in → the sign-in page, then back here. */
 export const protectedLoader =
@@ -19,6 +20,19 @@ export const protectedLoader =
     return null;
   };
 
+/**
+ * Where `/` leads: Students, or with no connection the notebook, where the misses waiting to
+ * send are listed beside the way to log another.
+ */
+export function HomeRedirect() {
+  const me = useSignedIn();
+  const to =
+    me.offline && canEditHousehold(me)
+      ? paths.app.notebook.getHref()
+      : paths.app.students.getHref();
+  return <Navigate to={to} replace />;
+}
+
 export function ProtectedRoute() {
   const me = useMe();
   const location = useLocation();
@@ -29,6 +43,7 @@ export function ProtectedRoute() {
   if (!me.data) return null;
   return (
     <AppShell>
+      <OfflineBanner me={me.data} />
       {me.data.household ? <DraftSender householdId={me.data.household.id} /> : null}
       {me.data.user.emailVerified === false ? (
         <VerifyEmailNotice email={me.data.user.email} />

@@ -21,6 +21,8 @@ export type Draft = {
   keptAt: string;
   /** Set when the server refused it (bad input): it is not sent again until the parent acts. */
   refusal: string | null;
+  /** The fields the refusal named, field → message (drafts kept before this have none). */
+  refusalFields?: Record<string, string>;
 };
 
 interface DraftsDb extends DBSchema {
@@ -84,11 +86,27 @@ export async function removeDraft(key: string): Promise<void> {
   await changed();
 }
 
-export async function markRefused(key: string, refusal: string): Promise<void> {
+export async function markRefused(
+  key: string,
+  refusal: string,
+  refusalFields: Record<string, string> = {},
+): Promise<void> {
   const database = await open();
   const draft = await database.get('drafts', key);
   if (!draft) return;
-  await database.put('drafts', { ...draft, refusal });
+  await database.put('drafts', { ...draft, refusal, refusalFields });
+  await changed();
+}
+
+/**
+ * Puts an edited draft in place of the one it was made from, in one step (its key may be new:
+ * a key the server already used for other content cannot be sent again).
+ */
+export async function replaceDraft(oldKey: string, draft: Draft): Promise<void> {
+  const tx = (await open()).transaction('drafts', 'readwrite');
+  if (oldKey !== draft.key) await tx.store.delete(oldKey);
+  await tx.store.put(draft);
+  await tx.done;
   await changed();
 }
 

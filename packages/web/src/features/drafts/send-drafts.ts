@@ -23,7 +23,7 @@ async function sendAll(householdId: number): Promise<SendOutcome> {
       outcome.sent += 1;
     } catch (error) {
       if (isApiError(error) && !isLater(error.status)) {
-        await markRefused(draft.key, error.message);
+        await markRefused(draft.key, error.message, error.fields);
         outcome.refused += 1;
         continue;
       }

@@ -1,14 +1,22 @@
 import { Button, Callout, Intent } from '@blueprintjs/core';
-import { CloudUploadIcon, TrashIcon } from '@blueprintjs/icons';
-import { useState } from 'react';
+import { CloudUploadIcon, EditIcon, TrashIcon } from '@blueprintjs/icons';
+import { lazy, Suspense, useState } from 'react';
 
+import { keptStudents } from '../../../lib/kept-me';
 import { removeDraft, type Draft } from '../drafts-store';
 import { useDrafts, useOnline } from '../hooks/use-drafts';
 import '../drafts.css';
 
-function DraftRow({ draft }: { draft: Draft }) {
+// Loaded when a refused miss is opened to put right, never with the list.
+const EditDraftDialog = lazy(() => import('./edit-draft-dialog'));
+
+type StudentNames = readonly { id: number; name: string }[];
+
+function DraftRow({ draft, students }: { draft: Draft; students: StudentNames }) {
   const [confirming, setConfirming] = useState(false);
+  const [editing, setEditing] = useState(false);
   const photos = draft.photos.length;
+  const named = Object.values(draft.refusalFields ?? {}).filter((m) => m !== draft.refusal);
   return (
     <li className="wb-draft">
       <div className="wb-draft-text">
@@ -19,10 +27,28 @@ function DraftRow({ draft }: { draft: Draft }) {
         </span>
         {draft.refusal ? (
           <span className="wb-draft-refusal">
-            Not accepted: {draft.refusal} Log it again, then delete this copy.
+            Not accepted: {draft.refusal}
+            {named.length > 0 ? ` (${named.join('; ')})` : ''} Put it right and send it again, or
+            delete it.
           </span>
         ) : null}
       </div>
+      {draft.refusal && !confirming ? (
+        <Button
+          size="small"
+          variant="outlined"
+          icon={<EditIcon />}
+          aria-label={`Put the waiting miss ${draft.title} right`}
+          onClick={() => setEditing(true)}
+        >
+          Put right
+        </Button>
+      ) : null}
+      {editing ? (
+        <Suspense fallback={null}>
+          <EditDraftDialog draft={draft} students={students} onClose={() => setEditing(false)} />
+        </Suspense>
+      ) : null}
       {confirming ? (
         <span className="wb-draft-confirm">
           <Button
@@ -54,8 +80,16 @@ function DraftRow({ draft }: { draft: Draft }) {
  * Misses kept on this phone that have not reached Workback yet: shown until each is sent, so
  * the parent can see nothing was lost. Nothing shows when none wait.
  */
-export function WaitingList({ householdId }: { householdId: number }) {
+export function WaitingList({
+  householdId,
+  students,
+}: {
+  householdId: number;
+  /** The household's children, to choose another when a refused miss is put right. */
+  students?: StudentNames;
+}) {
   const drafts = useDrafts(householdId);
+  const names = students ?? keptStudents(householdId) ?? [];
   const online = useOnline();
   if (drafts.length === 0) return null;
   const waiting = drafts.filter((d) => d.refusal === null).length;
@@ -74,7 +108,7 @@ export function WaitingList({ householdId }: { householdId: number }) {
         </p>
         <ul className="wb-drafts" aria-label="Misses waiting to send">
           {drafts.map((d) => (
-            <DraftRow key={d.key} draft={d} />
+            <DraftRow key={d.key} draft={d} students={names} />
           ))}
         </ul>
       </Callout>

@@ -2,6 +2,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 
 import { api, forgetCsrfToken } from '../../../lib/api-client';
 import { authKeys, type Me } from '../../../lib/auth';
+import { forgetKept } from '../../../lib/kept-me';
 
 export type DeletionSummary = {
   householdId: number;
@@ -25,6 +26,7 @@ export function useDeleteHousehold() {
       queryClient.removeQueries({ predicate: (q) => q.queryKey[0] !== authKeys.all[0] });
       if (summary.yourAccountClosed) {
         forgetCsrfToken();
+        forgetKept();
         queryClient.setQueryData<Me | null>(authKeys.me(), null);
         return;
       }

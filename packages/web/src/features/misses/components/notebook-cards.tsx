@@ -7,6 +7,7 @@ import {
   formatDay,
   ruleTitle,
   shownRule,
+  smallPhotoUrl,
   statusLabel,
   type MissSummary,
 } from '../types';
@@ -30,9 +31,12 @@ export function NotebookCards({
             {miss.thumbnailPhotoId ? (
               <img
                 className="wb-thumb"
-                src={`/api/photos/${miss.thumbnailPhotoId}/thumb`}
+                src={smallPhotoUrl(miss.thumbnailPhotoId)}
+                width={64}
+                height={64}
                 alt=""
                 loading="lazy"
+                decoding="async"
               />
             ) : (
               <span className="wb-thumb wb-thumb-none" aria-hidden="true" />

@@ -8,6 +8,7 @@ import {
   formatDay,
   ruleTitle,
   shownRule,
+  smallPhotoUrl,
   statusLabel,
   type MissSummary,
 } from '../types';
@@ -49,9 +50,12 @@ export function NotebookTable({
           miss?.thumbnailPhotoId ? (
             <img
               className="wb-thumb"
-              src={`/api/photos/${miss.thumbnailPhotoId}/thumb`}
+              src={smallPhotoUrl(miss.thumbnailPhotoId)}
+              width={44}
+              height={44}
               alt=""
               loading="lazy"
+              decoding="async"
             />
           ) : (
             <span className="wb-thumb wb-thumb-none" aria-hidden="true" />

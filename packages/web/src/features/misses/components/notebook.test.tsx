@@ -167,7 +167,7 @@ describe('Notebook', () => {
       '/misses/4',
     );
     expect(container.querySelector('img.wb-thumb')?.getAttribute('src')).toBe(
-      '/api/photos/9/thumb',
+      '/api/photos/9/small',
     );
     expect(container.querySelector('.bp6-table-container')).toBeNull();
     const first = within(cards).getAllByRole('listitem')[0] as HTMLElement;

@@ -1,6 +1,7 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 
 import { api } from '../../../lib/api-client';
+import { keepStudents } from '../../../lib/kept-me';
 import type { Student } from '../types';
 
 export const studentKeys = {
@@ -11,7 +12,12 @@ export const studentKeys = {
 
 export type StudentList = { items: Student[]; total: number };
 
-export const getStudents = () => api.get<StudentList>('/students');
+/** Each answer also keeps the children's ids and names on this phone, for logging offline. */
+export const getStudents = () =>
+  api.get<StudentList>('/students').then((list) => {
+    keepStudents(list.items);
+    return list;
+  });
 
 export const studentsQueryOptions = () =>
   queryOptions({ queryKey: studentKeys.lists(), queryFn: getStudents });
