@@ -6,6 +6,7 @@ import { AnswerKeysService } from '../answer-keys/answer-keys.service.js';
 import { sameAnswer } from '../answer-keys/same-answer.js';
 import type { MemberContext } from '../common/member-context.js';
 import { fieldsError } from '../common/pipes/validation.pipe.js';
+import { SittingMarksService } from '../sittings/sitting-marks.service.js';
 import { SittingsService } from '../sittings/sittings.service.js';
 import { StudentsService } from '../students/students.service.js';
 import { childSheetPdf, parentSheetPdf } from './check-up-sheets.js';
@@ -22,6 +23,7 @@ export class CheckUpsService {
     private readonly students: StudentsService,
     private readonly keys: AnswerKeysService,
     private readonly sittings: SittingsService,
+    private readonly marks: SittingMarksService,
   ) {}
 
   /** The check-ups a member may see: the household's, and for a tutor the granted students'. */
@@ -151,7 +153,7 @@ export class CheckUpsService {
       conditions: dto.conditions,
     });
     try {
-      const marked = await this.sittings.putMarks(member, sitting.id, {
+      const marked = await this.marks.putMarks(member, sitting.id, {
         marks: items.flatMap((item, i) => {
           const written = answers[i] ?? null;
           if (written === null) return [];

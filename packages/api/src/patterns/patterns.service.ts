@@ -7,7 +7,7 @@ import type { MemberContext } from '../common/member-context.js';
 import { fieldsError } from '../common/pipes/validation.pipe.js';
 import { MissesService } from '../misses/misses.service.js';
 import { ReviewPlansService } from '../review-plans/review-plans.service.js';
-import { SittingsService } from '../sittings/sittings.service.js';
+import { SittingSummariesService } from '../sittings/sitting-summaries.service.js';
 import { StudentsService } from '../students/students.service.js';
 import { User } from '../users/models/user.model.js';
 import type { CreatePatternNoteDto } from './dto/create-pattern-note.dto.js';
@@ -21,7 +21,7 @@ export class PatternsService {
     @InjectModel(PatternNote) private readonly noteModel: typeof PatternNote,
     private readonly students: StudentsService,
     private readonly misses: MissesService,
-    private readonly sittings: SittingsService,
+    private readonly sittings: SittingSummariesService,
     private readonly plans: ReviewPlansService,
     private readonly checkUps: CheckUpsService,
   ) {}

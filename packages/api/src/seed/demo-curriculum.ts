@@ -6,6 +6,7 @@ import type { KeyKind } from '../answer-keys/models/answer-key.model.js';
 import type { MemberContext } from '../common/member-context.js';
 import { CurriculumService } from '../curriculum/curriculum.service.js';
 import { MissesService } from '../misses/misses.service.js';
+import { SittingMarksService } from '../sittings/sitting-marks.service.js';
 import { SittingsService } from '../sittings/sittings.service.js';
 import { StudentsService } from '../students/students.service.js';
 
@@ -49,6 +50,7 @@ export class DemoCurriculumSeeder {
     private readonly curriculum: CurriculumService,
     private readonly keys: AnswerKeysService,
     private readonly sittings: SittingsService,
+    private readonly marks: SittingMarksService,
     private readonly misses: MissesService,
     private readonly students: StudentsService,
   ) {}
@@ -79,7 +81,7 @@ export class DemoCurriculumSeeder {
         conditions: s.conditions,
       });
       const wrong = new Map(s.wrong.map((w) => [w.item, w]));
-      const saved = await this.sittings.putMarks(owner, sitting.id, {
+      const saved = await this.marks.putMarks(owner, sitting.id, {
         marks: key.items.map((item) => ({
           keyItemId: item.id,
           correct: !wrong.has(item.number),

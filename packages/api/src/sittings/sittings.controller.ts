@@ -8,12 +8,18 @@ import type { MemberContext } from '../common/member-context.js';
 import { CreateSittingDto } from './dto/create-sitting.dto.js';
 import { ListSittingsQuery, SittingRangeQuery } from './dto/list-sittings.query.js';
 import { PutMarksDto } from './dto/put-marks.dto.js';
+import { SittingMarksService } from './sitting-marks.service.js';
+import { SittingSummariesService } from './sitting-summaries.service.js';
 import { SittingsService } from './sittings.service.js';
 
 @ApiTags('sittings')
 @Controller()
 export class SittingsController {
-  constructor(private readonly sittings: SittingsService) {}
+  constructor(
+    private readonly sittings: SittingsService,
+    private readonly marks: SittingMarksService,
+    private readonly summaries: SittingSummariesService,
+  ) {}
 
   @Get('sittings')
   findAll(@CurrentMember() member: MemberContext, @Query() query: ListSittingsQuery) {
@@ -38,7 +44,7 @@ export class SittingsController {
     @IdParam() id: number,
     @Body() dto: PutMarksDto,
   ) {
-    return this.sittings.putMarks(member, id, dto);
+    return this.marks.putMarks(member, id, dto);
   }
 
   @Get('students/:id/sittings/summary')
@@ -47,6 +53,6 @@ export class SittingsController {
     @IdParam() id: number,
     @Query() query: SittingRangeQuery,
   ) {
-    return this.sittings.summary(member, id, query);
+    return this.summaries.summary(member, id, query);
   }
 }

@@ -6,6 +6,8 @@ import { StudentsModule } from '../students/students.module.js';
 import { SittingMark } from './models/sitting-mark.model.js';
 import { Sitting } from './models/sitting.model.js';
 import { SittingsController } from './sittings.controller.js';
+import { SittingMarksService } from './sitting-marks.service.js';
+import { SittingSummariesService } from './sitting-summaries.service.js';
 import { SittingsService } from './sittings.service.js';
 
 @Module({
@@ -16,7 +18,7 @@ import { SittingsService } from './sittings.service.js';
     MissesModule,
   ],
   controllers: [SittingsController],
-  providers: [SittingsService],
-  exports: [SittingsService],
+  providers: [SittingsService, SittingMarksService, SittingSummariesService],
+  exports: [SittingsService, SittingMarksService, SittingSummariesService],
 })
 export class SittingsModule {}

@@ -1,0 +1,126 @@
+import { Injectable } from '@nestjs/common';
+import { InjectModel } from '@nestjs/sequelize';
+import { Op } from 'sequelize';
+import { AnswerKeysService } from '../answer-keys/answer-keys.service.js';
+import { AnswerKey } from '../answer-keys/models/answer-key.model.js';
+import type { KeyItem } from '../answer-keys/models/key-item.model.js';
+import type { MemberContext } from '../common/member-context.js';
+import { StudentsService } from '../students/students.service.js';
+import type { SittingRangeQuery } from './dto/list-sittings.query.js';
+import { SittingMark } from './models/sitting-mark.model.js';
+import { Sitting } from './models/sitting.model.js';
+import { scoreOf, sumTallies } from './sitting-json.js';
+import { SittingsService } from './sittings.service.js';
+import { TIME_OF_DAY_BANDS } from './time-of-day.js';
+
+const SUMMARY_CAUTION =
+  'A handful of sittings is not evidence: scores move with the material as much as with the hour. The best time of day is the family’s call.';
+
+/** What the sittings say over time: a student's scores by time of day and conditions, and the right items for patterns. */
+@Injectable()
+export class SittingSummariesService {
+  constructor(
+    @InjectModel(Sitting) private readonly sittingModel: typeof Sitting,
+    @InjectModel(SittingMark) private readonly markModel: typeof SittingMark,
+    private readonly sittings: SittingsService,
+    private readonly students: StudentsService,
+    private readonly keys: AnswerKeysService,
+  ) {}
+
+  async summary(member: MemberContext, studentId: number, query: SittingRangeQuery) {
+    const student = await this.students.findModel(member, studentId);
+    const where = this.sittings.listWhere(member, { ...query, studentId });
+    const sittings = await this.sittingModel.findAll({
+      where,
+      include: [AnswerKey],
+      order: [
+        ['startedAt', 'ASC'],
+        ['id', 'ASC'],
+      ],
+    });
+    const tallies = await this.sittings.tallies(sittings.map((s) => s.id));
+    const overTime = sittings.map((s) => {
+      const t = tallies.get(s.id) ?? { correct: 0, marked: 0 };
+      return {
+        sittingId: s.id,
+        startedAt: s.startedAt,
+        date: s.startedAt.slice(0, 10),
+        answerKeyId: s.answerKeyId,
+        title: s.answerKey?.title ?? '',
+        kind: s.answerKey?.kind ?? null,
+        timeOfDay: s.timeOfDay,
+        minutes: s.minutes,
+        conditions: { rested: s.rested, afterMeal: s.afterMeal },
+        ...scoreOf(t),
+      };
+    });
+    const marked = overTime.filter((s) => s.marked > 0);
+    const group = (pick: (s: (typeof marked)[number]) => boolean) => {
+      const chosen = marked.filter(pick);
+      return { sittings: chosen.length, ...scoreOf(sumTallies(chosen)) };
+    };
+    const yesNo = (value: (s: (typeof marked)[number]) => boolean | null) => ({
+      yes: group((s) => value(s) === true),
+      no: group((s) => value(s) === false),
+      notNoted: group((s) => value(s) === null),
+    });
+    return {
+      studentId: student.id,
+      from: query.from ?? null,
+      to: query.to ?? null,
+      sittings: marked.length,
+      overall: { sittings: marked.length, ...scoreOf(sumTallies(marked)) },
+      overTime,
+      byTimeOfDay: TIME_OF_DAY_BANDS.map((band) => ({
+        timeOfDay: band.name,
+        from: band.from,
+        to: band.to,
+        ...group((s) => s.timeOfDay === band.name),
+      })),
+      byCondition: {
+        rested: yesNo((s) => s.conditions.rested),
+        afterMeal: yesNo((s) => s.conditions.afterMeal),
+      },
+      caution: SUMMARY_CAUTION,
+    };
+  }
+
+  /**
+   * For the patterns module: the items a student got right in their sittings, with the
+   * problem and the answer (the child's when typed, else the key's), by day.
+   */
+  async rightItemsOf(
+    member: MemberContext,
+    studentId: number,
+    range: { from?: string; to?: string } = {},
+  ): Promise<{ occurredOn: string; problem: string; answer: string }[]> {
+    const sittings = await this.sittingModel.findAll({
+      where: this.sittings.listWhere(member, { ...range, studentId }),
+      attributes: ['id', 'answerKeyId', 'startedAt'],
+      order: [
+        ['startedAt', 'ASC'],
+        ['id', 'ASC'],
+      ],
+    });
+    if (sittings.length === 0) return [];
+    const marks = await this.markModel.findAll({
+      where: { sittingId: { [Op.in]: sittings.map((s) => s.id) }, correct: true },
+    });
+    const items = new Map<number, KeyItem>();
+    for (const keyId of new Set(sittings.map((s) => s.answerKeyId)))
+      for (const item of await this.keys.itemsOf(keyId)) items.set(item.id, item);
+    const day = new Map(sittings.map((s) => [s.id, s.startedAt.slice(0, 10)]));
+    return marks.flatMap((m) => {
+      const item = items.get(m.keyItemId);
+      return item
+        ? [
+            {
+              occurredOn: day.get(m.sittingId)!,
+              problem: item.prompt,
+              answer: m.answer ?? item.answer,
+            },
+          ]
+        : [];
+    });
+  }
+}
