@@ -280,7 +280,7 @@ export class MissesService {
     const and: WhereOptions<Miss>[] = [missScope(member), { studentId: filter.studentId }];
     if (filter.from) and.push({ occurredOn: { [Op.gte]: filter.from } });
     if (filter.to) and.push({ occurredOn: { [Op.lte]: filter.to } });
-    const rows = await this.missModel.findAll({
+    const rows = (await this.missModel.findAll({
       attributes: [
         'id',
         'occurredOn',
@@ -298,16 +298,29 @@ export class MissesService {
         ['occurredOn', 'ASC'],
         ['id', 'ASC'],
       ],
-    });
-    return rows.map((m) =>
-      toPatternMiss(
-        m,
+      // Plain rows, not model instances: read once for the maths, never saved.
+      raw: true,
+    })) as unknown as Record<string, unknown>[];
+    return rows.map((m) => {
+      const ruleIds = jsonOf<string[]>(m.ruleIds, []);
+      return toPatternMiss(
+        {
+          id: m.id as number,
+          occurredOn: m.occurredOn as string,
+          cause: m.cause as Cause,
+          skills: jsonOf<string[]>(m.skills, []),
+          problem: m.problem as string,
+          answer: m.answer as string,
+        },
         // A word problem the engine cannot read counts its first wrong line's rules.
-        m.notCheckedReason === null || m.lines !== null
-          ? { rules: m.ruleIds.map((id) => ({ id, ids: id.split('+') })), facts: m.facts }
+        m.notCheckedReason === null || jsonOf<string[] | null>(m.lines, null) !== null
+          ? {
+              rules: ruleIds.map((id) => ({ id, ids: id.split('+') })),
+              facts: jsonOf<Miss['facts']>(m.facts, []),
+            }
           : null,
-      ),
-    );
+      );
+    });
   }
 
   async remove(member: MemberContext, id: number): Promise<void> {
@@ -319,4 +332,9 @@ export class MissesService {
     });
     await this.photos.removeKeys(keys);
   }
+}
+
+/** A JSON text column of a raw row, read as the model's getter reads it (jsonColumn). */
+function jsonOf<T>(v: unknown, fallback: T): T {
+  return typeof v === 'string' ? (JSON.parse(v) as T) : fallback;
 }

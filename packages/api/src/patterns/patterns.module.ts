@@ -7,6 +7,7 @@ import { SittingsModule } from '../sittings/sittings.module.js';
 import { StudentsModule } from '../students/students.module.js';
 import { PatternNote } from './models/pattern-note.model.js';
 import { PatternsController } from './patterns.controller.js';
+import { PatternsMemo } from './patterns-memo.js';
 import { PatternsService } from './patterns.service.js';
 
 @Module({
@@ -19,7 +20,7 @@ import { PatternsService } from './patterns.service.js';
     CheckUpsModule,
   ],
   controllers: [PatternsController],
-  providers: [PatternsService],
+  providers: [PatternsService, PatternsMemo],
   exports: [PatternsService],
 })
 export class PatternsModule {}

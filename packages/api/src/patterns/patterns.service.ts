@@ -1,6 +1,5 @@
 import { Injectable, NotFoundException } from '@nestjs/common';
 import { InjectModel } from '@nestjs/sequelize';
-import { computePatterns } from '@workback/core';
 import { Op } from 'sequelize';
 import { CheckUpsService } from '../check-ups/check-ups.service.js';
 import type { MemberContext } from '../common/member-context.js';
@@ -14,6 +13,7 @@ import type { CreatePatternNoteDto } from './dto/create-pattern-note.dto.js';
 import type { PatternsQuery } from './dto/patterns.query.js';
 import { PatternNote } from './models/pattern-note.model.js';
 import { patternKeyProblem } from './pattern-key.js';
+import { PatternsMemo } from './patterns-memo.js';
 
 @Injectable()
 export class PatternsService {
@@ -24,6 +24,7 @@ export class PatternsService {
     private readonly sittings: SittingSummariesService,
     private readonly plans: ReviewPlansService,
     private readonly checkUps: CheckUpsService,
+    private readonly memo: PatternsMemo,
   ) {}
 
   /** One student's patterns over a day range, the maths done by `@workback/core`. */
@@ -39,7 +40,7 @@ export class PatternsService {
       this.notesOf(member, student.id),
       this.checkUps.latestOn(member, student.id),
     ]);
-    const patterns = computePatterns(misses, {
+    const patterns = this.memo.compute(misses, {
       rightItems,
       plans,
       asOf: today.toISOString().slice(0, 10),

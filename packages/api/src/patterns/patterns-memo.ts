@@ -1,0 +1,29 @@
+import { createHash } from 'node:crypto';
+import { Injectable } from '@nestjs/common';
+import { computePatterns, type Patterns } from '@workback/core';
+import { LRUCache } from 'lru-cache';
+
+type Options = Parameters<typeof computePatterns>[1];
+
+/**
+ * `computePatterns` remembered by the digest of its inputs. The maths is a pure function of
+ * the misses, the right items, the plans, the day and the range, and weighing findings against
+ * every right item is most of a patterns request; the rows are still read each time, so a new
+ * miss, mark or plan changes the digest and is counted at once. At most MAX_ENTRIES results.
+ */
+@Injectable()
+export class PatternsMemo {
+  static readonly MAX_ENTRIES = 500;
+  private readonly results = new LRUCache<string, Patterns>({ max: PatternsMemo.MAX_ENTRIES });
+
+  compute(misses: Parameters<typeof computePatterns>[0], options: Options): Patterns {
+    const key = createHash('sha256')
+      .update(JSON.stringify([misses, options]))
+      .digest('base64url');
+    const kept = this.results.get(key);
+    if (kept) return kept;
+    const patterns = computePatterns(misses, options);
+    this.results.set(key, patterns);
+    return patterns;
+  }
+}
