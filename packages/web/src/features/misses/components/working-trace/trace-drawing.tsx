@@ -1,4 +1,4 @@
-import type { WorkingTrace } from '@workback/core';
+import type { Problem, WorkingTrace } from '@workback/core';
 
 import { FractionComparisonDrawing, FractionSumDrawing } from './fractions';
 import {
@@ -9,7 +9,7 @@ import {
   layoutRounding,
   layoutSubtraction,
 } from './layouts';
-import { Paper, type PaperLayout } from './paper';
+import { Paper, rightAligned, type PaperCell, type PaperLayout } from './paper';
 
 type DrawingProps = {
   trace: WorkingTrace;
@@ -139,6 +139,67 @@ export function TraceDrawing({ trace, label, differsPlace, answer, showCheck }: 
       );
   }
 }
+
+type DecimalProblem = Extract<Problem, { kind: 'decimal' }>;
+type Decimal = DecimalProblem['left'];
+
+/** A row of squares for a decimal as written, its last digit in square `end`, the point after its ones digit. */
+function decimalRow(n: Decimal | string, width: number, end: number): (PaperCell | null)[] {
+  const [whole = '', decimals = ''] = typeof n === 'string' ? n.split('.') : [n.whole, n.decimals];
+  const cells = rightAligned(`${whole}${decimals}`, width, end);
+  const ones = end - decimals.length;
+  const cell = cells[ones];
+  if (decimals.length > 0 && cell) cells[ones] = { ...cell, text: <>{cell.text}.</> };
+  return cells;
+}
+
+/**
+ * `dec.right-aligned` as the child wrote it: the numbers lined up by their last digits, so the
+ * points stand in different columns, worked as whole numbers, and the child's answer under
+ * them. The columns whose points should have lined up are shaded.
+ */
+export function RightAlignedDrawing({
+  problem,
+  answer,
+  label,
+}: {
+  problem: DecimalProblem;
+  answer: string;
+  label: string;
+}) {
+  const figures = (n: Decimal) => n.whole.length + n.decimals.length;
+  const written = answer.replace(/^\$/, '');
+  const width =
+    Math.max(figures(problem.left), figures(problem.right), written.replace('.', '').length) + 1;
+  const end = width - 1;
+  const bottom = decimalRow(problem.right, width, end);
+  bottom[0] = { text: problem.op, quiet: true };
+  const points = [problem.left, problem.right]
+    .filter((n) => n.decimals.length > 0)
+    .map((n) => end - n.decimals.length);
+  const layout: PaperLayout = {
+    width,
+    rows: [
+      { cells: decimalRow(problem.left, width, end) },
+      { cells: bottom, ruleBelow: true },
+      { cells: decimalRow(written, width, end) },
+    ],
+    differsAt: points.length > 1 && points[0] !== points[1] ? Math.min(...points) : null,
+  };
+  return (
+    <>
+      <Paper layout={layout} label={label} />
+      <p className="wb-trace-aside">
+        Lined up by the last digits: the points of{' '}
+        <span className="wb-mono">{formatDecimal(problem.left)}</span> and{' '}
+        <span className="wb-mono">{formatDecimal(problem.right)}</span> stand in different columns,
+        so tenths are added to hundredths.
+      </p>
+    </>
+  );
+}
+
+const formatDecimal = (n: Decimal) => (n.decimals ? `${n.whole}.${n.decimals}` : n.whole);
 
 const DECIMAL_PLACES = ['tenths', 'hundredths', 'thousandths', 'ten-thousandths'];
 

@@ -242,6 +242,24 @@ describe('WorkingTrace for decimals, money and clock times (issue 16)', () => {
     expect(shadedColumn(usual()).length).toBe(1);
   });
 
+  it('draws dec.right-aligned as the child lined it up: last digits under each other, the points apart', () => {
+    // 4.5 + 2.25 → 2.70 is the issue's own example of dec.right-aligned (issue 16).
+    show('4.5 + 2.25', '2.70');
+    const child = screen.getByRole('table', { name: 'The child’s working, as this rule does it' });
+    const rows = paperRows(child).map((r) => r.map((c) => c.replace(/\s/g, '')));
+    expect(rows).toEqual([
+      ['', '', '4.', '5'],
+      ['+', '2.', '2', '5'],
+      ['', '2.', '7', '0'],
+    ]);
+    // The points stand in different columns: the leftmost of them is shaded.
+    expect(shadedColumn(child)).toEqual([1]);
+    expect(screen.getByText(/Lined up by the last digits/)).toBeVisible();
+    // The usual working still lines the points up.
+    const usualRows = paperRows(usual()).filter((r) => r.some((c) => /\d/.test(c)));
+    expect(usualRows.map((r) => r.join('').replace(/\s/g, ''))).toEqual(['4.50', '+2.25', '6.75']);
+  });
+
   it('writes the steps of a clock problem', () => {
     show('3:15 - 1:50', '1:65');
     expect(screen.getAllByText(/1 h taken as 60 min/).length).toBeGreaterThan(0);

@@ -2,7 +2,7 @@ import type { Diagnosis } from '@workback/core';
 
 import { ruleTitle } from '../../types';
 import { ChecksSection } from './checks';
-import { PAPER_KINDS, TraceDrawing } from './trace-drawing';
+import { PAPER_KINDS, RightAlignedDrawing, TraceDrawing } from './trace-drawing';
 import { WrittenSteps } from './written-steps';
 
 const OP_SIGN: Record<string, string> = { '+': '+', '-': '−', x: '×', '÷': '÷' };
@@ -47,9 +47,15 @@ export function WorkingTrace({ diagnosis }: { diagnosis: Diagnosis }) {
     );
   }
 
-  const childLabel = trace.child
-    ? 'The child’s working, as this rule does it'
-    : 'The child’s answer';
+  // dec.right-aligned has no working of its own: drawn from the problem, lined up as the child did.
+  const rightAligned =
+    !trace.child && best?.ids.includes('dec.right-aligned') && diagnosis.problem.kind === 'decimal'
+      ? diagnosis.problem
+      : null;
+  const childLabel =
+    trace.child || rightAligned
+      ? 'The child’s working, as this rule does it'
+      : 'The child’s answer';
   return (
     <section className="wb-trace" aria-label="Working trace">
       <p className="wb-trace-verdict">
@@ -61,6 +67,12 @@ export function WorkingTrace({ diagnosis }: { diagnosis: Diagnosis }) {
           <figcaption>{childLabel}</figcaption>
           {trace.child ? (
             <TraceDrawing trace={trace.child.working} label={childLabel} differsPlace={place} />
+          ) : rightAligned ? (
+            <RightAlignedDrawing
+              problem={rightAligned}
+              answer={diagnosis.answer}
+              label={childLabel}
+            />
           ) : PAPER_KINDS.has(trace.expected.kind) ? (
             <TraceDrawing
               trace={trace.expected}
