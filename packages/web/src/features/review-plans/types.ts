@@ -9,6 +9,7 @@ import type {
   PlanItemKind,
   PracticeBlock,
   Role,
+  WrittenStepsReport,
 } from '@workback/core';
 
 export type PlanProgress = { done: number; total: number };
@@ -61,6 +62,8 @@ export type PlanMiss = {
   ruleExplanation: string | null;
   working: { expected: string; child: string | null } | null;
   ruleName?: string | null;
+  /** The partial products or division lines the child wrote, checked step by step. */
+  writtenSteps?: WrittenStepsReport | null;
   /** A word problem's number sentences, each with its verdict (null when none were recorded). */
   lines?: PlanLine[] | null;
   firstWrongLine?: number | null;

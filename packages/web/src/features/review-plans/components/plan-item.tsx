@@ -70,6 +70,38 @@ function PlanLines({ miss }: { miss: PlanMiss }) {
   );
 }
 
+/** The partial products or division lines the child wrote, beside the usual ones. */
+function PlanWrittenSteps({ miss }: { miss: PlanMiss }) {
+  const written = miss.writtenSteps;
+  if (!written || written.steps.length === 0) return null;
+  const what = written.kind === 'partials' ? 'partial products' : 'division lines';
+  return (
+    <div className="wb-plan-lines">
+      <p className="wb-muted">The {what} the child wrote, beside the usual ones:</p>
+      <ol className="wb-plan-line-list" aria-label={`The ${what} the child wrote`}>
+        {written.steps.map((s, i) => {
+          const first = written.firstDiffers === i;
+          return (
+            <li
+              key={s.label}
+              className={first ? 'wb-plan-line wb-plan-line-first' : 'wb-plan-line'}
+            >
+              <span className="wb-plan-line-number">{i + 1}.</span>
+              <span>
+                {s.label}
+                {s.work ? ` (${s.work})` : ''}: wrote{' '}
+                <span className="wb-mono">{s.written || 'nothing'}</span> · usual{' '}
+                <span className="wb-mono">{s.expected || 'none'}</span> ·{' '}
+                {s.ok ? 'same' : first ? 'the first that differs' : 'differs'}
+              </span>
+            </li>
+          );
+        })}
+      </ol>
+    </div>
+  );
+}
+
 function ItemBody({ item, missById }: { item: PlanItem; missById: Map<number, PlanMiss> }) {
   switch (item.kind) {
     case 'lesson': {
@@ -116,6 +148,7 @@ function ItemBody({ item, missById }: { item: PlanItem; missById: Map<number, Pl
             <Link to={paths.app.miss.getHref(payload.missId)}>open the miss</Link>
           </span>
           {miss?.explanation ? <p className="wb-activity">“{miss.explanation}”</p> : null}
+          {miss ? <PlanWrittenSteps miss={miss} /> : null}
           {miss ? <PlanLines miss={miss} /> : null}
         </div>
       );

@@ -1,5 +1,6 @@
 import { screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
+import { diagnose } from '@workback/core';
 import { describe, expect, it } from 'vitest';
 
 import { CSRF, json, mockApi, ownerMe, students, tutorMe } from '../../../testing/mock-api';
@@ -253,5 +254,52 @@ describe('a word problem on a plan', () => {
     expect(
       screen.getByText('Where it went wrong: “Work it” (doing the arithmetic).'),
     ).toBeVisible();
+  });
+});
+
+describe('a plan’s re-work item with written partial products', () => {
+  it('draws the partials the child wrote beside the usual ones, the first that differs marked', async () => {
+    // Issue 11's example: 347 × 26 answered 8,922 with partials 2,082 and 6,840;
+    // 347 × 6 = 2,082 and 347 × 20 = 6,940 (worked by hand). The report is the engine's own.
+    const d = diagnose('347 x 26', '8922', { steps: { partials: ['2082', '6840'] } });
+    if (!d.ok || !d.writtenSteps) throw new Error('no written steps');
+    mockApi({
+      ...CSRF,
+      'GET /auth/me': json(200, ownerMe),
+      'GET /review-plans/5': json(200, {
+        ...plan,
+        misses: [
+          {
+            id: 41,
+            occurredOn: '2026-03-09',
+            problem: '347 x 26',
+            answer: '8922',
+            expected: '9022',
+            explanation: '',
+            cause: 'slip',
+            status: 'planned',
+            ruleIds: [],
+            firstWrongStep: null,
+            ruleExplanation: null,
+            working: null,
+            writtenSteps: d.writtenSteps,
+          },
+        ],
+      }),
+    });
+    renderApp('/review-plans/5');
+    const list = await screen.findByRole('list', {
+      name: 'The partial products the child wrote',
+    });
+    const items = within(list).getAllByRole('listitem');
+    expect(items).toHaveLength(2);
+    expect(items[0]).toHaveTextContent(
+      /partial product 1 \(347 × 6\): wrote 2082 · usual 2082 · same/,
+    );
+    expect(items[1]).toHaveTextContent(
+      /partial product 2 .*wrote 6840 · usual 6940 · the first that differs/,
+    );
+    expect(items[1]).toHaveClass('wb-plan-line-first');
+    expect(items[0]).not.toHaveClass('wb-plan-line-first');
   });
 });
