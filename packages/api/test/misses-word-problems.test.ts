@@ -1,3 +1,8 @@
+import { execFileSync } from 'node:child_process';
+import { mkdirSync, writeFileSync } from 'node:fs';
+import path from 'node:path';
+import { parse } from 'csv-parse/sync';
+import { extractText, getDocumentProxy } from 'unpdf';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { postMultipart, today } from './support/photos.js';
 import { type Client, DEMO, signedIn, startTestApp, type TestApp } from './support/test-app.js';
@@ -283,5 +288,105 @@ describe('a word problem’s number sentences on a miss', () => {
       const list = await owner.get(`/api/misses?studentId=${student}`).expect(200);
       expect(list.body.total).toBe(0);
     });
+  });
+});
+
+describe('a word problem on a review plan', () => {
+  it('shows, prints and exports each number sentence with its verdict and the stage', async () => {
+    const student = await freshStudent('Plan lines');
+    const made = await owner.post('/api/misses', word(student, { stage: 'process' })).expect(201);
+    const res = await owner.post('/api/review-plans', {
+      studentId: student,
+      scheduledFor: '2099-01-05',
+      missIds: [made.body.id],
+    });
+    expect(res.status, res.text).toBe(201);
+    const plan = res.body;
+    const miss = plan.misses[0];
+    expect(miss).toMatchObject({ stage: 'process', firstWrongLine: 2 });
+    // 4 × 15 = 60 and 60 − 18 = 42 by plain arithmetic; 58 + 7 = 65 goes on with line 2's 58.
+    expect(miss.lines).toEqual([
+      {
+        line: 1,
+        text: '4 x 15 = 60',
+        ok: true,
+        written: '60',
+        expected: String(4 * 15),
+        followsFrom: null,
+        verdict: 'Right',
+      },
+      {
+        line: 2,
+        text: '60 - 18 = 58',
+        ok: false,
+        written: '58',
+        expected: String(60 - 18),
+        followsFrom: null,
+        verdict: 'Differs: this comes to 42 · the first line that differs',
+      },
+      {
+        line: 3,
+        text: '58 + 7 = 65',
+        ok: true,
+        written: '65',
+        expected: String(58 + 7),
+        followsFrom: 2,
+        verdict: 'Right · follows from line 2',
+      },
+    ]);
+    // The unreadable problem stands on its first wrong line: that rule gets fresh practice.
+    expect(plan.practice.map((b: { ruleId: string }) => b.ruleId)).toContain(
+      'sub.smaller-from-larger',
+    );
+
+    const csv = await owner.get(`/api/review-plans/${plan.id}/export.csv`).expect(200);
+    const rows = parse(csv.text, { columns: true }) as Record<string, string>[];
+    expect(rows.find((r) => r.section === 're-work')?.line_check).toBe(
+      'went wrong at: doing the arithmetic',
+    );
+    expect(
+      rows
+        .filter((r) => r.section === 'sentence')
+        .map((r) => [r.problem, r.child_answer, r.answer, r.line_check]),
+    ).toEqual([
+      ['4 x 15 = 60', '60', '60', 'Right'],
+      ['60 - 18 = 58', '58', '42', 'Differs: this comes to 42 · the first line that differs'],
+      ['58 + 7 = 65', '65', '65', 'Right · follows from line 2'],
+    ]);
+
+    const pdf = (
+      await owner
+        .get(`/api/review-plans/${plan.id}/export.pdf`)
+        .buffer(true)
+        .parse((r, cb) => {
+          const chunks: Buffer[] = [];
+          r.on('data', (c: Buffer) => chunks.push(c));
+          r.on('end', () => cb(null, Buffer.concat(chunks)));
+        })
+        .expect(200)
+    ).body as Buffer;
+    const { text } = await extractText(await getDocumentProxy(new Uint8Array(pdf)), {
+      mergePages: true,
+    });
+    expect(text).toContain('The number sentences the child wrote');
+    expect(text).toContain('2. 60 − 18 = 58');
+    expect(text).toContain('Differs: this comes to 42 · the first line that differs');
+    expect(text).toContain('Right · follows from line 2');
+    expect(text).toContain('Where it went wrong: “Work it” (doing the arithmetic).');
+    // Kept for a person to look at (git-ignored).
+    const shots = path.resolve(import.meta.dirname, '../../../.screenshots');
+    mkdirSync(shots, { recursive: true });
+    writeFileSync(path.join(shots, 'plan-word-problem.pdf'), pdf);
+    execFileSync('pdftoppm', [
+      '-png',
+      '-r',
+      '70',
+      '-f',
+      '2',
+      '-l',
+      '2',
+      path.join(shots, 'plan-word-problem.pdf'),
+      path.join(shots, 'plan-word-problem'),
+    ]);
   });
 });

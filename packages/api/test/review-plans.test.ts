@@ -327,6 +327,7 @@ describe('exports', () => {
       'activity',
       'done',
       'miss_ids',
+      'line_check',
     ]);
     // Lessons carry their titles from the demo course (seeds/demo-curriculum.json).
     expect(rows.filter((r) => r.section === 'lessons').map((r) => r.item)).toEqual([

@@ -32,6 +32,7 @@ describe('renderReviewPlanCsv', () => {
       '',
       'no',
       '7',
+      '',
     ]);
   });
 

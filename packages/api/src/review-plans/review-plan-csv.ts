@@ -1,3 +1,4 @@
+import { INTERVIEW_STAGE_GUIDE } from '@workback/core';
 import { stringify } from 'csv-stringify/sync';
 import type { ReviewPlanJson } from './review-plans.service.js';
 
@@ -10,16 +11,21 @@ export const PLAN_CSV_COLUMNS = [
   'activity',
   'done',
   'miss_ids',
+  'line_check',
 ] as const;
 
-/** The plan as rows for a spreadsheet: one per lesson range, fact family, miss, and practice problem. */
+/**
+ * The plan as rows for a spreadsheet: one per lesson range, fact family, miss, and practice
+ * problem; a word problem's miss is followed by one `sentence` row per number sentence, its
+ * verdict in `line_check` (the miss's own row names the interview stage there).
+ */
 export function renderReviewPlanCsv(plan: ReviewPlanJson): string {
   const rows: string[][] = [];
   for (const item of plan.items) {
     const done = item.done ? 'yes' : 'no';
     const misses = item.missIds.join(' ');
     if (item.kind === 'lesson') {
-      rows.push(['lessons', item.title, '', '', '', '', done, misses]);
+      rows.push(['lessons', item.title, '', '', '', '', done, misses, '']);
     } else if (item.kind === 'fact-family') {
       const f = plan.factFamilies.find((x) => `fact:${x.family}` === item.key);
       rows.push([
@@ -31,11 +37,38 @@ export function renderReviewPlanCsv(plan: ReviewPlanJson): string {
         f?.activity.title ?? '',
         done,
         misses,
+        '',
       ]);
     } else if (item.kind === 'miss') {
       const m = plan.misses.find((x) => `miss:${x.id}` === item.key);
-      if (m)
-        rows.push(['re-work', item.title, m.problem, m.answer, m.expected ?? '', '', done, misses]);
+      if (m) {
+        const stage = m.stage
+          ? `went wrong at: ${INTERVIEW_STAGE_GUIDE[m.stage].stage.toLowerCase()}`
+          : '';
+        rows.push([
+          're-work',
+          item.title,
+          m.problem,
+          m.answer,
+          m.expected ?? '',
+          '',
+          done,
+          misses,
+          stage,
+        ]);
+        for (const l of m.lines ?? [])
+          rows.push([
+            'sentence',
+            `Line ${l.line} of ${m.problem}`,
+            l.text,
+            l.written,
+            l.expected ?? '',
+            '',
+            done,
+            misses,
+            l.verdict ?? 'not checked',
+          ]);
+      }
     } else {
       const block = plan.practice.find((x) => `practice:${x.ruleId}` === item.key);
       for (const p of block?.problems ?? [])
@@ -48,6 +81,7 @@ export function renderReviewPlanCsv(plan: ReviewPlanJson): string {
           '',
           done,
           misses,
+          '',
         ]);
     }
   }

@@ -1,4 +1,4 @@
-import { CAUSE_GUIDE } from '@workback/core';
+import { CAUSE_GUIDE, INTERVIEW_STAGE_GUIDE } from '@workback/core';
 import {
   checkbox,
   ensureRoom,
@@ -224,7 +224,7 @@ function drawMiss(
   const expected = m.trace?.expected ?? null;
   const child = m.trace?.child ?? null;
   const rows = Math.max(expected ? 6 : 1, child ? 6 : 1);
-  ensureRoom(doc, 70 + rows * CELL);
+  ensureRoom(doc, 70 + rows * CELL + (m.lines?.length ?? 0) * 14);
   tick(`${n}. ${printedProblem(m.problem)}`, item?.done ?? false, true);
   small(
     `${figureLabel(m)} · ${writtenDate(m.occurredOn)} · cause noted: ${CAUSE_GUIDE[m.cause].label.toLowerCase()}`,
@@ -290,6 +290,28 @@ function drawMiss(
         first ? INK : PENCIL,
       );
     });
+  }
+  if (m.lines) {
+    small('The number sentences the child wrote, each line’s arithmetic checked:');
+    for (const l of m.lines) {
+      const first = l.line === m.firstWrongLine;
+      doc
+        .font(first ? 'monoBold' : 'mono')
+        .fontSize(10)
+        .fillColor(first ? INK : PENCIL)
+        .text(`${l.line}. ${printedProblem(l.text)}`, MARGIN + 28, doc.y, {
+          width: width - 28,
+          continued: l.verdict !== null,
+        });
+      if (l.verdict !== null) doc.font('sans').fontSize(9.5).text(`   ${l.verdict}`);
+    }
+    doc.fillColor(INK);
+  }
+  if (m.stage) {
+    const s = INTERVIEW_STAGE_GUIDE[m.stage];
+    small(`Where it went wrong: “${s.prompt}” (${s.stage.toLowerCase()}).`, 16, INK);
+  } else if (m.lines) {
+    small('Whether the sentences answer the question is for you and the child to talk over.');
   }
   const why = m.firstWrongStep?.note ?? m.ruleExplanation;
   if (why) small(child && m.ruleName ? `${m.ruleName}. ${why}` : why, 16, INK);

@@ -5,6 +5,7 @@ import {
   chooseFocus,
   formatTrace,
   lessonTitle,
+  lineVerdict,
   ruleName,
   MissStatus,
   type FactFamilyDrill,
@@ -423,6 +424,7 @@ function toPlanMissJson(m: MissWithDiagnosis) {
     ruleExplanation: d?.rules[0]?.explanation ?? null,
     ruleName: d?.rules[0] ? ruleName(d.rules[0].id) : null,
     steps: m.steps,
+    ...planLines(m),
     writtenSteps: d?.writtenSteps ?? null,
     trace: d ? { expected: d.trace.expected, child: d.trace.child?.working ?? null } : null,
     working: d
@@ -431,6 +433,39 @@ function toPlanMissJson(m: MissWithDiagnosis) {
           child: d.trace.child ? formatTrace(d.trace.child.working) : null,
         }
       : null,
+  };
+}
+
+/**
+ * A word problem's number sentences as the plan shows, prints and exports them: each line with
+ * its verdict (`lineVerdict`), the first wrong line, and the interview stage. Lines saved
+ * without a check (the engine failed) are listed as written, without verdicts.
+ */
+function planLines(m: MissWithDiagnosis) {
+  const check = m.linesCheck?.ok ? m.linesCheck : null;
+  const lines = check
+    ? check.lines.map((l) => ({
+        line: l.line,
+        text: l.text,
+        ok: l.ok as boolean | null,
+        written: l.written,
+        expected: l.expected as string | null,
+        followsFrom: l.followsFrom,
+        verdict: lineVerdict(l, check.firstWrongLine) as string | null,
+      }))
+    : (m.lines ?? []).map((text, i) => ({
+        line: i + 1,
+        text,
+        ok: null,
+        written: '',
+        expected: null,
+        followsFrom: null,
+        verdict: null,
+      }));
+  return {
+    lines: lines.length > 0 ? lines : null,
+    firstWrongLine: check?.firstWrongLine ?? null,
+    stage: m.stage,
   };
 }
 
