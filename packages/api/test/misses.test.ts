@@ -193,6 +193,18 @@ describe('POST /api/misses', () => {
     );
     expect(res.status, res.text).toBe(201);
     expect(res.body.steps).toEqual({ partials: ['68', '34'] });
+    // The stored diagnosis draws them beside the usual ones and marks the first that differs:
+    // 34 × 2 = 68 and 34 × 10 = 340 (worked by hand; issue 11 §1).
+    expect(res.body.diagnosis.writtenSteps).toMatchObject({
+      kind: 'partials',
+      firstDiffers: 1,
+      steps: [
+        { written: '68', expected: String(34 * 2), ok: true },
+        { written: '34', expected: String(34 * 10), ok: false },
+      ],
+    });
+    const stored = await owner.get(`/api/misses/${res.body.id}`).expect(200);
+    expect(stored.body.diagnosis.writtenSteps).toEqual(res.body.diagnosis.writtenSteps);
   });
 
   describe('refuses bad input with nothing left behind', () => {
