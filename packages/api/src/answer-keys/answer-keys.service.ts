@@ -13,7 +13,7 @@ import { toCorrectionJson, toKeySummary } from './key-json.js';
 import { AnswerKey, type KeyKind } from './models/answer-key.model.js';
 import { KeyCorrection } from './models/key-correction.model.js';
 import { KeyItem } from './models/key-item.model.js';
-import type { AnswerChange, KeyUsage, RemarkedSitting } from './key-usage.js';
+import type { KeyUsage, RemarkedSitting } from './key-usage.js';
 
 @Injectable()
 export class AnswerKeysService {
@@ -269,13 +269,8 @@ export class AnswerKeysService {
   }
 
   /** Re-marks the sittings marked against changed answers (none while no sittings module is there). */
-  async remark(
-    member: MemberContext,
-    changes: readonly AnswerChange[],
-    reason: string,
-    transaction: Transaction,
-  ): Promise<RemarkedSitting[]> {
-    return this.usage ? this.usage.remark(member, changes, reason, transaction) : [];
+  async remark(...args: Parameters<KeyUsage['remark']>): Promise<RemarkedSitting[]> {
+    return this.usage ? this.usage.remark(...args) : [];
   }
 
   private async courseUsers(courseId: number): Promise<string[]> {

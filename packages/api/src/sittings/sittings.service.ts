@@ -15,8 +15,8 @@ import { Sitting } from './models/sitting.model.js';
 import { keyFlagged, tallyOf, toSittingSummary, type Tally } from './sitting-json.js';
 import { readLocalTime, timeOfDayOf } from './time-of-day.js';
 
-@Injectable()
 /** Sittings themselves: listed, read with their marks, started, discarded while unmarked. */
+@Injectable()
 export class SittingsService {
   constructor(
     @InjectModel(Sitting) private readonly sittingModel: typeof Sitting,
