@@ -93,7 +93,7 @@ export function toMissSummary(m: SummaryFields) {
   };
 }
 
-export function toMissJson(m: Miss, photos: PhotoJson[], diagnosis: Diagnosis | null) {
+export function toMissJson(m: SummaryFields, photos: PhotoJson[], diagnosis: Diagnosis | null) {
   return {
     ...toMissSummary(m),
     diagnosis,

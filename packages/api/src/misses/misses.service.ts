@@ -12,7 +12,13 @@ import type { CreateMissDto } from './dto/create-miss.dto.js';
 import type { UpdateMissDto } from './dto/update-miss.dto.js';
 import { dedupe, diagnosisColumns, wordProblemColumns } from './miss-columns.js';
 import { MissDiagnosesService } from './miss-diagnoses.service.js';
-import { toMissJson, toMissSummary } from './miss-json.js';
+import {
+  fromRawRow,
+  SUMMARY_ATTRIBUTES,
+  toMissJson,
+  toMissSummary,
+  type RawMissRow,
+} from './miss-json.js';
 import { missScope } from './miss-scope.js';
 import { Miss } from './models/miss.model.js';
 import { toPatternMiss } from './pattern-miss.js';
@@ -140,10 +146,20 @@ export class MissesService {
   }
 
   async findOne(member: MemberContext, id: number) {
-    const miss = await this.findModel(member, id);
+    // A plain row, not a model instance: opening a miss reads it, never saves it.
+    const row = (await this.missModel.findOne({
+      attributes: [...SUMMARY_ATTRIBUTES, 'linesCheck'],
+      where: { [Op.and]: [missScope(member), { id }] },
+      raw: true,
+    })) as unknown as (RawMissRow & { linesCheck: unknown }) | null;
+    if (!row) throw new NotFoundException(`No miss ${id} in this household`);
+    const miss = fromRawRow(row);
     const photos = (await this.photos.forMisses([miss.id])).get(miss.id) ?? [];
     const diagnosis = await this.diagnoses.diagnosisOf(miss.id);
-    return { ...toMissJson(miss, photos, diagnosis), linesCheck: miss.linesCheck };
+    return {
+      ...toMissJson(miss, photos, diagnosis),
+      linesCheck: jsonOf<Miss['linesCheck']>(row.linesCheck, null),
+    };
   }
 
   /** 404 both for what does not exist and for what is not this member's to see. */
