@@ -4,6 +4,8 @@ import { factText } from '../patterns/factText.js';
 import { patternKeysOf } from '../patterns/patternKeysOf.js';
 import { byDay } from '../patterns/seenTally.js';
 import type { BasicFact } from '../patterns/types.js';
+import { missKindOf } from '../parse/missKindOf.js';
+import type { PracticeForm } from '../practice/candidateProblem.js';
 import { practiceFor } from '../practice/practiceFor.js';
 import { ruleName } from '../patterns/ruleName.js';
 import { RULES, ruleInfo } from '../rules/catalog.js';
@@ -80,13 +82,23 @@ export function buildReviewPlan(
   for (const [ruleId, list] of [...byRule].sort(
     (a, b) => b[1].length - a[1].length || (order.get(a[0]) ?? 0) - (order.get(b[0]) ?? 0),
   )) {
-    const base = Math.min(Math.max(...list.map((m) => longestNumber(m.problem)), 2), 6);
+    // Practice at the child's level and in the form of their misses: a column rule seen on
+    // money is practised on money, its figures counted on both sides of the point.
+    const form = formOf(list);
+    const operation = ruleInfo(ruleId)?.operation;
+    const acrossPoint =
+      form !== 'whole' && (operation === 'addition' || operation === 'subtraction');
+    const base = Math.min(
+      Math.max(...list.map((m) => longestNumber(m.problem, acrossPoint)), 2),
+      6,
+    );
     let made: PracticeBlock | null = null;
     for (let digits = base; digits <= base + 2 && made === null; digits += 1) {
       const set = practiceFor(ruleId, {
         count: perRule,
         digits,
         seed: seedOf(`plan:${options.planId}:${ruleId}`),
+        ...(form === 'whole' ? {} : { form }),
       });
       if (!set.ok) continue;
       made = {
@@ -217,6 +229,16 @@ function drillsFor(misses: readonly PlanMiss[], planId: number): FactFamilyDrill
   return drills;
 }
 
-function longestNumber(problem: string): number {
-  return Math.max(0, ...(problem.replace(/,/g, '').match(/\d+/g) ?? []).map((d) => d.length));
+/** The longest number's figures; with `acrossPoint`, 12.50 counts 4 (else 2 and 2). */
+function longestNumber(problem: string, acrossPoint = false): number {
+  const numbers = problem.replace(/,/g, '').match(acrossPoint ? /\d+(?:\.\d+)?/g : /\d+/g) ?? [];
+  return Math.max(0, ...numbers.map((d) => d.replace('.', '').length));
+}
+
+/** Money when every miss of the rule is money, decimals when they are decimals or money. */
+function formOf(misses: readonly PlanMiss[]): PracticeForm {
+  const kinds = misses.map((m) => missKindOf(m.problem));
+  if (kinds.every((k) => k === 'money')) return 'money';
+  if (kinds.every((k) => k === 'money' || k === 'decimal')) return 'decimal';
+  return 'whole';
 }

@@ -269,3 +269,42 @@ describe('buildReviewPlan', () => {
     expect(empty.lessons.text).toBe('');
   });
 });
+
+describe('practice for decimals, money and clock times (issue 16)', () => {
+  it('practises a rule seen on money on money, at the child’s level', () => {
+    // $12.50 − $3.75 → 19.85 is the issue's own example of sub.borrow-no-decrement; the second
+    // miss is invented in the same form.
+    const plan = buildReviewPlan(
+      [
+        missOf('2026-03-02', '$12.50 - $3.75', '19.85', { id: 1 }),
+        missOf('2026-03-03', '$24.30 - $5.60', '29.70', { id: 2 }),
+      ],
+      { planId: 9 },
+    );
+    const block = plan.practice.find((b) => b.ruleId === 'sub.borrow-no-decrement');
+    if (!block) throw new Error('no practice for sub.borrow-no-decrement');
+    expect(block.digits).toBe(4);
+    for (const p of block.problems)
+      expect(p.problem).toMatch(/^\$\d{1,2}\.\d{2} − \$\d{1,2}\.\d{2}$/);
+  });
+
+  it('keeps decimal and clock rules at the level of the child’s numbers', () => {
+    // 4.5 + 2.25 → 2.70 and 3:15 − 1:50 → 1:65 are the issue's examples of dec.right-aligned
+    // and time.hundred-minutes.
+    const plan = buildReviewPlan(
+      [
+        missOf('2026-03-02', '4.5 + 2.25', '2.70', { id: 1 }),
+        missOf('2026-03-03', '3:15 - 1:50', '1:65', { id: 2 }),
+      ],
+      { planId: 4 },
+    );
+    const dec = plan.practice.find((b) => b.ruleId === 'dec.right-aligned');
+    const time = plan.practice.find((b) => b.ruleId === 'time.hundred-minutes');
+    expect(dec?.title).toBe(ruleName('dec.right-aligned'));
+    for (const p of dec?.problems ?? [])
+      expect(p.problem).toMatch(/^\d{1,2}\.\d+ [+−] \d{1,2}\.\d+$/);
+    expect(time?.problems.length).toBeGreaterThan(0);
+    for (const p of time?.problems ?? [])
+      expect(p.problem).toMatch(/^\d{1,2}:\d{2} − \d{1,2}:\d{2}$/);
+  });
+});

@@ -14,11 +14,47 @@ function wholeOf(random: Random, digits: number, zeroBias = 0.25): string {
 }
 
 /**
+ * How practice numbers are written: whole numbers, decimals, or money (`$` and two places).
+ * The column rules (`add.*`, `sub.*`) keep their ids on lined-up points, so their practice can
+ * be written in the form of the child's own miss.
+ */
+export type PracticeForm = 'whole' | 'decimal' | 'money';
+
+/** `'7050'` with 2 places → `'70.50'`; `'5'` → `'0.05'`. */
+function withPoint(digits: string, places: number): string {
+  const padded = digits.padStart(places + 1, '0');
+  return `${padded.slice(0, -places)}.${padded.slice(-places)}`;
+}
+
+/**
  * A fresh problem, as text, of the kind on which the rule's method shows: numbers with
  * `digits` digits, zeros where the rule needs them. The same random sequence gives the same problem.
- * `candidateProblem(ruleInfo('round.half-down'), random, 4)` → `'round 7350 to the nearest hundred'`.
+ * With `form: 'money'` (or `'decimal'`) a column rule's problem is written with the point (and `$`),
+ * `digits` counting the figures on both sides of the point.
+ * `candidateProblem(ruleInfo('round.half-down'), random, 4)` → `'round 7350 to the nearest hundred'`;
+ * `candidateProblem(ruleInfo('sub.borrow-no-decrement'), random, 4, { form: 'money' })` → `'$70.50 - $3.86'`.
  */
-export function candidateProblem(info: RuleInfo, random: Random, digits: number): string {
+export function candidateProblem(
+  info: RuleInfo,
+  random: Random,
+  digits: number,
+  options: { readonly form?: PracticeForm } = {},
+): string {
+  const form = options.form ?? 'whole';
+  const columns =
+    (info.operation === 'addition' || info.operation === 'subtraction') &&
+    !info.id.endsWith('.left-aligned');
+  if (form !== 'whole' && columns) {
+    const places = form === 'money' ? 2 : 1 + Math.floor(random() * 2);
+    const whole = candidateProblem(info, random, Math.max(digits, places + 1));
+    const sign = form === 'money' ? '$' : '';
+    return whole.replace(/\d+/g, (n) => `${sign}${withPoint(n, places)}`);
+  }
+  if (form === 'money' && info.id === 'dec.point-dropped')
+    return candidateProblem(info, random, digits).replace(
+      /(\d+)\.(\d+)/g,
+      (_, whole: string, cents: string) => `$${whole}.${cents.padEnd(2, '0')}`,
+    );
   const d = Math.max(1, digits);
   switch (info.operation) {
     case 'addition': {

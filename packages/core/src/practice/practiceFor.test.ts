@@ -1,3 +1,4 @@
+import { Decimal } from 'decimal.js';
 import { describe, expect, it } from 'vitest';
 import { diagnose } from '../diagnose/diagnose.js';
 import { RULES } from '../rules/catalog.js';
@@ -45,5 +46,43 @@ describe('practiceFor', () => {
       ok: false,
       error: { message: '“sub.nonsense” is not a rule in the catalog.' },
     });
+  });
+});
+
+describe('practiceFor in the form of the child’s miss (issue 16)', () => {
+  it.each([
+    'sub.borrow-no-decrement',
+    'sub.borrow-across-zero',
+    'add.no-carry',
+    'add.carry-written',
+  ])(
+    '%s: money practice is written with $ and two places, its answers checked by decimal.js',
+    (id) => {
+      const set = practiceFor(id, { count: 4, digits: 4, seed: 5, form: 'money' });
+      if (!set.ok) throw new Error(set.error.message);
+      expect(set.problems).toHaveLength(4);
+      for (const p of set.problems) {
+        const m = /^\$(\d+\.\d{2}) ([+−]) \$(\d+\.\d{2})$/.exec(p.problem);
+        if (!m) throw new Error(`not money: ${p.problem}`);
+        const [, a, op, b] = m as unknown as [string, string, string, string];
+        // The answer against decimal.js (a reference library the project did not write).
+        const right = op === '+' ? new Decimal(a).plus(b) : new Decimal(a).minus(b);
+        expect(new Decimal(p.answer).equals(right)).toBe(true);
+        // Four figures across the point: the child's $12.50 level.
+        expect(Math.max(a.length, b.length) - 1).toBeLessThanOrEqual(4);
+        const wrong = diagnose(p.problem, p.ruleAnswer as string);
+        if (!wrong.ok) throw new Error(p.problem);
+        expect(wrong.rules.map((r) => r.id)).toContain(id);
+      }
+    },
+  );
+
+  it('writes decimal practice with a point and money practice for a dropped point with $', () => {
+    const decimal = practiceFor('add.no-carry', { count: 3, digits: 3, seed: 2, form: 'decimal' });
+    if (!decimal.ok) throw new Error(decimal.error.message);
+    for (const p of decimal.problems) expect(p.problem).toMatch(/^\d+\.\d+ \+ \d+\.\d+$/);
+    const money = practiceFor('dec.point-dropped', { count: 3, digits: 2, seed: 2, form: 'money' });
+    if (!money.ok) throw new Error(money.error.message);
+    for (const p of money.problems) expect(p.problem).toMatch(/^\$\d+\.\d{2} [+−] \$\d+\.\d{2}$/);
   });
 });

@@ -2,7 +2,7 @@ import { diagnose } from '../diagnose/diagnose.js';
 import { ruleInfo } from '../rules/catalog.js';
 import { applyRule } from '../rules/applyRule.js';
 import { parseProblem } from '../parse/parseProblem.js';
-import { candidateProblem } from './candidateProblem.js';
+import { candidateProblem, type PracticeForm } from './candidateProblem.js';
 import { seededRandom } from './seededRandom.js';
 
 /** One practice problem: the problem, its answer, and what the rule would write. */
@@ -25,7 +25,13 @@ export type PracticeSet =
  */
 export function practiceFor(
   ruleId: string,
-  options: { readonly count?: number; readonly digits?: number; readonly seed?: number } = {},
+  options: {
+    readonly count?: number;
+    readonly digits?: number;
+    readonly seed?: number;
+    /** Write a column rule's problems as decimals or money, as the child's miss was. */
+    readonly form?: PracticeForm;
+  } = {},
 ): PracticeSet {
   const info = ruleInfo(ruleId);
   if (info === undefined)
@@ -36,7 +42,7 @@ export function practiceFor(
   const problems: PracticeProblem[] = [];
   const seen = new Set<string>();
   for (let attempt = 0; attempt < 4000 && problems.length < count; attempt += 1) {
-    const text = candidateProblem(info, random, digits);
+    const text = candidateProblem(info, random, digits, { form: options.form });
     const parsed = parseProblem(text);
     if (!parsed.ok || seen.has(parsed.problem.text)) continue;
     const problem = parsed.problem;
