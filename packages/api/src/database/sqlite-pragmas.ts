@@ -1,4 +1,5 @@
 import type { Sequelize } from 'sequelize-typescript';
+import type { TableInfoCache } from './sqlite-table-info-cache.js';
 
 /**
  * Pragmas every connection needs. Sequelize's sqlite dialect opens a fresh
@@ -19,6 +20,7 @@ export const CONNECTION_PRAGMAS = [
 interface RawConnection {
   exec(sql: string, callback: (err: Error | null) => void): void;
   serialize(): void;
+  all(sql: string, ...rest: unknown[]): unknown;
 }
 
 const prepared = new WeakSet<object>();
@@ -40,8 +42,11 @@ export async function applyPragmas(connection: RawConnection): Promise<void> {
   prepared.add(connection);
 }
 
-/** Wraps the dialect's getConnection so each new connection is prepared before use. */
-export function preparePragmasOnConnect(sequelize: Sequelize): void {
+/**
+ * Wraps the dialect's getConnection so each new connection is prepared before use, and its
+ * column-type lookups go through `tableInfo`.
+ */
+export function preparePragmasOnConnect(sequelize: Sequelize, tableInfo: TableInfoCache): void {
   const manager = sequelize.connectionManager as unknown as {
     getConnection(options?: object): Promise<RawConnection>;
   };
@@ -49,6 +54,7 @@ export function preparePragmasOnConnect(sequelize: Sequelize): void {
   manager.getConnection = async (options?: object) => {
     const connection = await original(options);
     await applyPragmas(connection);
+    tableInfo.wrap(connection);
     return connection;
   };
 }
