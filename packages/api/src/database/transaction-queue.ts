@@ -18,6 +18,12 @@ export function queueTransactions(sequelize: Sequelize): void {
   ) => Promise<T>;
   const inside = new AsyncLocalStorage<true>();
   let last: Promise<unknown> = Promise.resolve();
+  // While a store is enabled, Node 20 runs an async hook on every promise in the process, reads
+  // included. Transactions are few; the store is enabled only while one is queued or running.
+  let queued = 0;
+  const settled = () => {
+    if (--queued === 0) inside.disable();
+  };
 
   function transaction<T>(optionsOrWork: object | Work<T>, maybeWork?: Work<T>): Promise<T> {
     const [options, work] =
@@ -27,8 +33,9 @@ export function queueTransactions(sequelize: Sequelize): void {
     if (inside.getStore()) {
       throw new Error('A transaction was opened inside another: pass the outer one instead');
     }
+    queued++;
     const run = last.then(() => begin<T>(options, (t) => inside.run(true, () => work(t))));
-    last = run.catch(() => undefined);
+    last = run.then(settled, settled);
     return run;
   }
   sequelize.transaction = transaction as Sequelize['transaction'];
