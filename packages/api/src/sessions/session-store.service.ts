@@ -9,6 +9,7 @@ import pg from 'pg';
 import sqlite3 from 'sqlite3';
 import type { AppConfig } from '../config/app.config.js';
 import { CONNECTION_PRAGMAS } from '../database/sqlite-pragmas.js';
+import { SessionReadCache } from './session-read-cache.js';
 
 const SQLiteStore = connectSqlite3(session);
 const PgStore = connectPgSimple(session);
@@ -41,6 +42,7 @@ export class SessionStoreService implements OnApplicationShutdown {
   private readonly sqlite: sqlite3.Database | undefined;
   private readonly pool: pg.Pool | undefined;
   private readonly logger = new Logger('Sessions');
+  private readonly reads: SessionReadCache | undefined;
   readonly store: session.Store;
 
   constructor(config: ConfigService) {
@@ -71,7 +73,10 @@ export class SessionStoreService implements OnApplicationShutdown {
         'PRAGMA synchronous = NORMAL',
       ].join(';\n'),
     );
-    this.store = throttleTouches(new SQLiteStore({ db: this.sqlite }), touchEvery);
+    // This process alone uses the file, so what it last read or wrote is kept in memory too.
+    const store = new SQLiteStore({ db: this.sqlite });
+    this.reads = new SessionReadCache(store);
+    this.store = throttleTouches(store, touchEvery);
   }
 
   /** The SQLite sessions file's connection (tests read it); there is none on PostgreSQL. */
@@ -111,7 +116,10 @@ export class SessionStoreService implements OnApplicationShutdown {
       this.db.run(
         `DELETE FROM sessions WHERE json_extract(sess, '$.passport.user') IN (${marks}) AND sid != ?`,
         [...userIds, exceptSid],
-        (err) => (err ? reject(err) : resolve()),
+        (err) => {
+          this.reads?.forgetAll();
+          return err ? reject(err) : resolve();
+        },
       ),
     );
   }
