@@ -390,3 +390,55 @@ describe('a word problem on a review plan', () => {
     ]);
   });
 });
+
+describe('decimals, money and clock times in patterns and practice', () => {
+  it('makes difficulty cards with readable names, and practice in the form of the misses', async () => {
+    const student = await freshStudent('Measures');
+    const post = (occurredOn: string, problem: string, answer: string) =>
+      owner.post('/api/misses', { studentId: student, occurredOn, problem, answer }).expect(201);
+    // The issue's own examples (issue 16), each with a second invented problem of the same kind:
+    // 4.5 + 2.25 → 2.70 (dec.right-aligned), 3:15 − 1:50 → 1:65 (time.hundred-minutes).
+    await post('2026-11-02', '4.5 + 2.25', '2.70');
+    await post('2026-11-03', '6.5 + 1.25', '1.90');
+    await post('2026-11-04', '3:15 - 1:50', '1:65');
+    await post('2026-11-05', '5:20 - 2:45', '2:75');
+    const p = (await owner.get(`/api/patterns?studentId=${student}`).expect(200)).body;
+    const cards = p.difficulties as { title: string; ruleIds: string[]; status: string }[];
+    const card = (id: string) => cards.find((c) => c.ruleIds.includes(id));
+    expect(card('dec.right-aligned')).toMatchObject({
+      title: 'Last digits lined up, not the points',
+      status: 'finding',
+    });
+    expect(card('time.hundred-minutes')).toMatchObject({
+      title: 'An hour taken as 100 minutes',
+      status: 'finding',
+    });
+    for (const c of cards) expect(c.title).not.toMatch(/^[a-z]+\.[a-z-]+$/);
+
+    // Money misses (12.50 − 3.75 → 19.85 is the issue's sub.borrow-no-decrement): money practice.
+    const moneyStudent = await freshStudent('Money');
+    const ids: number[] = [];
+    for (const [problem, answer] of [
+      ['$12.50 - $3.75', '19.85'],
+      ['$24.30 - $5.60', '29.70'],
+    ]) {
+      const res = await owner
+        .post('/api/misses', { studentId: moneyStudent, occurredOn: '2026-11-06', problem, answer })
+        .expect(201);
+      ids.push(res.body.id as number);
+    }
+    const plan = await owner
+      .post('/api/review-plans', {
+        studentId: moneyStudent,
+        scheduledFor: '2099-01-05',
+        missIds: ids,
+      })
+      .expect(201);
+    const block = plan.body.practice.find(
+      (b: { ruleId: string }) => b.ruleId === 'sub.borrow-no-decrement',
+    );
+    expect(block.title).toBe('Ten added, nothing taken');
+    for (const q of block.problems as { problem: string }[])
+      expect(q.problem).toMatch(/^\$\d{1,2}\.\d{2} − \$\d{1,2}\.\d{2}$/);
+  });
+});
