@@ -30,6 +30,7 @@ import {
 import { publicOrigin } from '../mail/public-url.js';
 import { AcceptInvitationDto } from './dto/accept-invitation.dto.js';
 import { CreateInvitationDto } from './dto/create-invitation.dto.js';
+import { InvitationAcceptanceService } from './invitation-acceptance.service.js';
 import { InvitationsService } from './invitations.service.js';
 
 @ApiTags('invitations')
@@ -39,6 +40,7 @@ export class InvitationsController {
 
   constructor(
     private readonly invitations: InvitationsService,
+    private readonly acceptance: InvitationAcceptanceService,
     private readonly auth: AuthService,
     private readonly verifications: EmailVerificationsService,
     config: ConfigService,
@@ -77,7 +79,7 @@ export class InvitationsController {
   @Get(':token')
   @ApiOperation({ summary: 'What an invitation link is for, before accepting it' })
   preview(@Param('token') token: string) {
-    return this.invitations.preview(token);
+    return this.acceptance.preview(token);
   }
 
   @Public()
@@ -94,7 +96,7 @@ export class InvitationsController {
     @Req() req: Request,
   ) {
     const current = req.isAuthenticated() ? req.user : undefined;
-    const result = await this.invitations.accept(token, dto, current);
+    const result = await this.acceptance.accept(token, dto, current);
     const user = current ?? (await this.auth.findSessionUser(result.userId))!;
     if (result.unverified) {
       await this.verifications.sendQuietly(result.unverified, publicOrigin(this.publicUrl, req));

@@ -6,6 +6,7 @@ import { HouseholdsModule } from '../households/households.module.js';
 import { MailModule } from '../mail/mail.module.js';
 import { StudentsModule } from '../students/students.module.js';
 import { UsersModule } from '../users/users.module.js';
+import { InvitationAcceptanceService } from './invitation-acceptance.service.js';
 import { InvitationsController } from './invitations.controller.js';
 import { InvitationsService } from './invitations.service.js';
 import { Invitation } from './models/invitation.model.js';
@@ -21,7 +22,7 @@ import { Invitation } from './models/invitation.model.js';
     LimitsModule,
   ],
   controllers: [InvitationsController],
-  providers: [InvitationsService],
-  exports: [InvitationsService],
+  providers: [InvitationsService, InvitationAcceptanceService],
+  exports: [InvitationsService, InvitationAcceptanceService],
 })
 export class InvitationsModule {}
