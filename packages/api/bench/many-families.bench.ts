@@ -354,6 +354,8 @@ function row(database: string, { rate, result, byKind }: RateResult) {
     'p50 ms': result.latency.p50,
     'p99 ms': result.latency.p99,
     'errors + non-2xx': result.errors + result.timeouts + result.non2xx,
+    // Of those, answers that did not come within autocannon's 10 s (an overloaded machine).
+    timeouts: result.timeouts,
     ...Object.fromEntries(
       [...byKind].map(([k, s]) => [
         `${k} p99`,
