@@ -10,6 +10,7 @@ import type { MemberContext } from '../common/member-context.js';
 import type { AppConfig } from '../config/app.config.js';
 import { DeleteHouseholdDto } from './dto/delete-household.dto.js';
 import { HouseholdDataService } from './household-data.service.js';
+import { HouseholdDeletionService } from './household-deletion.service.js';
 
 /** The owner's export of everything, and deletion of everything. */
 @ApiTags('households')
@@ -20,6 +21,7 @@ export class HouseholdDataController {
 
   constructor(
     private readonly data: HouseholdDataService,
+    private readonly deletion: HouseholdDeletionService,
     config: ConfigService,
   ) {
     this.cookieName = config.getOrThrow<AppConfig>('app').session.cookieName;
@@ -45,7 +47,7 @@ export class HouseholdDataController {
     @Req() req: Request,
     @Res({ passthrough: true }) res: Response,
   ) {
-    const summary = await this.data.deleteHousehold(member, dto.confirm);
+    const summary = await this.deletion.deleteHousehold(member, dto.confirm);
     req.session.householdId = undefined;
     if (summary.yourAccountClosed) {
       await logOut(req);

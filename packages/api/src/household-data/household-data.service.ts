@@ -1,5 +1,5 @@
 import { existsSync } from 'node:fs';
-import { readdir, rm, stat } from 'node:fs/promises';
+import { readdir, stat } from 'node:fs/promises';
 import path from 'node:path';
 import { Inject, Injectable, Logger } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
@@ -8,11 +8,8 @@ import { QueryTypes, type Transaction } from 'sequelize';
 import type { Sequelize } from 'sequelize-typescript';
 import yazl from 'yazl';
 import type { MemberContext } from '../common/member-context.js';
-import { fieldsError } from '../common/pipes/validation.pipe.js';
 import type { AppConfig } from '../config/app.config.js';
-import { MemberCache } from '../households/member-cache.js';
 import { HouseholdsService } from '../households/households.service.js';
-import { SessionStoreService } from '../sessions/session-store.service.js';
 import { LocalPhotoStorage } from '../storage/local-photo-storage.js';
 import {
   isPhotoKey,
@@ -21,7 +18,6 @@ import {
   type PhotoStorage,
 } from '../storage/photo-storage.js';
 import {
-  deletionOrder,
   type HouseholdTable,
   householdTables,
   quoteIdentifier as q,
@@ -44,32 +40,20 @@ export interface HouseholdSnapshot {
   objects: Map<string, string>;
 }
 
-export interface DeletionSummary {
-  householdId: number;
-  rows: Record<string, number>;
-  files: number;
-  accountsClosed: number;
-  /** Whether the account that asked was closed too (it had no other household). */
-  yourAccountClosed: boolean;
-}
-
+/** A household's data read out whole: the snapshot of its rows and files, and the export zip. */
 @Injectable()
 export class HouseholdDataService {
   private readonly logger = new Logger(HouseholdDataService.name);
   private readonly photosDir: string;
-  private readonly adminEmails: readonly string[];
 
   constructor(
     @InjectConnection() private readonly sequelize: Sequelize,
     private readonly households: HouseholdsService,
-    private readonly memberCache: MemberCache,
-    private readonly sessions: SessionStoreService,
     @Inject(PHOTO_STORAGE) private readonly storage: PhotoStorage,
     config: ConfigService,
   ) {
     const app = config.getOrThrow<AppConfig>('app');
     this.photosDir = path.resolve(app.photosDir);
-    this.adminEmails = app.adminEmails;
   }
 
   /** Every household row (secrets left out), the members' accounts, and the household's files. */
@@ -135,87 +119,6 @@ export class HouseholdDataService {
     return zip;
   }
 
-  /**
-   * Deletes the household after a typed confirmation: all its rows in one
-   * transaction (children first), then its files; accounts left with no
-   * household are closed and their sessions ended.
-   */
-  async deleteHousehold(member: MemberContext, confirm: string): Promise<DeletionSummary> {
-    const household = await this.households.findCurrent(member);
-    if (confirm.trim() !== household.name.trim()) {
-      throw fieldsError({
-        confirm: `type the household’s name exactly, “${household.name}”, to confirm`,
-      });
-    }
-    const snap = await this.snapshot(member);
-    const rows: Record<string, number> = {};
-    const closed = await this.sequelize.transaction(async (transaction) => {
-      const memberIds = (
-        await this.select<{ user_id: number }>(
-          'SELECT user_id FROM memberships WHERE household_id = ?',
-          member.householdId,
-          transaction,
-        )
-      ).map((r) => r.user_id);
-      for (const table of deletionOrder(await this.householdTables(transaction))) {
-        rows[table.name] = await this.sequelize.query(
-          `DELETE FROM ${q(table.name)} WHERE ${table.where}`,
-          { replacements: [member.householdId], type: QueryTypes.BULKDELETE, transaction },
-        );
-      }
-      const orphans = memberIds.length
-        ? await this.sequelize.query<{ id: number; email: string }>(
-            `SELECT id, email FROM users WHERE id IN (${memberIds.map(() => '?').join(', ')})
-             AND id NOT IN (SELECT user_id FROM memberships)`,
-            { replacements: memberIds, type: QueryTypes.SELECT, transaction },
-          )
-        : [];
-      const closing = orphans.filter((u) => !this.adminEmails.includes(u.email)).map((u) => u.id);
-      if (closing.length) {
-        await this.sequelize.query(
-          `DELETE FROM users WHERE id IN (${closing.map(() => '?').join(', ')})`,
-          { replacements: closing, transaction },
-        );
-      }
-      return closing;
-    });
-    // The rows went in raw SQL, past the models' hooks: forget every cached membership.
-    this.memberCache.clear();
-    await this.sessions.destroyForUsers(closed);
-    let files = 0;
-    for (const file of snap.files.keys()) {
-      try {
-        await rm(file, { force: true });
-        files++;
-      } catch (err) {
-        this.logger.error(
-          `A deleted household's file could not be removed (${(err as Error).name})`,
-        );
-      }
-    }
-    for (const key of snap.objects.keys()) {
-      try {
-        await this.storage.remove(key);
-        files++;
-      } catch (err) {
-        this.logger.error(
-          `A deleted household's photo could not be removed (${(err as Error).name})`,
-        );
-      }
-    }
-    await rm(path.join(this.photosDir, String(member.householdId)), {
-      recursive: true,
-      force: true,
-    });
-    return {
-      householdId: member.householdId,
-      rows,
-      files,
-      accountsClosed: closed.length,
-      yourAccountClosed: closed.includes(member.userId),
-    };
-  }
-
   /** SQLite keeps insertion order in rowid; PostgreSQL has none, so rows follow their key. */
   private rowOrder(table: HouseholdTable): string {
     if (this.sequelize.getDialect() === 'sqlite') return 'rowid';
@@ -225,7 +128,8 @@ export class HouseholdDataService {
 
   private readonly primaryKeys = new Map<string, string[]>();
 
-  private async householdTables(transaction: Transaction): Promise<HouseholdTable[]> {
+  /** The tables that hold household rows (foreign keys read from the database itself). */
+  async householdTables(transaction: Transaction): Promise<HouseholdTable[]> {
     if (this.sequelize.getDialect() === 'postgres') return this.postgresTables(transaction);
     const names = await this.sequelize.query<{ name: string }>(
       "SELECT name FROM sqlite_master WHERE type = 'table' AND name NOT LIKE 'sqlite_%' ORDER BY name",
@@ -314,7 +218,8 @@ export class HouseholdDataService {
     return householdTables([...infos.values()].sort((a, b) => (a.name < b.name ? -1 : 1)));
   }
 
-  private select<T extends object>(sql: string, householdId: number, transaction: Transaction) {
+  /** Rows of one query with the household id as its one replacement. */
+  select<T extends object>(sql: string, householdId: number, transaction: Transaction) {
     return this.sequelize.query<T>(sql, {
       replacements: Array.from({ length: sql.split('?').length - 1 }, () => householdId),
       type: QueryTypes.SELECT,
