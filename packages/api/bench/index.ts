@@ -3,6 +3,7 @@ import { benchLoadMix } from './load-mix.bench.js';
 import { benchManyFamilies } from './many-families.bench.js';
 import { benchPerRequest } from './per-request.bench.js';
 import { benchPhotoPipeline } from './photo-pipeline.bench.js';
+import { benchProfile } from './profile.bench.js';
 
 // Figures only; not part of `npm test`. `npm run bench -w packages/api -- photos|request|load|families`
 // runs one; BENCH_DURATION=5 BENCH_MISSES=20000 for a quick load run.
@@ -17,3 +18,5 @@ if (!only || only === 'photos') await benchPhotoPipeline();
 if (!only || only === 'request') await benchPerRequest();
 if (!only || only === 'load') await benchLoadMix();
 if (!only || only === 'families') await benchManyFamilies();
+// Only when asked: `-- profile health` or `-- profile notebook` prints the hottest frames.
+if (only === 'profile') await benchProfile(process.argv[3]);

@@ -52,6 +52,29 @@ async function bestOf(subjects: Record<string, () => Promise<Result>>) {
   return best;
 }
 
+/** The server as production runs it, its log lines read and dropped, on the demo household. */
+export async function startProductionServer(dataDir: string, nodeArgs: readonly string[] = []) {
+  const server = await startServerProcess(
+    {
+      NODE_ENV: 'production',
+      DATA_DIR: dataDir,
+      SEED_DEMO: 'true',
+      LOG_LEVEL: process.env.BENCH_LOG_LEVEL ?? 'info',
+      SIGN_IN_LIMIT_PER_MINUTE: '1000',
+      // Production refuses to start without them; nothing is mailed during the bench.
+      SMTP_URL: 'smtp://127.0.0.1:9',
+      PUBLIC_URL: 'http://localhost',
+    },
+    nodeArgs,
+  );
+  // Production writes its log lines to stdout; read and drop them rather than keep them.
+  server.child.stdout!.removeAllListeners('data');
+  server.child.stderr!.removeAllListeners('data');
+  server.child.stdout!.resume();
+  server.child.stderr!.resume();
+  return server;
+}
+
 /**
  * What every request costs: the product's /api/health and a signed-in notebook page (the
  * demo household's first 25 misses) beside a bare Express app answering the same health
@@ -61,21 +84,7 @@ async function bestOf(subjects: Record<string, () => Promise<Result>>) {
 export async function benchPerRequest(): Promise<void> {
   const dataDir = mkdtempSync(path.join(tmpdir(), 'workback-bench-'));
   const bare = await startBareExpress();
-  const server = await startServerProcess({
-    NODE_ENV: 'production',
-    DATA_DIR: dataDir,
-    SEED_DEMO: 'true',
-    LOG_LEVEL: process.env.BENCH_LOG_LEVEL ?? 'info',
-    SIGN_IN_LIMIT_PER_MINUTE: '1000',
-    // Production refuses to start without them; nothing is mailed during the bench.
-    SMTP_URL: 'smtp://127.0.0.1:9',
-    PUBLIC_URL: 'http://localhost',
-  });
-  // Production writes its log lines to stdout; read and drop them rather than keep them.
-  server.child.stdout!.removeAllListeners('data');
-  server.child.stderr!.removeAllListeners('data');
-  server.child.stdout!.resume();
-  server.child.stderr!.resume();
+  const server = await startProductionServer(dataDir);
   try {
     const owner = await signIn(server.url, 'parent@workback.test');
     const best = await bestOf({
