@@ -9,6 +9,7 @@ export { MissKind, MISS_KINDS, MISS_KIND_LABEL, isMissKind } from './domain/miss
 export { parseProblem } from './parse/parseProblem.js';
 export { parseAnswer } from './parse/parseAnswer.js';
 export { missKindOf } from './parse/missKindOf.js';
+export { groupThousands } from './numbers/groupThousands.js';
 export type {
   Problem,
   ProblemKind,

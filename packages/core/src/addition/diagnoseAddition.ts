@@ -11,15 +11,47 @@ import { addColumns, type AdditionMethod, type AdditionRun } from './addColumns.
 
 type AdditionProblem = Extract<Problem, { kind: 'addition' }>;
 
+/** A basic-fact slip inside a rule's working: the sum of this column taken as the run shows it. */
+interface AdditionSlip {
+  readonly column: number;
+  /** The column's parts as written in words, `'5 + 6 + 1 carried'`. */
+  readonly parts: string;
+}
+
 interface AdditionRule {
   readonly id: string;
   readonly method: AdditionMethod;
-  readonly explain: (problem: AdditionProblem, run: AdditionRun) => string;
+  /**
+   * The rule's words, worked on `run`. With a slip in the same working (`run` then carries
+   * it), the column the rule speaks of tells the slipped sum, never the right one as if the
+   * child had used it.
+   */
+  readonly explain: (problem: AdditionProblem, run: AdditionRun, slip?: AdditionSlip) => string;
+  /** The column the rule's sentence opens on, when it speaks of one. */
+  readonly at?: (run: AdditionRun) => number;
 }
 
-/** `columnSum(col)` → `'5 + 6 + 1 carried = 12'`. */
-const columnSum = (col: AdditionColumn): string =>
-  `${col.digits.filter((d) => d !== null).join(' + ')}${col.carryIn > 0 ? ` + ${col.carryIn} carried` : ''} = ${col.sum}`;
+/** `columnParts(col)` → `'5 + 6 + 1 carried'`. */
+const columnParts = (col: AdditionColumn): string =>
+  `${col.digits.filter((d) => d !== null).join(' + ')}${col.carryIn > 0 ? ` + ${col.carryIn} carried` : ''}`;
+
+/** The right sum of a column's parts (a slipped run keeps the slipped one in `sum`). */
+const rightSum = (col: AdditionColumn): number =>
+  col.digits.reduce<number>((s, d) => s + (d ?? 0), col.carryIn);
+
+/**
+ * How a rule's sentence opens on its column: `'In the ones column 5 + 6 + 1 carried = 12'`;
+ * on the slipped column `'In the ones column 5 + 6 + 1 carried was taken as 13 instead of 12'`;
+ * on another column with the same parts as the slipped one, `'… came out right, 12'`.
+ */
+function columnLead(col: AdditionColumn, slip: AdditionSlip | undefined): string {
+  const parts = columnParts(col);
+  const lead = `In the ${placeColumn(col.index)} ${parts}`;
+  if (slip === undefined) return `${lead} = ${col.sum}`;
+  if (slip.column === col.index)
+    return `${lead} was taken as ${col.sum} instead of ${rightSum(col)}`;
+  return slip.parts === parts ? `${lead} came out right, ${col.sum}` : `${lead} = ${col.sum}`;
+}
 
 const firstFired = (run: AdditionRun): AdditionColumn =>
   run.trace.columns[run.fired.find((f) => f.part === 'carry')?.column ?? 0] as AdditionColumn;
@@ -29,25 +61,28 @@ export const ADDITION_RULES: readonly AdditionRule[] = [
   {
     id: 'add.no-carry',
     method: { carry: 'drop' },
-    explain: (_p, run) => {
+    at: (run) => firstFired(run).index,
+    explain: (_p, run, slip) => {
       const col = firstFired(run);
-      return `In the ${placeColumn(col.index)} ${columnSum(col)}: the ${col.sum % 10} was written, but the ${Math.floor(col.sum / 10)} that belongs in the ${placeName(col.index + 1)} column was not carried.`;
+      return `${columnLead(col, slip)}: the ${col.sum % 10} was written, but the ${Math.floor(col.sum / 10)} that belongs in the ${placeName(col.index + 1)} column was not carried.`;
     },
   },
   {
     id: 'add.carry-written',
     method: { carry: 'write-sum' },
-    explain: (_p, run) => {
+    at: (run) => firstFired(run).index,
+    explain: (_p, run, slip) => {
       const col = firstFired(run);
-      return `In the ${placeColumn(col.index)} ${columnSum(col)}, and the whole ${col.sum} was written under that column instead of writing ${col.sum % 10} and carrying ${Math.floor(col.sum / 10)} to the ${placeName(col.index + 1)} column.`;
+      return `${columnLead(col, slip)}, and the whole ${col.sum} was written under that column instead of writing ${col.sum % 10} and carrying ${Math.floor(col.sum / 10)} to the ${placeName(col.index + 1)} column.`;
     },
   },
   {
     id: 'add.carry-reversed',
     method: { carry: 'reverse' },
-    explain: (_p, run) => {
+    at: (run) => firstFired(run).index,
+    explain: (_p, run, slip) => {
       const col = firstFired(run);
-      return `In the ${placeColumn(col.index)} ${columnSum(col)}: the ${Math.floor(col.sum / 10)} was written and the ${col.sum % 10} carried, the other way round from writing ${col.sum % 10} and carrying ${Math.floor(col.sum / 10)}.`;
+      return `${columnLead(col, slip)}: the ${Math.floor(col.sum / 10)} was written and the ${col.sum % 10} carried, the other way round from writing ${col.sum % 10} and carrying ${Math.floor(col.sum / 10)}.`;
     },
   },
   {
@@ -63,9 +98,10 @@ export const ADDITION_RULES: readonly AdditionRule[] = [
   {
     id: 'add.writes-carry',
     method: { carry: 'write-carry' },
-    explain: (_p, run) => {
+    at: (run) => firstFired(run).index,
+    explain: (_p, run, slip) => {
       const col = firstFired(run);
-      return `In the ${placeColumn(col.index)} ${columnSum(col)}: the carried ${Math.floor(col.sum / 10)} was written in that column and nothing was carried, instead of writing ${col.sum % 10} and carrying ${Math.floor(col.sum / 10)}.`;
+      return `${columnLead(col, slip)}: the carried ${Math.floor(col.sum / 10)} was written in that column and nothing was carried, instead of writing ${col.sum % 10} and carrying ${Math.floor(col.sum / 10)}.`;
     },
   },
 ];
@@ -94,8 +130,9 @@ function factError(col: AdditionColumn, written: number): FactError | null {
   };
 }
 
-const factSentence = (f: FactError): string =>
-  `In the ${f.where} ${f.a} + ${f.b} was taken as ${f.written} instead of ${f.expected}.`;
+/** `'In the ones column 5 + 6 + 1 carried was taken as 13 instead of 12.'` */
+const factSentence = (col: AdditionColumn, f: FactError): string =>
+  `${columnLead({ ...col, sum: f.written }, { column: col.index, parts: columnParts(col) })}.`;
 
 /** Every column fact of a run where a slip could sit, at the place its digits are written. */
 function slipSites(
@@ -171,7 +208,7 @@ function searchAddition(
     if (fact !== null) {
       matches.push({
         ids: ['add.fact'],
-        explanation: `${factSentence(fact)} The rest of the working is right, which gives ${written}.`,
+        explanation: `${factSentence(slip.cell.data, fact)} The rest of the working is right, which gives ${written}.`,
         trace: null,
         facts: [fact],
       });
@@ -210,12 +247,29 @@ function searchAddition(
     const best = found[0];
     if (best === undefined) continue;
     const slipped = addColumns(problem.addends, { ...method, slip: best.site.slip(best.written) });
-    const col = run.trace.columns[best.site.column] as AdditionColumn;
-    const fact = factError(col, best.written);
+    // The words tell what the child did: the rule as it worked on the slipped sum.
+    if (!slipped.fired.some((f) => f.part in method)) continue;
+    const col = slipped.trace.columns[best.site.column] as AdditionColumn;
+    const fact = factError({ ...col, sum: rightSum(col) }, best.written);
     if (fact === null) continue;
+    const ruleWords = rule.explain(problem, slipped, {
+      column: col.index,
+      parts: columnParts(col),
+    });
+    // Told in the order the child worked, column by column from the ones; on the same column,
+    // one sentence: the slipped sum, then what the rule did with it ("… was taken as 12
+    // instead of 11: the 2 was written, but …"). Lining up comes before any adding.
+    const slipWords = factSentence(col, fact);
+    const at = rule.at?.(slipped) ?? -1;
+    const story =
+      at === col.index
+        ? ruleWords
+        : at < col.index
+          ? `${ruleWords} ${slipWords}`
+          : `${slipWords} ${ruleWords}`;
     matches.push({
       ids: [rule.id, 'add.fact'],
-      explanation: `Two things happened together. ${rule.explain(problem, run)} ${factSentence(fact)} ${outcome}`,
+      explanation: `Two things happened together. ${story} ${outcome}`,
       trace: slipped.trace,
       facts: [fact],
       rank: best.rank,

@@ -8,6 +8,7 @@ import { parseProblem } from '../parse/parseProblem.js';
 import { planCheckUp } from '../checkup/planCheckUp.js';
 import { checkLines } from '../lines/checkLines.js';
 import { practiceFor } from '../practice/practiceFor.js';
+import { groupThousands } from '../numbers/groupThousands.js';
 import { formatTrace } from './formatTrace.js';
 
 /** Anything with a `write`, such as `process.stdout`. */
@@ -144,7 +145,7 @@ export function main(argv: readonly string[], out: Output, err: Output): number 
       return 0;
     }
     const lines = checked.lines.map((l) => {
-      const verdict = l.ok ? 'right' : `differs: it comes to ${l.expected}`;
+      const verdict = l.ok ? 'right' : `differs: it comes to ${groupThousands(l.expected)}`;
       const follows = l.followsFrom === null ? '' : ` (follows from line ${l.followsFrom})`;
       const rule = l.ok ? '' : (l.diagnosis.rules[0]?.explanation ?? '');
       return `${l.line}. ${l.text}    ${verdict}${follows}${rule ? `\n     ${rule}` : ''}`;
@@ -174,7 +175,7 @@ export function main(argv: readonly string[], out: Output, err: Output): number 
             `Practice for ${set.ruleId}:`,
             ...set.problems.map(
               (p, i) =>
-                `${i + 1}. ${p.problem}    (answer ${p.answer}${p.ruleAnswer === null ? '' : `; the rule would give ${p.ruleAnswer}`})`,
+                `${i + 1}. ${p.problem}    (answer ${groupThousands(p.answer)}${p.ruleAnswer === null ? '' : `; the rule would give ${groupThousands(p.ruleAnswer)}`})`,
             ),
             '',
           ].join('\n'),
@@ -222,7 +223,9 @@ function checkUp(
   plan.problems.forEach((p, i) => {
     lines.push(`${i + 1}. ${p.problem}`);
     for (const h of plan.hypotheses)
-      lines.push(`     ${h === 'correct' ? 'usual working' : h}: ${p.answers[h]}`);
+      lines.push(
+        `     ${h === 'correct' ? 'usual working' : h}: ${groupThousands(p.answers[h] ?? '')}`,
+      );
   });
   for (const m of plan.merged) lines.push(`Note: ${m.id} — ${m.reason}`);
   lines.push('', 'The answers are an aid to your judgement, not a grade.', '');
@@ -249,7 +252,7 @@ function describeDiagnosis(d: Diagnosis): string {
   const lines = [
     `Problem:  ${d.problem.text}`,
     `Answer:   ${d.answer}`,
-    `Expected: ${d.expected}`,
+    `Expected: ${groupThousands(d.expected)}`,
     d.correct ? 'The answer is right.' : 'The answer differs from the usual working.',
   ];
   if (d.writtenSteps !== null) {
@@ -278,8 +281,9 @@ function describeDiagnosis(d: Diagnosis): string {
     }
     for (const f of d.facts) {
       const sign = f.op === 'x' ? '×' : f.op === '-' ? '−' : f.op;
-      // The first explanation usually says it already ("13 − 5 was taken as 9"): not twice.
-      if (d.rules[0]?.explanation.includes(`${f.a} ${sign} ${f.b} was taken as ${f.written}`))
+      // The first explanation usually says it already ("13 − 5 was taken as 9 instead of 8",
+      // "5 + 6 + 1 carried was taken as 13 instead of 12"): not twice.
+      if (d.rules[0]?.explanation.includes(`was taken as ${f.written} instead of ${f.expected}`))
         continue;
       lines.push(
         `Fact to look at: ${f.a} ${sign} ${f.b} = ${f.expected} (written ${f.written}, ${f.where})`,

@@ -16,6 +16,7 @@
 import { beforeAll, describe, expect, it } from 'vitest';
 import { ruleInfo } from '../rules/catalog.js';
 import { evaluationCases, type EvaluationCase } from '../testing/evaluationCases.js';
+import { misleadingWords } from '../testing/wordsOnScreen.js';
 import { diagnose } from './diagnose.js';
 import type { Diagnosis } from './types.js';
 
@@ -144,6 +145,15 @@ describe('top-1 on a seeded table of children’s answers', () => {
         s.d.rules.filter((r) => r.ids.some(isSystematic)).map((r) => r.id),
         `${s.c.problem} → ${s.c.answer}`,
       ).toEqual([]);
+  });
+
+  // Issue 11 §4, over the whole table (its diagnoses are made once, above): no digit below
+  // zero, no sentence twice on one screen, and no basic fact said both as right and as
+  // slipped (a rule plus a slip in its own column tells the slipped value, never the right
+  // one as if the child used it), nor a wrong fact stated as right.
+  it('tells every answer in words that hold together', () => {
+    for (const s of scored)
+      expect(misleadingWords(s.d), `${s.c.problem} → ${s.c.answer}`).toEqual([]);
   });
 
   it('ranks round.half-down first when the dropped digits are exactly 5 (then zeros)', () => {

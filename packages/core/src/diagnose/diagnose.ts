@@ -14,11 +14,18 @@ import { diagnoseFractions } from '../fractions/diagnoseFractions.js';
 import { diagnoseDecimal } from '../decimals/diagnoseDecimal.js';
 import { diagnoseDecimalComparison } from '../decimals/diagnoseDecimalComparison.js';
 import { diagnoseClock } from '../time/diagnoseClock.js';
+import { groupThousands } from '../numbers/groupThousands.js';
 import { adjacentSwap } from './adjacentSwap.js';
 import { ENGINE_VERSION } from './engineVersion.js';
 import { rankMatches } from './rankMatches.js';
 import { suggestCause } from './suggestCause.js';
-import type { DiagnoseResult, Diagnosis, Findings, WrittenSteps } from './types.js';
+import type {
+  DiagnoseResult,
+  Diagnosis,
+  Findings,
+  WrittenSteps,
+  WrittenStepsReport,
+} from './types.js';
 
 /**
  * Works the problem, compares the child's answer (and written steps, when given) with the
@@ -56,10 +63,14 @@ export function diagnose(
   const ranked = rankMatches(
     swap === null ? findings.matches : findings.matches.filter((m) => m.ids.length === 1),
   );
-  // The closing "Worked that way, … gives …" is said once, on the first explanation.
-  const rules = ranked.map(({ facts: _facts, rank: _rank, ...match }, i) =>
-    i === 0 ? match : { ...match, explanation: match.explanation.replace(CLOSING, '') },
-  );
+  // The closing "Worked that way, … gives …" is said once, on the first explanation. Every
+  // sentence writes its numbers with thousands commas (4,455), as a parent writes them.
+  const rules = ranked.map(({ facts: _facts, rank: _rank, ...match }, i) => ({
+    ...match,
+    explanation: groupThousands(
+      i === 0 ? match.explanation : match.explanation.replace(CLOSING, ''),
+    ),
+  }));
   const facts = ranked[0]?.facts ?? [];
   const childRule = ranked.find((m) => m.trace !== null);
   const partial: Omit<Diagnosis, 'suggestedCause'> = {
@@ -69,7 +80,10 @@ export function diagnose(
     answer: answer.text,
     parsedAnswer: answer,
     correct: findings.correct,
-    firstWrongStep: findings.correct ? null : findings.firstWrongStep,
+    firstWrongStep:
+      findings.correct || findings.firstWrongStep === null
+        ? null
+        : { ...findings.firstWrongStep, note: groupThousands(findings.firstWrongStep.note) },
     rules,
     facts,
     checks: { nines: castOutNines(problem, answer), elevens: castOutElevens(problem, answer) },
@@ -77,11 +91,29 @@ export function diagnose(
       expected: findings.expectedTrace,
       child: childRule?.trace == null ? null : { ruleId: childRule.id, working: childRule.trace },
     },
-    notes: findings.notes,
-    writtenSteps: findings.writtenSteps ?? null,
+    notes: findings.notes.map(groupThousands),
+    writtenSteps: wordsOfSteps(findings.writtenSteps ?? null),
     engineVersion: ENGINE_VERSION,
   };
-  return { ...partial, suggestedCause: suggestCause(partial) };
+  const suggested = suggestCause(partial);
+  return {
+    ...partial,
+    suggestedCause:
+      suggested === null ? null : { ...suggested, because: groupThousands(suggested.because) },
+  };
+}
+
+/** The written steps with their findings' words in thousands commas (the digits stay digits). */
+function wordsOfSteps(report: WrittenStepsReport | null): WrittenStepsReport | null {
+  if (report === null) return null;
+  return {
+    ...report,
+    steps: report.steps.map((s) =>
+      s.finding === null
+        ? s
+        : { ...s, finding: { ...s.finding, explanation: groupThousands(s.finding.explanation) } },
+    ),
+  };
 }
 
 const CLOSING = /\s*Worked that way, .* gives .*\.$/;

@@ -29,10 +29,24 @@ export function layoutOf(factors: readonly [string, string]): { top: string; bot
   return a.length < b.length ? { top: b, bottom: a } : { top: a, bottom: b };
 }
 
+/** A basic-fact slip inside a rule's working: the cell (partial product, column) and the fact as taken. */
+interface ProductSlip {
+  readonly partial: number;
+  readonly column: number;
+  readonly fact: FactError;
+}
+
 interface MethodRule {
   readonly id: string;
   readonly method: MultiplicationMethod;
-  readonly explain: (run: MultiplicationRun) => string;
+  /**
+   * The rule's words, worked on `run`. With a slip in the same working (`run` then carries
+   * it), the cell the rule speaks of tells the slipped product, never the right one as if the
+   * child had used it.
+   */
+  readonly explain: (run: MultiplicationRun, slip?: ProductSlip) => string;
+  /** The part of the method whose first cell the rule's sentence speaks of (none: the placeholder, which acts once the products are made). */
+  readonly part?: keyof MultiplicationMethod;
 }
 
 const firstCell = (
@@ -46,45 +60,85 @@ const firstCell = (
 
 const where = (c: ProductCell): string => `the ${placeName(c.index)} digit`;
 
+/**
+ * How a rule's sentence opens on its cell: `'At the ones digit 9 × 4 = 36'`; on the slipped
+ * cell `'At the ones digit 9 × 4 was taken as 35 instead of 36'`; on another cell where the
+ * slipped fact came out right, `'At the tens digit 9 × 4 came out right, 36'`.
+ */
+function cellLead(
+  run: MultiplicationRun,
+  part: keyof MultiplicationMethod,
+  slip: ProductSlip | undefined,
+): string {
+  const f = run.fired.find((x) => x.part === part) ?? { partial: 0, column: 0 };
+  const { c } = firstCell(run, part);
+  const fact = `${c.topDigit} × ${c.multiplierDigit}`;
+  const lead = `At ${where(c)} ${fact}`;
+  if (slip === undefined) return `${lead} = ${c.product}`;
+  if (slip.partial === f.partial && slip.column === f.column)
+    return `${lead} was taken as ${c.product} instead of ${c.topDigit * c.multiplierDigit}`;
+  return slip.fact.a === c.topDigit && slip.fact.b === c.multiplierDigit
+    ? `${lead} came out right, ${c.product}`
+    : `${lead} = ${c.product}`;
+}
+
 /** The multiplication rules that change the long-multiplication method itself. */
 export const MULTIPLICATION_METHOD_RULES: readonly MethodRule[] = [
   {
     id: 'mul.carry-before-multiplying',
     method: { carry: 'before' },
-    explain: (run) => {
+    part: 'carry',
+    explain: (run, slip) => {
+      const f = run.fired.find((x) => x.part === 'carry') ?? { partial: 0, column: 0 };
       const { c } = firstCell(run, 'carry');
       const t = c.topDigit;
-      return `At ${where(c)} the carried ${c.carryIn} was added to the ${t} before multiplying, making (${t} + ${c.carryIn}) × ${c.multiplierDigit} = ${c.product}, instead of ${t} × ${c.multiplierDigit} = ${t * c.multiplierDigit} and then adding the ${c.carryIn}.`;
+      const m = c.multiplierDigit;
+      const here = slip !== undefined && slip.partial === f.partial && slip.column === f.column;
+      const made = here
+        ? `making (${t} + ${c.carryIn}) × ${m}, and ${t + c.carryIn} × ${m} was taken as ${c.product} instead of ${(t + c.carryIn) * m}`
+        : `making (${t} + ${c.carryIn}) × ${m} = ${c.product}`;
+      const usual =
+        slip !== undefined && slip.fact.a === t && slip.fact.b === m
+          ? `${t} × ${m}`
+          : `${t} × ${m} = ${t * m}`;
+      return here
+        ? `At ${where(c)} the carried ${c.carryIn} was added to the ${t} before multiplying, ${made} (the usual working is ${usual}, then adding the ${c.carryIn}).`
+        : `At ${where(c)} the carried ${c.carryIn} was added to the ${t} before multiplying, ${made}, instead of ${usual} and then adding the ${c.carryIn}.`;
     },
   },
   {
     id: 'mul.no-carry',
     method: { carry: 'drop' },
-    explain: (run) => {
+    part: 'carry',
+    explain: (run, slip) => {
       const { c } = firstCell(run, 'carry');
-      return `At ${where(c)} ${c.topDigit} × ${c.multiplierDigit} = ${c.product}: the ${c.product % 10} was written, but the ${Math.floor(c.product / 10)} was not carried to the next digit.`;
+      return `${cellLead(run, 'carry', slip)}: the ${c.product % 10} was written, but the ${Math.floor(c.product / 10)} was not carried to the next digit.`;
     },
   },
   {
     id: 'mul.carry-written',
     method: { carry: 'write' },
-    explain: (run) => {
+    part: 'carry',
+    explain: (run, slip) => {
       const { c } = firstCell(run, 'carry');
-      return `At ${where(c)} the whole product ${c.topDigit} × ${c.multiplierDigit} = ${c.product} was written, side by side with the other products, instead of writing ${c.product % 10} and carrying ${Math.floor(c.product / 10)}.`;
+      return `${cellLead(run, 'carry', slip)}, and the whole ${c.product} was written, side by side with the other products, instead of writing ${c.product % 10} and carrying ${Math.floor(c.product / 10)}.`;
     },
   },
   {
     id: 'mul.carry-reversed',
     method: { carry: 'reverse' },
-    explain: (run) => {
+    part: 'carry',
+    explain: (run, slip) => {
       const { c } = firstCell(run, 'carry');
       const total = c.product + c.carryIn;
-      return `At ${where(c)} ${c.topDigit} × ${c.multiplierDigit}${c.carryIn > 0 ? ` + ${c.carryIn}` : ''} = ${total}: the ${Math.floor(total / 10)} was written and the ${total % 10} carried, the other way round from writing ${total % 10} and carrying ${Math.floor(total / 10)}.`;
+      const lead = cellLead(run, 'carry', slip);
+      return `${c.carryIn > 0 ? `${lead}, and ${c.product} + ${c.carryIn} = ${total}` : lead}: the ${Math.floor(total / 10)} was written and the ${total % 10} carried, the other way round from writing ${total % 10} and carrying ${Math.floor(total / 10)}.`;
     },
   },
   {
     id: 'mul.zero-times-n-is-n',
     method: { zeroDigit: 'n' },
+    part: 'zeroDigit',
     explain: (run) => {
       const { c } = firstCell(run, 'zeroDigit');
       const n = c.topDigit === 0 ? c.multiplierDigit : c.topDigit;
@@ -356,12 +410,30 @@ export function diagnoseMultiplication(
     const best = found[0];
     if (best === undefined) continue;
     const slipped = multiplyLong(top, bottom, { ...method, slip: best.site.slip(best.written) });
+    // The words tell what the child did: the rule as it worked on the slipped product.
+    if (!slipped.fired.some((f) => f.part in method)) continue;
     const p = run.trace.partials[best.site.partial] as PartialProduct;
     const c = p.cells[best.site.column] as ProductCell;
     const fact = cellFact(c, best.site.factor, best.written, top, bottom, p);
+    const slip = { partial: best.site.partial, column: best.site.column, fact };
+    // Told in the order the child worked, cell by cell; on the same cell, one sentence: the
+    // slipped fact, then what the rule did with it ("9 × 4 was taken as 35 instead of 36: the
+    // 5 was written, but …"). Written without its placeholder, a partial product is added once
+    // its products are made: the slip comes first.
+    const ruleWords = rule.explain(slipped, slip);
+    const at =
+      rule.part === undefined ? undefined : slipped.fired.find((f) => f.part === rule.part);
+    const story =
+      at === undefined
+        ? `${factSentence(fact)} ${ruleWords}`
+        : at.partial === slip.partial && at.column === slip.column
+          ? ruleWords
+          : at.partial < slip.partial || (at.partial === slip.partial && at.column < slip.column)
+            ? `${ruleWords} ${factSentence(fact)}`
+            : `${factSentence(fact)} ${ruleWords}`;
     matches.push({
       ids: [rule.id, 'mul.fact'],
-      explanation: `Two things happened together. ${rule.explain(run)} ${factSentence(fact)} ${outcome}`,
+      explanation: `Two things happened together. ${story} ${outcome}`,
       trace: slipped.trace,
       facts: [fact],
       rank: best.rank,

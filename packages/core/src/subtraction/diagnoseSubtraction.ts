@@ -12,11 +12,42 @@ import { subtractColumns, type SubtractionMethod, type SubtractionRun } from './
 
 type SubtractionProblem = Extract<Problem, { kind: 'subtraction' }>;
 
+/** A basic-fact slip inside a rule's working: the difference of this column, right and as taken. */
+interface SubtractionSlip {
+  readonly column: number;
+  readonly fact: FactError;
+}
+
 interface SubtractionRule {
   readonly id: string;
   readonly method: SubtractionMethod;
-  readonly explain: (problem: SubtractionProblem, run: SubtractionRun) => string;
+  /**
+   * The rule's words, worked on `run`. With a slip in the same working (`run` then carries
+   * it), the column the rule speaks of tells the slipped difference, never the right one as
+   * if the child had used it.
+   */
+  readonly explain: (
+    problem: SubtractionProblem,
+    run: SubtractionRun,
+    slip?: SubtractionSlip,
+  ) => string;
+  /** The column whose difference the rule's sentence works out, when it speaks of one. */
+  readonly at?: (run: SubtractionRun) => number;
 }
+
+/**
+ * A difference the rule's sentence works out: `'13 − 5 = 8'`; just `'13 − 5'` when the slip
+ * beside it is this very fact taken otherwise, so one explanation never states both.
+ */
+function difference(a: number, b: number, shown: number, slip?: SubtractionSlip): string {
+  return slip !== undefined && slip.fact.a === a && slip.fact.b === b
+    ? `${a} − ${b}`
+    : `${a} − ${b} = ${shown}`;
+}
+
+/** `'13 − 5 was taken as 9 instead of 8'`. */
+const slipped = (f: FactError): string =>
+  `${f.a} − ${f.b} was taken as ${f.written} instead of ${f.expected}`;
 
 const col = (run: SubtractionRun, k: number): SubtractionColumn =>
   run.trace.columns[k] as SubtractionColumn;
@@ -31,15 +62,20 @@ export const SUBTRACTION_RULES: readonly SubtractionRule[] = [
   {
     id: 'sub.smaller-from-larger',
     method: { compare: 'smaller-from-larger' },
-    explain: (_p, run) => {
+    at: (run) => firstFired(run, 'compare').index,
+    explain: (_p, run, slip) => {
       const c = firstFired(run, 'compare');
-      return `In the ${placeColumn(c.index)} ${c.used} − ${c.bottom ?? 0} needs regrouping; instead ${c.bottom ?? 0} − ${c.used} = ${c.written} was written, taking the smaller digit from the larger.`;
+      const need = `In the ${placeColumn(c.index)} ${c.used} − ${c.bottom ?? 0} needs regrouping`;
+      return slip?.column === c.index
+        ? `${need}; instead the smaller digit was taken from the larger, and ${slipped(slip.fact)}.`
+        : `${need}; instead ${difference(c.bottom ?? 0, c.used, c.written, slip)} was written, taking the smaller digit from the larger.`;
     },
   },
   {
     id: 'sub.borrow-no-decrement',
     method: { decrement: false },
-    explain: (_p, run) => {
+    at: (run) => firstFired(run, 'decrement').index,
+    explain: (_p, run, slip) => {
       const c = firstFired(run, 'decrement');
       const left = run.trace.columns[c.index + 1];
       const lender =
@@ -48,7 +84,10 @@ export const SUBTRACTION_RULES: readonly SubtractionRule[] = [
           : (left.marks[0] ?? 0) === 0
             ? ' (it stayed 0; the usual working takes one from the digit to its left, and the 0 becomes 9)'
             : ` (it stayed ${left.marks[0] ?? 0} instead of becoming ${(left.marks[0] ?? 0) - 1})`;
-      return `In the ${placeColumn(c.index)} ten was added to make ${c.used} − ${c.bottom ?? 0} = ${c.written}, but nothing was taken from the ${placeName(c.index + 1)} digit${lender}.`;
+      const nothing = `but nothing was taken from the ${placeName(c.index + 1)} digit${lender}`;
+      return slip?.column === c.index
+        ? `In the ${placeColumn(c.index)} ten was added to make ${c.used}, ${nothing}; then ${slipped(slip.fact)}.`
+        : `In the ${placeColumn(c.index)} ten was added to make ${difference(c.used, c.bottom ?? 0, c.written, slip)}, ${nothing}.`;
     },
   },
   {
@@ -78,17 +117,17 @@ export const SUBTRACTION_RULES: readonly SubtractionRule[] = [
   {
     id: 'sub.zero-minus-n-is-n',
     method: { zeroTop: 'n' },
-    explain: (_p, run) => {
+    explain: (_p, run, slip) => {
       const c = firstFired(run, 'zeroTop');
-      return `In the ${placeColumn(c.index)} 0 − ${c.bottom ?? 0} was written as ${c.written}, instead of regrouping to make 10 − ${c.bottom ?? 0} = ${10 - (c.bottom ?? 0)}.`;
+      return `In the ${placeColumn(c.index)} 0 − ${c.bottom ?? 0} was written as ${c.written}, instead of regrouping to make ${difference(10, c.bottom ?? 0, 10 - (c.bottom ?? 0), slip)}.`;
     },
   },
   {
     id: 'sub.zero-minus-n-is-zero',
     method: { zeroTop: 'zero' },
-    explain: (_p, run) => {
+    explain: (_p, run, slip) => {
       const c = firstFired(run, 'zeroTop');
-      return `In the ${placeColumn(c.index)} 0 − ${c.bottom ?? 0} was written as 0, instead of regrouping to make 10 − ${c.bottom ?? 0} = ${10 - (c.bottom ?? 0)}.`;
+      return `In the ${placeColumn(c.index)} 0 − ${c.bottom ?? 0} was written as 0, instead of regrouping to make ${difference(10, c.bottom ?? 0, 10 - (c.bottom ?? 0), slip)}.`;
     },
   },
   {
@@ -107,12 +146,17 @@ export const SUBTRACTION_RULES: readonly SubtractionRule[] = [
   },
 ];
 
+/** The first column where a rule's part of the method fired; -1 for lining up (before any column). */
+function firstColumnOf(run: SubtractionRun, method: SubtractionMethod): number {
+  if ('align' in method) return -1;
+  return run.fired.find((f) => f.part in method)?.column ?? -1;
+}
+
 /** Rules that set the same part of the method cannot combine. */
 const conflict = (a: SubtractionMethod, b: SubtractionMethod): boolean =>
   Object.keys(a).some((key) => key in b);
 
-const factSentence = (f: FactError): string =>
-  `In the ${f.where} ${f.a} − ${f.b} was taken as ${f.written} instead of ${f.expected}.`;
+const factSentence = (f: FactError): string => `In the ${f.where} ${slipped(f)}.`;
 
 function factError(c: SubtractionColumn, written: number): FactError | null {
   if (c.bottom === null) return null;
@@ -260,12 +304,26 @@ function searchSubtraction(
     );
     const best = found[0];
     if (best === undefined) continue;
-    const slipped = traced({ ...rule.method, slip: best.site.slip(best.written) });
+    const withSlip = traced({ ...rule.method, slip: best.site.slip(best.written) });
+    // The words tell what the child did: the rule as it worked with the slipped difference.
+    if (!withSlip.fired.some((f) => f.part in rule.method)) continue;
     const fact = factOf(run, best.site.column, best.written);
+    const slip = { column: best.site.column, fact };
+    // Told in the order the child worked, column by column from the ones; lining up comes
+    // before any column. A rule that works out the slipped column says it in one sentence;
+    // a regrouping in that column comes before the slip made on the digits it left.
+    const ruleWords = rule.explain(problem, withSlip, slip);
+    const ruleAt = firstColumnOf(withSlip, rule.method);
+    const story =
+      rule.at?.(withSlip) === slip.column
+        ? ruleWords
+        : ruleAt <= slip.column
+          ? `${ruleWords} ${factSentence(fact)}`
+          : `${factSentence(fact)} ${ruleWords}`;
     matches.push({
       ids: [rule.id, 'sub.fact'],
-      explanation: `Two things happened together. ${rule.explain(problem, run)} ${factSentence(fact)} ${outcome}`,
-      trace: slipped.trace,
+      explanation: `Two things happened together. ${story} ${outcome}`,
+      trace: withSlip.trace,
       facts: [fact],
       rank: best.rank,
     });
