@@ -211,6 +211,18 @@ describe('WorkingTrace', () => {
     expect(screen.getByText('7 × 8 = 56 (taken as 54)')).toBeInTheDocument();
   });
 
+  it('a rule with a slip in its own column: one story, numbers with thousands commas (issue 11 §4)', () => {
+    show('960 + 4455', '4325');
+    const verdict = screen.getByText(/The usual working gives/);
+    // The usual answer in the sentence with a comma; the child's answer as the parent typed it.
+    expect(verdict).toHaveTextContent('The usual working gives 5,415; the answer written is 4325.');
+    expect(
+      screen.getByText(
+        'Two things happened together. In the tens column 6 + 5 was taken as 12 instead of 11: the 2 was written, but the 1 that belongs in the hundreds column was not carried. Worked that way, 960 + 4,455 gives 4,325.',
+      ),
+    ).toBeInTheDocument();
+  });
+
   it('a right answer: said plainly, the usual working shown, no rule', () => {
     show('81 - 38', '43');
     expect(screen.getByText(/This answer is right/)).toBeInTheDocument();

@@ -1,4 +1,4 @@
-import type { Diagnosis } from '@workback/core';
+import { groupThousands, type Diagnosis } from '@workback/core';
 
 import { ruleTitle } from '../../types';
 import { ChecksSection } from './checks';
@@ -31,7 +31,8 @@ export function WorkingTrace({ diagnosis }: { diagnosis: Diagnosis }) {
     return (
       <section className="wb-trace" aria-label="Working trace">
         <p className="wb-trace-verdict">
-          This answer is right: <span className="wb-mono">{diagnosis.expected}</span>.
+          This answer is right:{' '}
+          <span className="wb-mono">{groupThousands(diagnosis.expected)}</span>.
         </p>
         {notes.map((note) => (
           <p key={note} className="wb-trace-note">
@@ -59,8 +60,9 @@ export function WorkingTrace({ diagnosis }: { diagnosis: Diagnosis }) {
   return (
     <section className="wb-trace" aria-label="Working trace">
       <p className="wb-trace-verdict">
-        The usual working gives <span className="wb-mono">{diagnosis.expected}</span>; the answer
-        written is <span className="wb-mono">{diagnosis.answer}</span>.
+        The usual working gives{' '}
+        <span className="wb-mono">{groupThousands(diagnosis.expected)}</span>; the answer written is{' '}
+        <span className="wb-mono">{diagnosis.answer}</span>.
       </p>
       <div className="wb-trace-panels">
         <figure className="wb-trace-panel is-child">
