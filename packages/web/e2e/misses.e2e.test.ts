@@ -39,6 +39,19 @@ describe('logging a miss on a phone', () => {
     await checkPage(page, 'log-miss-empty', PHONE);
 
     await page.getByLabel('Student').selectOption({ label: 'Wren' });
+    // The child's written working decides (issue 11 §1): 347 × 26 answered 8,922 with partials
+    // 2,082 and 6,840; 347 × 6 = 2,082 and 347 × 20 = 6,940 (worked by hand). The panel draws
+    // the partials beside the usual ones and marks the second, and blames no fact in the first.
+    await page.getByLabel('The problem').fill('347 x 26');
+    await page.getByLabel('The child’s answer').fill('8922');
+    await page.getByLabel('Partial products the child wrote (optional)').fill('2082, 6840');
+    const written = page.getByRole('table', { name: 'The partial products the child wrote' });
+    await written.waitFor();
+    const rows = written.locator('tbody tr');
+    expect(await rows.nth(0).innerText()).toMatch(/2082\s*2082\s*same/);
+    expect(await rows.nth(1).innerText()).toMatch(/6840\s*6940\s*the first that differs/);
+    expect(await page.locator('main').innerText()).not.toMatch(/3 × 6 taken as 17/);
+    await page.getByRole('textbox', { name: 'The child’s answer' }).fill('');
     await page.getByLabel('The problem').fill('27 + 16');
     await page.getByText('Read as 27 + 16 (addition).').waitFor();
     await page.getByLabel('The child’s answer').fill('61');

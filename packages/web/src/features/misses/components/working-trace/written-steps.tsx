@@ -31,8 +31,12 @@ export function WrittenSteps({ report }: { report: WrittenStepsReport }) {
               <tr key={s.label} className={first ? 'wb-written-first' : undefined}>
                 <th scope="row">{s.label}</th>
                 <td className="wb-mono">{s.work || '—'}</td>
-                <td className="wb-mono">{s.written || 'nothing'}</td>
-                <td className="wb-mono">{s.expected || 'none'}</td>
+                <td className="wb-mono" data-label="wrote">
+                  {s.written || 'nothing'}
+                </td>
+                <td className="wb-mono" data-label="usual">
+                  {s.expected || 'none'}
+                </td>
                 <td>
                   {s.ok ? 'same' : first ? 'the first that differs' : 'differs'}
                   {s.finding ? (
