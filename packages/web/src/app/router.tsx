@@ -9,6 +9,7 @@ import {
 
 import { PageSkeleton } from '../components/page-skeleton';
 import { paths } from '../config/paths';
+import { notebookLoader } from './routes/notebook-loader';
 import { HomeRedirect, protectedLoader, ProtectedRoute } from './routes/protected';
 import { RouteError } from './routes/route-error';
 
@@ -103,6 +104,7 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
             },
             {
               path: paths.app.notebook.path,
+              loader: notebookLoader(queryClient),
               lazy: lazyRoute(queryClient, () => import('./routes/notebook')),
             },
             {

@@ -1,29 +1,16 @@
 import { Classes } from '@blueprintjs/core';
-import type { QueryClient } from '@tanstack/react-query';
-import { Link, type LoaderFunctionArgs } from 'react-router-dom';
+import { Link } from 'react-router-dom';
 
 import { NoHouseholdCallout, seesChildren } from '../../components/no-household';
 import { ErrorState, LoadingState } from '../../components/states';
 import { paths } from '../../config/paths';
 import { useOffline } from '../../features/drafts/components/offline-banner';
 import { WaitingList } from '../../features/drafts/components/waiting-list';
-import { missesQueryOptions } from '../../features/misses/api/get-misses';
 import { Notebook } from '../../features/misses/components/notebook';
-import { filtersFromParams } from '../../features/misses/hooks/use-notebook-filters';
-import { studentsQueryOptions, useStudents } from '../../features/students/api/get-students';
-import { canEditHousehold, meQueryOptions, useSignedIn, type Me } from '../../lib/auth';
+import { useStudents } from '../../features/students/api/get-students';
+import { canEditHousehold, useSignedIn, type Me } from '../../lib/auth';
 
-export const clientLoader =
-  (queryClient: QueryClient) =>
-  async ({ request }: LoaderFunctionArgs) => {
-    const me = await queryClient.ensureQueryData(meQueryOptions()).catch(() => null);
-    if (me && seesChildren(me) && !me.offline) {
-      const filters = filtersFromParams(new URL(request.url).searchParams);
-      void queryClient.prefetchQuery(studentsQueryOptions());
-      void queryClient.prefetchQuery(missesQueryOptions(filters));
-    }
-    return null;
-  };
+// Its data is asked for by notebook-loader.ts, in the app's first file.
 
 /** With no connection: the misses are on the server, but what waits on the phone is here. */
 function OfflineNotebook({ canEdit, householdId }: { canEdit: boolean; householdId: number }) {
