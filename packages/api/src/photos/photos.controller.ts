@@ -7,12 +7,13 @@ import { IdParam } from '../common/decorators/id-param.decorator.js';
 import { Roles } from '../common/decorators/roles.decorator.js';
 import type { MemberContext } from '../common/member-context.js';
 import { SetMarksDto } from './dto/set-marks.dto.js';
-import { PhotosService, type PhotoFileKind } from './photos.service.js';
+import { PhotoFilesService } from './photo-files.service.js';
+import type { PhotoFileKind } from './photos.service.js';
 
 @ApiTags('photos')
 @Controller('photos')
 export class PhotosController {
-  constructor(private readonly photos: PhotosService) {}
+  constructor(private readonly photos: PhotoFilesService) {}
 
   @Get(':id/image')
   image(

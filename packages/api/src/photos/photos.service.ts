@@ -5,7 +5,6 @@ import {
   Inject,
   Injectable,
   Logger,
-  NotFoundException,
   PayloadTooLargeException,
 } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
@@ -15,20 +14,17 @@ import type { Sequelize } from 'sequelize-typescript';
 import sharp from 'sharp';
 import type { MemberContext } from '../common/member-context.js';
 import type { AppConfig } from '../config/app.config.js';
-import { missScope } from '../misses/miss-scope.js';
-import { Miss } from '../misses/models/miss.model.js';
 import { PHOTO_STORAGE, smallKeyOf, type PhotoStorage } from '../storage/photo-storage.js';
-import type { MarkDto } from './dto/set-marks.dto.js';
 import { DecodeSlots } from './decode-slots.js';
 import { PhotoMark } from './models/photo-mark.model.js';
 import { Photo } from './models/photo.model.js';
-import { PhotoPipeline, smallThumb, type ProcessedPhoto } from './photo-pipeline.service.js';
+import { PhotoPipeline, type ProcessedPhoto } from './photo-pipeline.service.js';
 
 /** Which file of a photo: the display image, the thumbnail, or the list rows' small square. */
 export type PhotoFileKind = 'image' | 'thumb' | 'small';
 
 /** Every file a photo row may own. */
-const keysOf = (p: Pick<Photo, 'storageKey' | 'thumbKey'>) => [
+export const keysOf = (p: Pick<Photo, 'storageKey' | 'thumbKey'>) => [
   p.storageKey,
   p.thumbKey,
   smallKeyOf(p.storageKey),
@@ -271,80 +267,8 @@ export class PhotosService {
     return orphans.length;
   }
 
-  /** A photo of a miss the member may see; 404 for anything else. */
-  async findModel(member: MemberContext, id: number, transaction?: Transaction): Promise<Photo> {
-    const photo = await this.photoModel.findOne({
-      where: { id },
-      include: [{ model: Miss, attributes: ['id'], where: missScope(member), required: true }],
-      transaction,
-    });
-    if (!photo) throw new NotFoundException(`No photo ${id} in this household`);
-    return photo;
-  }
-
-  async file(
-    member: MemberContext,
-    id: number,
-    which: PhotoFileKind,
-  ): Promise<{ data: Buffer; contentType: string }> {
-    const photo = await this.findModel(member, id);
-    if (which === 'small') return { data: await this.small(photo), contentType: 'image/jpeg' };
-    const data = await this.storage.read(which === 'image' ? photo.storageKey : photo.thumbKey);
-    return { data, contentType: photo.contentType };
-  }
-
-  /**
-   * The list rows' small square. A photo saved before squares were made gets its own on first
-   * request, cut from its thumbnail (already re-encoded, no metadata) and kept; two requests at
-   * once write the same bytes under the same key, so either may win.
-   */
-  private async small(photo: Photo): Promise<Buffer> {
-    const key = smallKeyOf(photo.storageKey);
-    try {
-      return await this.storage.read(key);
-    } catch (err) {
-      if ((err as NodeJS.ErrnoException).code !== 'ENOENT') throw err;
-    }
-    const { data } = await smallThumb(await this.storage.read(photo.thumbKey));
-    try {
-      await this.storage.put(key, data);
-    } catch (err) {
-      // Still shown: it is made again next time.
-      this.logger.warn(`could not keep photo file ${key}: ${(err as Error).message}`);
-    }
-    return data;
-  }
-
-  async setMarks(member: MemberContext, id: number, marks: readonly MarkDto[]): Promise<PhotoJson> {
-    const photo = await this.sequelize.transaction(async (transaction) => {
-      const found = await this.findModel(member, id, transaction);
-      await this.markModel.destroy({ where: { photoId: id }, transaction });
-      await this.markModel.bulkCreate(
-        marks.map((m) => ({
-          photoId: id,
-          x: m.x,
-          y: m.y,
-          label: m.label?.length ? m.label : null,
-          createdBy: member.userId,
-        })),
-        { transaction },
-      );
-      return found;
-    });
-    const saved = await this.marksByPhoto([id]);
-    return toPhotoJson(photo, saved.get(id) ?? []);
-  }
-
-  async remove(member: MemberContext, id: number): Promise<void> {
-    const keys = await this.sequelize.transaction(async (transaction) => {
-      const photo = await this.findModel(member, id, transaction);
-      await photo.destroy({ transaction });
-      return keysOf(photo);
-    });
-    await this.removeKeys(keys);
-  }
-
-  private async marksByPhoto(photoIds: readonly number[]): Promise<Map<number, MarkJson[]>> {
+  /** The marks drawn on these photos, by photo id. */
+  async marksByPhoto(photoIds: readonly number[]): Promise<Map<number, MarkJson[]>> {
     const map = new Map<number, MarkJson[]>();
     if (photoIds.length === 0) return map;
     const marks = await this.markModel.findAll({

@@ -3,6 +3,7 @@ import { formatTrace } from '@workback/core';
 import type { MemberContext } from '../common/member-context.js';
 import { fieldsError } from '../common/pipes/validation.pipe.js';
 import { MissesService } from '../misses/misses.service.js';
+import { PhotoFilesService } from '../photos/photo-files.service.js';
 import { PhotosService } from '../photos/photos.service.js';
 import { StudentsService } from '../students/students.service.js';
 import type { PortfolioQuery } from './dto/portfolio.query.js';
@@ -17,6 +18,7 @@ export class PortfolioService {
     private readonly students: StudentsService,
     private readonly misses: MissesService,
     private readonly photos: PhotosService,
+    private readonly photoFiles: PhotoFilesService,
   ) {}
 
   async pdf(member: MemberContext, studentId: number, query: PortfolioQuery) {
@@ -37,7 +39,7 @@ export class PortfolioService {
     for (const m of misses) {
       const files = [];
       for (const p of photos.get(m.id) ?? [])
-        files.push((await this.photos.file(member, p.id, 'image')).data);
+        files.push((await this.photoFiles.file(member, p.id, 'image')).data);
       const d = m.diagnosis;
       samples.push({
         occurredOn: m.occurredOn,

@@ -6,7 +6,7 @@ import type { MemberContext } from '../common/member-context.js';
 import { HouseholdsService } from '../households/households.service.js';
 import { MissesService } from '../misses/misses.service.js';
 import { NotesService } from '../notes/notes.service.js';
-import { PhotosService } from '../photos/photos.service.js';
+import { PhotoFilesService } from '../photos/photo-files.service.js';
 import { StudentsService } from '../students/students.service.js';
 import { UsersService } from '../users/users.service.js';
 import { drawWorking } from './handwriting.js';
@@ -45,7 +45,7 @@ export class DemoMissesSeeder {
     private readonly students: StudentsService,
     private readonly misses: MissesService,
     private readonly notes: NotesService,
-    private readonly photos: PhotosService,
+    private readonly photoFiles: PhotoFilesService,
   ) {}
 
   async seed(householdId: number, today = new Date()): Promise<number> {
@@ -87,7 +87,8 @@ export class DemoMissesSeeder {
           body: note.body,
         });
       }
-      if (m.pins && miss.photos[0]) await this.photos.setMarks(member, miss.photos[0].id, m.pins);
+      if (m.pins && miss.photos[0])
+        await this.photoFiles.setMarks(member, miss.photos[0].id, m.pins);
     }
     return misses.length;
   }
