@@ -78,15 +78,16 @@ function PlanWrittenSteps({ miss }: { miss: PlanMiss }) {
   return (
     <div className="wb-plan-lines">
       <p className="wb-muted">The {what} the child wrote, beside the usual ones:</p>
-      <ol className="wb-plan-line-list" aria-label={`The ${what} the child wrote`}>
+      <ul className="wb-plan-line-list" aria-label={`The ${what} the child wrote`}>
         {written.steps.map((s, i) => {
           const first = written.firstDiffers === i;
           return (
             <li
               key={s.label}
-              className={first ? 'wb-plan-line wb-plan-line-first' : 'wb-plan-line'}
+              className={
+                first ? 'wb-plan-line wb-plan-step wb-plan-line-first' : 'wb-plan-line wb-plan-step'
+              }
             >
-              <span className="wb-plan-line-number">{i + 1}.</span>
               <span>
                 {s.label}
                 {s.work ? ` (${s.work})` : ''}: wrote{' '}
@@ -97,7 +98,7 @@ function PlanWrittenSteps({ miss }: { miss: PlanMiss }) {
             </li>
           );
         })}
-      </ol>
+      </ul>
     </div>
   );
 }
