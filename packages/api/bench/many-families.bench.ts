@@ -371,16 +371,23 @@ function row(database: string, { rate, result, byKind }: RateResult) {
   };
 }
 
+/** Answers received; requests still waiting when the run ends are in no other count. */
+const answered = (r: RateResult) => [...r.byKind.values()].reduce((n, k) => n + k.times.length, 0);
+
 function figuresOf(database: string, results: RateResult[]): Figure[] {
+  // A rate is kept only if (nearly) all it offered was answered: a server too slow to answer
+  // at all has no slow answers and no errors either.
   const passes = (r: RateResult) =>
-    r.result.latency.p99 <= TARGET_P99_MS && r.result.errors + r.result.non2xx === 0;
+    r.result.latency.p99 <= TARGET_P99_MS &&
+    r.result.errors + r.result.non2xx === 0 &&
+    answered(r) >= 0.9 * r.rate * SECONDS;
   const best = Math.max(0, ...results.filter(passes).map((r) => r.rate));
   const at100 = results.find((r) => r.rate === 100);
   const area = `many families, ${database}`;
   return [
     {
       area,
-      measure: `highest offered req/s with p99 ≤ ${TARGET_P99_MS} ms and 0 errors`,
+      measure: `highest offered req/s with p99 ≤ ${TARGET_P99_MS} ms, 0 errors, ≥ 90% answered`,
       value: best ? `${best}` : `none of ${RATES.join(', ')}`,
       target: `≥ ${TARGET_RATE}`,
       met: best >= TARGET_RATE,
@@ -388,7 +395,11 @@ function figuresOf(database: string, results: RateResult[]): Figure[] {
     {
       area,
       measure: 'p99 at 100 req/s offered',
-      value: at100 ? `${at100.result.latency.p99} ms` : 'not run',
+      value: !at100
+        ? 'not run'
+        : answered(at100) === 0
+          ? 'no answers'
+          : `${at100.result.latency.p99} ms (${Math.round((100 * answered(at100)) / (100 * SECONDS))}% answered)`,
     },
   ];
 }
@@ -433,6 +444,25 @@ export async function benchManyFamilies(): Promise<void> {
         .join(', ')}`,
       rows,
     );
+  // The headline figures of both databases side by side (a skipped one says why).
+  const measures = [...new Set(figures.map((f) => f.measure))].filter((m) => m !== 'skipped');
+  const databases = ['SQLite', 'PostgreSQL'].filter((db) =>
+    figures.some((f) => f.area.endsWith(db)),
+  );
+  if (measures.length) {
+    table(
+      'many families, the two databases side by side',
+      measures.map((measure) => ({
+        measure,
+        ...Object.fromEntries(
+          databases.map((db) => {
+            const of = figures.filter((f) => f.area.endsWith(db));
+            return [db, of.find((f) => f.measure === measure)?.value ?? of[0]?.value ?? 'not run'];
+          }),
+        ),
+      })),
+    );
+  }
   report([
     ...figures,
     {
