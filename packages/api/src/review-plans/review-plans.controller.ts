@@ -26,6 +26,7 @@ import { ListReviewPlansQuery } from './dto/list-review-plans.query.js';
 import { SendReviewPlanDto } from './dto/send-review-plan.dto.js';
 import { UpdateReviewPlanDto } from './dto/update-review-plan.dto.js';
 import { ReviewPlanExportsService } from './review-plan-exports.service.js';
+import { ReviewPlanMakingService } from './review-plan-making.service.js';
 import { ReviewPlansService } from './review-plans.service.js';
 
 /** Owners, parents and granted tutors build and check off plans; only parents e-mail them. */
@@ -36,6 +37,7 @@ export class ReviewPlansController {
 
   constructor(
     private readonly plans: ReviewPlansService,
+    private readonly making: ReviewPlanMakingService,
     private readonly exports: ReviewPlanExportsService,
     config: ConfigService,
   ) {
@@ -49,7 +51,7 @@ export class ReviewPlansController {
 
   @Post()
   create(@CurrentMember() member: MemberContext, @Body() dto: CreateReviewPlanDto) {
-    return this.plans.create(member, dto);
+    return this.making.create(member, dto);
   }
 
   @Get(':id')

@@ -13,6 +13,7 @@ import { ReviewPlan } from './models/review-plan.model.js';
 import { PlanPdfCache } from './plan-pdf-cache.js';
 import { ReviewPlanExportsService } from './review-plan-exports.service.js';
 import { ReviewPlansController } from './review-plans.controller.js';
+import { ReviewPlanMakingService } from './review-plan-making.service.js';
 import { ReviewPlansService } from './review-plans.service.js';
 
 @Module({
@@ -27,7 +28,7 @@ import { ReviewPlansService } from './review-plans.service.js';
     MailModule,
   ],
   controllers: [ReviewPlansController],
-  providers: [ReviewPlansService, ReviewPlanExportsService, PlanPdfCache],
-  exports: [ReviewPlansService],
+  providers: [ReviewPlansService, ReviewPlanMakingService, ReviewPlanExportsService, PlanPdfCache],
+  exports: [ReviewPlansService, ReviewPlanMakingService],
 })
 export class ReviewPlansModule {}

@@ -1,12 +1,8 @@
-import { Injectable, NotFoundException, UnprocessableEntityException } from '@nestjs/common';
+import { Injectable, NotFoundException } from '@nestjs/common';
 import { InjectConnection, InjectModel } from '@nestjs/sequelize';
 import {
-  buildReviewPlan,
   chooseFocus,
-  formatTrace,
   lessonTitle,
-  lineVerdict,
-  ruleName,
   MissStatus,
   type FactFamilyDrill,
   type LessonRange,
@@ -21,19 +17,15 @@ import { AnswerKeysService } from '../answer-keys/answer-keys.service.js';
 import { CurriculumService } from '../curriculum/curriculum.service.js';
 import { MissesService } from '../misses/misses.service.js';
 import { StudentsService } from '../students/students.service.js';
-import type { CreateReviewPlanDto } from './dto/create-review-plan.dto.js';
 import type { ListReviewPlansQuery } from './dto/list-review-plans.query.js';
 import type { UpdateReviewPlanDto } from './dto/update-review-plan.dto.js';
 import { ReviewPlanItemMiss } from './models/review-plan-item-miss.model.js';
 import { ReviewPlanItem } from './models/review-plan-item.model.js';
 import { ReviewPlan } from './models/review-plan.model.js';
-import { toPlanMiss, type MissWithDiagnosis } from './plan-miss.js';
+import { toPlanMiss } from './plan-miss.js';
+import { sameDayWarning, toPlanMissJson, toPlanSummary } from './review-plan-json.js';
 
-export const SAME_DAY_WARNING =
-  'The review falls on the same day as work it reviews; review works better on a calmer, separate day.';
-
-const OPEN: MissStatus[] = [MissStatus.logged, MissStatus.discussed];
-
+/** Review plans read (list, one plan with its checklist, coverage for patterns) and checked off. */
 @Injectable()
 export class ReviewPlansService {
   constructor(
@@ -48,7 +40,7 @@ export class ReviewPlansService {
   ) {}
 
   /** Lesson titles from the courses of the misses' keys (or the household's only course). */
-  private async lessonTitlesFor(
+  async lessonTitlesFor(
     member: MemberContext,
     misses: readonly { keyItemId: number | null }[],
     transaction?: Transaction,
@@ -63,69 +55,6 @@ export class ReviewPlansService {
     return member.studentIds === null
       ? { householdId: member.householdId }
       : { householdId: member.householdId, studentId: { [Op.in]: member.studentIds } };
-  }
-
-  /**
-   * Builds and saves a plan in one transaction: the plan row first (its id seeds the
-   * practice problems), then the checklist and its links, then the misses move to planned.
-   */
-  async create(member: MemberContext, dto: CreateReviewPlanDto) {
-    const student = await this.students.findModel(member, dto.studentId);
-    const id = await this.sequelize.transaction(async (transaction) => {
-      const chosen = await this.chooseMisses(member, student.id, dto.missIds, transaction);
-      const plan = await this.planModel.create(
-        {
-          householdId: member.householdId,
-          studentId: student.id,
-          scheduledFor: dto.scheduledFor,
-          status: 'open',
-          covers: [],
-          lessonsText: '',
-          notes: [],
-          createdBy: member.userId,
-        },
-        { transaction },
-      );
-      const draft = buildReviewPlan(chosen.map(toPlanMiss), {
-        planId: plan.id,
-        lessonTitles: await this.lessonTitlesFor(member, chosen, transaction),
-      });
-      if (draft.items.length === 0)
-        throw fieldsError({
-          missIds: 'every chosen miss is right by the checker: there is nothing to re-work',
-        });
-      await plan.update(
-        { covers: draft.covers, lessonsText: draft.lessons.text, notes: draft.notes },
-        { transaction },
-      );
-      const items = await this.itemModel.bulkCreate(
-        draft.items.map((item, position) => ({
-          planId: plan.id,
-          position,
-          kind: item.kind,
-          key: item.key,
-          title: item.title.slice(0, 300),
-          payload: item.payload,
-          done: false,
-        })),
-        { transaction },
-      );
-      await this.linkModel.bulkCreate(
-        draft.items.flatMap((item, i) =>
-          item.missIds.map((missId) => ({ itemId: items[i]!.id, missId })),
-        ),
-        { transaction },
-      );
-      const leftOut = new Set(draft.leftOut);
-      await this.misses.setStatus(
-        member,
-        chosen.filter((m) => !leftOut.has(m.id)).map((m) => m.id),
-        MissStatus.planned,
-        transaction,
-      );
-      return plan.id;
-    });
-    return this.findOne(member, id);
   }
 
   async findAll(member: MemberContext, query: ListReviewPlansQuery) {
@@ -321,62 +250,8 @@ export class ReviewPlansService {
     return plans.map((p) => ({ id: p.id, scheduledFor: p.scheduledFor, covers: p.covers }));
   }
 
-  private async chooseMisses(
-    member: MemberContext,
-    studentId: number,
-    missIds: readonly number[] | undefined,
-    transaction: Transaction,
-  ): Promise<MissWithDiagnosis[]> {
-    if (missIds !== undefined) {
-      const found = await this.misses.withDiagnoses(
-        member,
-        { studentId, ids: missIds },
-        transaction,
-      );
-      const have = new Set(found.map((m) => m.id));
-      const errors: Record<string, string> = {};
-      for (const [index, missId] of missIds.entries()) {
-        if (have.has(missId)) continue;
-        // Not the member's to see at all: 404. Theirs, but another student's: name the field.
-        await this.misses.findModel(member, missId, transaction);
-        errors[`missIds.${index}`] = `miss ${missId} is another student’s`;
-      }
-      if (Object.keys(errors).length) throw fieldsError(errors);
-      return found;
-    }
-    const last = await this.planModel.findOne({
-      where: { [Op.and]: [this.scope(member), { studentId }] },
-      order: [
-        ['createdAt', 'DESC'],
-        ['id', 'DESC'],
-      ],
-      transaction,
-    });
-    const onLast = last ? await this.missIdsOf(last.id, transaction) : new Set<number>();
-    const open = (
-      await this.misses.withDiagnoses(member, { studentId, statuses: OPEN }, transaction)
-    ).filter((m) => !onLast.has(m.id));
-    if (open.length === 0)
-      throw new UnprocessableEntityException(
-        'There are no open misses since the last plan: choose the misses to review with missIds',
-      );
-    return open;
-  }
-
-  private async missIdsOf(planId: number, transaction?: Transaction): Promise<Set<number>> {
-    const items = await this.itemModel.findAll({
-      where: { planId },
-      attributes: ['id'],
-      transaction,
-    });
-    const links = await this.linksOf(
-      items.map((i) => i.id),
-      transaction,
-    );
-    return new Set([...links.values()].flat());
-  }
-
-  private async linksOf(
+  /** The misses each checklist item covers, by item id. */
+  async linksOf(
     itemIds: readonly number[],
     transaction?: Transaction,
   ): Promise<Map<number, number[]>> {
@@ -393,85 +268,3 @@ export class ReviewPlansService {
 }
 
 export type ReviewPlanJson = Awaited<ReturnType<ReviewPlansService['findOne']>>;
-
-function toPlanSummary(p: ReviewPlan) {
-  return {
-    id: p.id,
-    studentId: p.studentId,
-    scheduledFor: p.scheduledFor,
-    status: p.status,
-    lessonsText: p.lessonsText,
-    createdBy: p.createdBy,
-    createdAt: p.createdAt,
-    updatedAt: p.updatedAt,
-  };
-}
-
-/** A miss on a plan, with its working drawn as plain lines for print. */
-function toPlanMissJson(m: MissWithDiagnosis) {
-  const d = m.diagnosis;
-  return {
-    id: m.id,
-    occurredOn: m.occurredOn,
-    problem: m.problem,
-    answer: m.answer,
-    expected: m.expected,
-    explanation: m.explanation,
-    cause: m.cause,
-    status: m.status,
-    ruleIds: m.ruleIds,
-    firstWrongStep: d?.firstWrongStep ?? null,
-    ruleExplanation: d?.rules[0]?.explanation ?? null,
-    ruleName: d?.rules[0] ? ruleName(d.rules[0].id) : null,
-    steps: m.steps,
-    ...planLines(m),
-    writtenSteps: d?.writtenSteps ?? null,
-    trace: d ? { expected: d.trace.expected, child: d.trace.child?.working ?? null } : null,
-    working: d
-      ? {
-          expected: formatTrace(d.trace.expected),
-          child: d.trace.child ? formatTrace(d.trace.child.working) : null,
-        }
-      : null,
-  };
-}
-
-/**
- * A word problem's number sentences as the plan shows, prints and exports them: each line with
- * its verdict (`lineVerdict`), the first wrong line, and the interview stage. Lines saved
- * without a check (the engine failed) are listed as written, without verdicts.
- */
-function planLines(m: MissWithDiagnosis) {
-  const check = m.linesCheck?.ok ? m.linesCheck : null;
-  const lines = check
-    ? check.lines.map((l) => ({
-        line: l.line,
-        text: l.text,
-        ok: l.ok as boolean | null,
-        written: l.written,
-        expected: l.expected as string | null,
-        followsFrom: l.followsFrom,
-        verdict: lineVerdict(l, check.firstWrongLine) as string | null,
-      }))
-    : (m.lines ?? []).map((text, i) => ({
-        line: i + 1,
-        text,
-        ok: null,
-        written: '',
-        expected: null,
-        followsFrom: null,
-        verdict: null,
-      }));
-  return {
-    lines: lines.length > 0 ? lines : null,
-    firstWrongLine: check?.firstWrongLine ?? null,
-    stage: m.stage,
-  };
-}
-
-function sameDayWarning(scheduledFor: string, misses: readonly { occurredOn: string }[]) {
-  const dates = [...new Set(misses.map((m) => m.occurredOn))].filter((d) => d === scheduledFor);
-  return dates.length === 0
-    ? null
-    : { code: 'same-day' as const, message: SAME_DAY_WARNING, dates };
-}

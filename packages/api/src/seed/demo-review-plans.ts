@@ -2,6 +2,7 @@ import { readFile } from 'node:fs/promises';
 import { Injectable } from '@nestjs/common';
 import type { MemberContext } from '../common/member-context.js';
 import { MissesService } from '../misses/misses.service.js';
+import { ReviewPlanMakingService } from '../review-plans/review-plan-making.service.js';
 import { ReviewPlansService } from '../review-plans/review-plans.service.js';
 import { StudentsService } from '../students/students.service.js';
 
@@ -26,6 +27,7 @@ export class DemoReviewPlansSeeder {
     private readonly students: StudentsService,
     private readonly misses: MissesService,
     private readonly plans: ReviewPlansService,
+    private readonly making: ReviewPlanMakingService,
   ) {}
 
   async seed(owner: MemberContext, today = new Date()): Promise<number> {
@@ -43,7 +45,7 @@ export class DemoReviewPlansSeeder {
         to: day(p.missesToDaysAgo),
       });
       if (chosen.length === 0) continue;
-      const plan = await this.plans.create(owner, {
+      const plan = await this.making.create(owner, {
         studentId,
         scheduledFor: day(p.scheduledDaysAgo),
         missIds: chosen.map((m) => m.id),
