@@ -15,7 +15,8 @@ import {
 import { kindText } from './word-problem';
 
 const ROW_HEIGHT = 56;
-const WIDTHS = [64, 96, 104, 160, 76, 150, 100, 160, 110];
+// Photo, student, date, problem, answer, kind, cause, step error, status: 918 px, as before the kind.
+const WIDTHS = [64, 76, 100, 136, 60, 120, 104, 140, 118];
 
 /** The misses as a table (wide screens); a click anywhere on a row opens the miss. */
 export function NotebookTable({
@@ -95,20 +96,30 @@ export function NotebookTable({
       cellRenderer={(row) => cell(row, misses[row]?.answer, 'wb-mono wb-pencil')}
     />,
     <Column
-      key="cause"
-      name="Cause"
-      cellRenderer={(row) => {
-        const miss = misses[row];
-        return cell(row, miss ? causeLabel(miss.cause) : '');
-      }}
-    />,
-    <Column
       key="kind"
       name="Kind"
       cellRenderer={(row) => {
         const miss = misses[row];
         const text = miss ? kindText(miss.kind, miss.stage) : '';
-        return cell(row, text, undefined, text);
+        // A word problem's stage on a second line, so the cell stays narrow.
+        const [kind, stage] = text.split(': ');
+        return cell(
+          row,
+          <span className="wb-kind-cell">
+            <span>{kind}</span>
+            {stage ? <span className="wb-muted">{stage}</span> : null}
+          </span>,
+          undefined,
+          text,
+        );
+      }}
+    />,
+    <Column
+      key="cause"
+      name="Cause"
+      cellRenderer={(row) => {
+        const miss = misses[row];
+        return cell(row, miss ? causeLabel(miss.cause) : '');
       }}
     />,
     <Column
