@@ -16,7 +16,7 @@ import { kindText } from './word-problem';
 
 const ROW_HEIGHT = 56;
 // Photo, student, date, problem, answer, kind, cause, step error, status: 918 px, as before the kind.
-const WIDTHS = [64, 76, 100, 136, 60, 120, 104, 140, 118];
+const WIDTHS = [64, 76, 104, 136, 68, 112, 104, 136, 118];
 
 /** The misses as a table (wide screens); a click anywhere on a row opens the miss. */
 export function NotebookTable({
