@@ -42,9 +42,9 @@ function parsed(pkg: string, file: string): fontkit.Font {
  * pdfkit shapes every word it measures or writes (fontkit's OpenType layout, most of a PDF's
  * time) and keeps the result per document and face (`layoutCache`, word → glyph run). The runs
  * depend only on the face and the word, so one table per face serves every document; it is
- * started afresh past LAYOUT_WORDS words, which bounds its memory.
+ * started afresh past LAYOUT_WORDS words (a few hundred bytes each), which bounds its memory.
  */
-const LAYOUT_WORDS = 20_000;
+const LAYOUT_WORDS = 5_000;
 const layouts = new Map<Face, { words: Record<string, unknown>; documents: number }>();
 
 function sharedLayouts(face: Face): Record<string, unknown> {
