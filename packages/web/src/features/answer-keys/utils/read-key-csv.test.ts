@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 
+import { revisitProblem } from './lists';
 import { problemsFromFields, readKeyCsv } from './read-key-csv';
 
 // The key CSV rules are core's (packages/core/src/keys/readKeyCsv.test.ts); the API's
@@ -53,5 +54,13 @@ describe('problemsFromFields', () => {
       { line: 2, field: 'answer', message: 'answer is missing (1 to 80 characters)' },
       { line: 6, field: 'revisit', message: 'lesson 40 is not in “Number Trail”' },
     ]);
+  });
+});
+
+describe('revisitProblem', () => {
+  it('checks typed lessons with the rule the import uses, as a sentence', () => {
+    expect(revisitProblem('12; 31 – 33')).toBeNull();
+    expect(revisitProblem('12; 7-5')).toBe('Range “7-5” runs backwards; write 5-7.');
+    expect(revisitProblem('1-80')).toBe('Range “1-80” spans more than 60 lessons.');
   });
 });
