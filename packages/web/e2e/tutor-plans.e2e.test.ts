@@ -129,11 +129,22 @@ describe('a tutor joins, reads the patterns and notes on one; the parent sends a
     const sentence = await first.locator('.wb-recurring-sentence').innerText();
     expect(sentence.length).toBeGreaterThan(20);
     const toMisses = first.getByRole('link', { name: /See all \d+ in the notebook/ });
-    await toMisses.click();
-    await tutor.page.waitForURL(/\/notebook\?student=\d+&(rule|skill)=/);
-    await tutor.page.getByRole('heading', { name: 'Notebook', exact: true }).waitFor();
-    await expect.poll(() => tutor.page.getByText(/\b\d+ miss/).count()).toBeGreaterThan(0);
-    await capture(tutor.page, 'patterns-to-notebook');
+    if ((await toMisses.count()) > 0) {
+      await toMisses.click();
+      await tutor.page.waitForURL(/\/notebook\?student=\d+&(rule|skill)=/);
+      await tutor.page.getByRole('heading', { name: 'Notebook', exact: true }).waitFor();
+      await expect.poll(() => tutor.page.getByText(/\b\d+ miss/).count()).toBeGreaterThan(0);
+      await capture(tutor.page, 'patterns-to-notebook');
+    } else {
+      // Journeys that ran before on this server (a check-up, the sample key's sitting) may give
+      // the card a second skill; the notebook filters by one, so the card opens each problem.
+      await first.getByText(/^and \d+ more$/).click();
+      await first
+        .getByRole('link', { name: /\d+ [−-] \d+/ })
+        .first()
+        .click();
+      await tutor.page.waitForURL(/\/misses\/\d+$/);
+    }
     await tutor.page.goBack();
     await recurring.waitFor();
     const again = recurring.locator('> li').filter({ hasText: sentence }).first();
@@ -164,7 +175,8 @@ describe('a tutor joins, reads the patterns and notes on one; the parent sends a
 
     const itemBox = owner.page.locator('.wb-plan-item').first().getByRole('checkbox');
     await owner.page.locator('.wb-plan-item').first().locator('label').click();
-    await expect.poll(() => itemBox.isChecked()).toBe(true);
+    // The tick is saved first; a loaded machine can take longer than the poll's default 1 s.
+    await expect.poll(() => itemBox.isChecked(), { timeout: 15_000 }).toBe(true);
     await owner.page.getByText(/^1 of \d+ done/).waitFor();
 
     const [pdf] = await Promise.all([
