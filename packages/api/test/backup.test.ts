@@ -39,10 +39,15 @@ describe('backup and restore', () => {
         written += 1;
       }
     })();
-    await new Promise((r) => setTimeout(r, 150));
+    // Writes land before and after the copy, however slowly a loaded machine answers them.
+    const until = async (done: () => boolean) => {
+      while (!done()) await new Promise((r) => setTimeout(r, 20));
+    };
+    await until(() => written >= 2);
     const archive = path.join(scratch, 'backup.tar.gz');
     const result = await createBackup(t.dataDir, archive);
-    await new Promise((r) => setTimeout(r, 150));
+    const atCopy = written;
+    await until(() => written >= atCopy + 2);
     writing = false;
     await writer;
     expect(result.bytes).toBeGreaterThan(0);
