@@ -199,6 +199,33 @@ describe('GET /api/misses filters', () => {
     expect(await ids('q=quokka')).toEqual([]);
   });
 
+  it('finds a miss by the words of its skills, any case, only in the household', async () => {
+    const zeros = await parent
+      .post('/api/misses', {
+        studentId: ada,
+        occurredOn: '2025-02-03',
+        problem: '1300 - 522',
+        answer: '888',
+        explanation: 'the middle was hard',
+        cause: 'concept',
+        skills: ['subtraction', 'regrouping across zeros'],
+      })
+      .expect(201);
+    // The demo household's misses carry the same skill; the search stays in this household.
+    const demo = await signedIn(t, DEMO.owner);
+    const theirs = await demo.get('/api/misses?pageSize=100&q=regrouping%20across%20zeros');
+    expect(theirs.body.items.length).toBeGreaterThan(0);
+    expect(theirs.body.items.map((m: { id: number }) => m.id)).not.toContain(zeros.body.id);
+    expect(await ids('q=Regrouping%20across%20ZEROS')).toEqual([zeros.body.id]);
+    expect(await ids('q=cross')).toEqual([zeros.body.id]); // inside a word, past the trigram index
+    expect(await ids('q=gamma')).toEqual(idsWhere((m) => m.skills.includes('skill.gamma')));
+    // Each skill is compared, not the array's JSON: its quotes and commas match nothing.
+    expect(await ids(`q=${encodeURIComponent('","')}`)).toEqual([]);
+    expect(await ids(`q=${encodeURIComponent('zeros"]')}`)).toEqual([]);
+    await parent.send('delete', `/api/misses/${zeros.body.id}`).expect(204);
+    expect(await ids('q=across%20zeros')).toEqual([]);
+  });
+
   it('rebuilds the text search from the misses when migration 0014 runs on a filled database', async () => {
     const qi = t.app.get<Sequelize>(getConnectionToken()).getQueryInterface();
     const before = await ids('q=carried');

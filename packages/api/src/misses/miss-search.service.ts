@@ -112,11 +112,15 @@ export class MissSearchService {
     }
     const text = q.q?.trim();
     if (text) {
-      and.push(
-        postgres
-          ? likeCondition('ILIKE', text, param)
-          : textCondition(text, member.householdId, param),
-      );
+      // The words may be the problem's, the explanation's or a skill's (the key CSV's words).
+      and.push({
+        [Op.or]: [
+          postgres
+            ? likeCondition('ILIKE', text, param)
+            : textCondition(text, member.householdId, param),
+          skillsCondition(postgres, text, param),
+        ],
+      } as WhereOptions<Miss>);
     }
     return { where: { [Op.and]: and }, bind };
   }
@@ -150,10 +154,31 @@ function textCondition(text: string, householdId: number, param: Param): WhereOp
  * PostgreSQL ILIKE uses the pg_trgm indexes of migration 0006 from three characters on.
  */
 function likeCondition(operator: 'LIKE' | 'ILIKE', text: string, param: Param): WhereOptions<Miss> {
-  const pattern = param('pattern', `%${text.replace(/[\\%_]/g, (c) => `\\${c}`)}%`);
+  const pattern = likePattern(text, param);
   return literal(
     `("Miss"."problem" ${operator} ${pattern} ESCAPE '\\' OR "Miss"."explanation" ${operator} ${pattern} ESCAPE '\\')`,
   ) as unknown as WhereOptions<Miss>;
+}
+
+/**
+ * A skill of the miss containing `text`, any case. `skills` is a JSON array in a text column; each
+ * element is compared, not the JSON text, so quotes and commas of the array never match. It is
+ * checked on the rows the other conditions keep, which are the household's.
+ */
+function skillsCondition(postgres: boolean, text: string, param: Param): WhereOptions<Miss> {
+  const pattern = likePattern(text, param);
+  const elements = postgres
+    ? `jsonb_array_elements_text("Miss"."skills"::jsonb) AS skill(value)`
+    : `json_each("Miss"."skills") AS skill`;
+  const operator = postgres ? 'ILIKE' : 'LIKE';
+  return literal(
+    `EXISTS (SELECT 1 FROM ${elements} WHERE skill.value ${operator} ${pattern} ESCAPE '\\')`,
+  ) as unknown as WhereOptions<Miss>;
+}
+
+/** `%text%` as a bound (I)LIKE pattern, its own `\`, `%` and `_` taken literally. */
+function likePattern(text: string, param: Param): string {
+  return param('pattern', `%${text.replace(/[\\%_]/g, (c) => `\\${c}`)}%`);
 }
 
 const SORT_COLUMNS: Record<string, string> = {
