@@ -10,12 +10,14 @@ import {
   Query,
   Res,
   UploadedFiles,
+  UseInterceptors,
 } from '@nestjs/common';
 import { ApiHeader, ApiTags } from '@nestjs/swagger';
 import { Role } from '@workback/core';
 import type { Response } from 'express';
 import { CurrentMember } from '../common/decorators/current-member.decorator.js';
 import { IdParam } from '../common/decorators/id-param.decorator.js';
+import { JsonOnceInterceptor } from '../common/interceptors/json-once.interceptor.js';
 import { Roles } from '../common/decorators/roles.decorator.js';
 import type { MemberContext } from '../common/member-context.js';
 import { fieldsError } from '../common/pipes/validation.pipe.js';
@@ -40,6 +42,8 @@ export class MissesController {
   ) {}
 
   @Get()
+  // Pages are kept between reads (PageCache): each is written as JSON once, not per request.
+  @UseInterceptors(JsonOnceInterceptor)
   findAll(@CurrentMember() member: MemberContext, @Query() query: ListMissesQuery) {
     return this.search.findAll(member, query);
   }
