@@ -1,6 +1,6 @@
 import { readFileSync } from 'node:fs';
 import { getConnectionToken } from '@nestjs/sequelize';
-import { CAUSES, MISS_STATUSES } from '@workback/core';
+import { CAUSES, MISS_STATUSES, RULE_GROUPS } from '@workback/core';
 import type { Sequelize } from 'sequelize-typescript';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import * as search0014 from '../src/database/migrations/0014-miss-search-by-household.js';
@@ -32,12 +32,16 @@ let seeded: Seeded[];
 let ada: number;
 let bo: number;
 
+// sub.borrow-from-zero: 1300 − 522 written 878, the 0 made a 9 (the rule catalog's own example).
+const ZERO_FAMILY = RULE_GROUPS[0]!.ruleIds;
+
 const PROBLEMS: [string, string][] = [
   ['304 - 75', '139'],
   ['81 - 38', '57'],
   ['58 + 67', '115'],
   ['A jar holds 50% more beans than a cup. How many?', '12'],
   ['46 + 38', '74'],
+  ['1300 - 522', '878'],
 ];
 
 beforeAll(async () => {
@@ -90,6 +94,11 @@ describe('GET /api/misses filters', () => {
       'rule',
       () => 'rule=sub.borrow-across-zero',
       (m: Seeded) => m.ruleIds.some((r) => r.split('+').includes('sub.borrow-across-zero')),
+    ],
+    [
+      'a family of rules (a Patterns card’s)',
+      () => 'rule=group:zero-regrouping',
+      (m: Seeded) => m.ruleIds.some((r) => r.split('+').some((id) => ZERO_FAMILY.includes(id))),
     ],
     ['skill', () => 'skill=skill.gamma', (m: Seeded) => m.skills.includes('skill.gamma')],
     [
@@ -241,6 +250,9 @@ describe('GET /api/misses filters', () => {
     // 304 − 75 written 139: BORROW-ACROSS-ZERO (Brown & Burton 1978; from memory).
     const borrow = seeded.filter((m) => m.problem === '304 - 75');
     expect(borrow.every((m) => m.ruleIds[0] === 'sub.borrow-across-zero')).toBe(true);
+    // So the family filter above gathers two of the family's rules.
+    const fromZero = seeded.filter((m) => m.problem === '1300 - 522');
+    expect(fromZero.map((m) => m.ruleIds[0])).toEqual(fromZero.map(() => 'sub.borrow-from-zero'));
   });
 
   it('gives list rows without the full diagnosis, with the thumbnail photo id', async () => {

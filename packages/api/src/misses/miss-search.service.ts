@@ -2,6 +2,7 @@ import { Injectable } from '@nestjs/common';
 import { InjectConnection, InjectModel } from '@nestjs/sequelize';
 import { literal, Op, type CountOptions, type Order, type WhereOptions } from 'sequelize';
 import type { Sequelize } from 'sequelize-typescript';
+import { RULE_GROUPS } from '@workback/core';
 import type { MemberContext } from '../common/member-context.js';
 import { fieldsError } from '../common/pipes/validation.pipe.js';
 import { PhotosService } from '../photos/photos.service.js';
@@ -90,10 +91,15 @@ export class MissSearchService {
       return `$${name}`;
     };
     if (q.rule) {
+      // `group:zero-regrouping` is the family of related rules a Patterns card gathers.
+      const family = RULE_GROUPS.find((g) => `group:${g.group}` === q.rule);
+      const rules = (family ? family.ruleIds : [q.rule])
+        .map((id, i) => param(`rule${i}`, id))
+        .join(', ');
       and.push({
         id: {
           [Op.in]: literal(
-            `(SELECT miss_id FROM miss_rules WHERE household_id = ${param('household', member.householdId)} AND rule_id = ${param('rule', q.rule)})`,
+            `(SELECT miss_id FROM miss_rules WHERE household_id = ${param('household', member.householdId)} AND rule_id IN (${rules}))`,
           ),
         },
       });

@@ -67,7 +67,10 @@ export class ListMissesQuery extends PageQuery {
   @IsIn(INTERVIEW_STAGES, { message: `stage must be one of ${INTERVIEW_STAGES.join(', ')}` })
   stage?: InterviewStage;
 
-  @ApiPropertyOptional({ example: 'sub.borrow-across-zero' })
+  @ApiPropertyOptional({
+    example: 'sub.borrow-across-zero',
+    description: 'A step-error rule, or a family of related rules (group:zero-regrouping)',
+  })
   @IsOptional()
   @IsString()
   @MaxLength(80)

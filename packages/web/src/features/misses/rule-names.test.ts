@@ -11,6 +11,10 @@ describe('the notebook’s rule column', () => {
     );
     expect(shownRule(ids, 'add.no-carry')).toBe('sub.smaller-from-larger');
     expect(shownRule([], 'add.no-carry')).toBeUndefined();
+    // A family of rules (a Patterns card's link) names the family's rule the miss has.
+    expect(shownRule(ids, 'group:zero-regrouping')).toBe(
+      'sub.borrow-no-decrement+sub.zero-minus-n-is-n',
+    );
   });
 
   it('gives each rule a unique name, adding the operation where titles repeat', () => {

@@ -1,6 +1,7 @@
 import {
   CAUSE_GUIDE,
   MISS_STATUS_LABEL,
+  RULE_GROUPS,
   ruleName,
   type Cause,
   type CheckedLines,
@@ -146,14 +147,18 @@ export function ruleTitle(id: string): string {
 
 /**
  * The rule a notebook row names: the one the list is filtered by when the miss has it (alone
- * or in a pair), else its best-ranked rule. So a filtered list never names another rule.
+ * or in a pair; for a family, `group:zero-regrouping`, one of the family's), else its
+ * best-ranked rule. So a filtered list never names another rule.
  */
 export function shownRule(
   ruleIds: readonly string[],
   filterRule: string | null,
 ): string | undefined {
   if (filterRule) {
-    const hit = ruleIds.find((id) => id === filterRule || id.split('+').includes(filterRule));
+    const wanted = RULE_GROUPS.find((g) => `group:${g.group}` === filterRule)?.ruleIds ?? [
+      filterRule,
+    ];
+    const hit = ruleIds.find((id) => id.split('+').some((r) => wanted.includes(r)));
     if (hit) return hit;
   }
   return ruleIds[0];

@@ -7,6 +7,7 @@ import {
   MISS_KIND_LABEL,
   MISS_KINDS,
   MISS_STATUSES,
+  RULE_GROUPS,
   RULES,
   ruleName,
 } from '@workback/core';
@@ -193,6 +194,10 @@ export function NotebookFilters({
             options={[
               { value: '', label: 'Any step error' },
               ...RULES.map((r) => ({ value: r.id, label: ruleName(r.id) })),
+              ...RULE_GROUPS.map((g) => ({
+                value: `group:${g.group}`,
+                label: `${g.title}: any of its ${g.ruleIds.length} step errors`,
+              })),
             ]}
             onChange={(rule) => set({ rule })}
           />

@@ -27,12 +27,19 @@ const REVIEW: Readonly<Record<'not-reviewed' | 'faded' | 'seen-again', string>> 
 
 const SHOWN = 4;
 
-/** Where “see them all” leads: the notebook filtered by the card's rule or skill, when it has one. */
+/**
+ * Where “see them all” leads: the notebook filtered by the card's rule, by its family of rules
+ * (`rule=group:zero-regrouping`, however many rules and skills its misses carry), or by its
+ * skill. A fact family has no notebook filter: its card unfolds the rest in place.
+ */
 function allHref(card: Card, p: PatternsResult): string | null {
   const base = { studentId: p.studentId, from: p.from, to: p.to };
-  if (card.ruleIds.length === 1) return notebookHref({ ...base, rule: card.ruleIds[0] });
-  if (card.kind === 'skill' || (card.kind === 'method' && card.skills.length === 1))
-    return card.skills[0] ? notebookHref({ ...base, skill: card.skills[0] }) : null;
+  if (card.kind === 'method') {
+    const rule = card.key.startsWith('group:') ? card.key : card.ruleIds[0];
+    return rule ? notebookHref({ ...base, rule }) : null;
+  }
+  if (card.kind === 'skill' && card.skills[0])
+    return notebookHref({ ...base, skill: card.skills[0] });
   return null;
 }
 

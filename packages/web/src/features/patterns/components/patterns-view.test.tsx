@@ -127,8 +127,9 @@ function patternsFor(studentId: number, from: string) {
         status: 'finding',
         sentence:
           'Finding: “Zeros skipped when regrouping” reproduces 4 answers exactly, and no answer the child got right goes against it. 4 misses in all.',
-        ruleIds: ['sub.borrow-across-zero'],
-        skills: ['regrouping across zeros'],
+        // Two rules of the family and two skills: its link lists the family's misses.
+        ruleIds: ['sub.borrow-across-zero', 'sub.borrow-from-zero'],
+        skills: ['regrouping across zeros', 'subtraction'],
         patternKeys: ['rule:sub.borrow-across-zero', 'skill:regrouping across zeros'],
         count: 5,
         evidence: [
@@ -239,7 +240,7 @@ describe('Patterns page', () => {
       within(cards[0]!).getByRole('heading', { name: 'Regrouping across zeros' }),
     ).toBeInTheDocument();
     expect(within(cards[0]!).getByText('Finding')).toBeInTheDocument();
-    expect(cards[0]).toHaveTextContent('Skill: regrouping across zeros');
+    expect(cards[0]).toHaveTextContent('Skills: regrouping across zeros, subtraction');
     expect(cards[0]).toHaveTextContent(
       'Juniper keeps making the same step error, “Zeros skipped when regrouping”: seen 4 times in 3 weeks; no review plan has covered it yet.',
     );
@@ -251,7 +252,8 @@ describe('Patterns page', () => {
     expect(within(problems).queryByRole('link', { name: '304 - 75' })).not.toBeInTheDocument();
     expect(
       within(cards[0]!).getByRole('link', { name: 'See all 5 in the notebook' }),
-    ).toHaveAttribute('href', `/notebook?student=1&rule=sub.borrow-across-zero&from=${from}`);
+    ).toHaveAttribute('href', `/notebook?student=1&rule=group%3Azero-regrouping&from=${from}`);
+    expect(within(cards[0]!).queryByText(/and \d+ more/)).not.toBeInTheDocument();
     expect(within(cards[0]!).getByText('Tried base-ten blocks.')).toBeInTheDocument();
     // A recurring fact family is not called a finding.
     expect(within(cards[1]!).getByText('Keeps coming back')).toBeInTheDocument();
