@@ -12,6 +12,15 @@ export const WRITE_HOOKS = [
   'afterUpsert',
 ] as const;
 
+/** The transaction a write hook's arguments name, if any. */
+export function transactionOf(args: readonly unknown[]): Transaction | undefined {
+  const options = args.find(
+    (a): a is { transaction?: Transaction | null } =>
+      typeof a === 'object' && a !== null && !(a instanceof Model) && 'transaction' in a,
+  );
+  return options?.transaction ?? undefined;
+}
+
 /**
  * Calls `onWrite` after every write through these models with the rows written (none for a
  * bulk update or destroy, which name no rows), and again once the write's transaction commits:
@@ -28,11 +37,7 @@ export function watchWrites(
       (row): row is Model => row instanceof Model,
     );
     onWrite(rows);
-    const options = args.find(
-      (a): a is { transaction?: Transaction | null } =>
-        typeof a === 'object' && a !== null && !(a instanceof Model) && 'transaction' in a,
-    );
-    options?.transaction?.afterCommit(() => onWrite(rows));
+    transactionOf(args)?.afterCommit(() => onWrite(rows));
   };
   for (const model of models) for (const h of WRITE_HOOKS) model.addHook(h, name, hook);
   return () => {

@@ -1,13 +1,12 @@
-import { randomUUID } from 'node:crypto';
 import { Injectable, type OnModuleDestroy } from '@nestjs/common';
 import { InjectConnection } from '@nestjs/sequelize';
 import type { Role } from '@workback/core';
-import type { Transaction } from 'sequelize';
 import type { ModelStatic, Model } from 'sequelize';
 import type { Sequelize } from 'sequelize-typescript';
 import { Student } from '../students/models/student.model.js';
 import { User } from '../users/models/user.model.js';
 import type { SessionUser } from '../common/member-context.js';
+import { watchWrites } from '../database/model-writes.js';
 import { Household } from './models/household.model.js';
 import { Membership } from './models/membership.model.js';
 import { StudentGrant } from './models/student-grant.model.js';
@@ -28,15 +27,6 @@ interface Entry<T> {
 
 /** Writes to these models can change who someone is or what they may see. */
 const WATCHED: ModelStatic<Model>[] = [User, Household, Membership, StudentGrant, Student];
-const HOOKS = [
-  'afterCreate',
-  'afterUpdate',
-  'afterDestroy',
-  'afterBulkCreate',
-  'afterBulkUpdate',
-  'afterBulkDestroy',
-  'afterUpsert',
-] as const;
 
 /**
  * A short-lived cache of the session user and their memberships, so a signed-in request does
@@ -55,23 +45,13 @@ export class MemberCache implements OnModuleDestroy {
   private generation = 0;
   private readonly users = new Map<number, Entry<SessionUser | null>>();
   private readonly memberships = new Map<number, Entry<readonly CachedMembership[]>>();
-  private readonly hookName = `member-cache-${randomUUID()}`;
   private readonly shared: boolean;
+  private readonly unwatch: () => void;
 
   // The connection is injected so the models are registered with it before hooks are added.
   constructor(@InjectConnection() sequelize: Sequelize) {
     this.shared = sequelize.getDialect() === 'postgres';
-    const onWrite = (...args: unknown[]) => {
-      this.clear();
-      const options = args.find(
-        (a): a is { transaction?: Transaction | null } =>
-          typeof a === 'object' && a !== null && 'transaction' in a,
-      );
-      options?.transaction?.afterCommit(() => this.clear());
-    };
-    for (const model of WATCHED) {
-      for (const hook of HOOKS) model.addHook(hook, this.hookName, onWrite);
-    }
+    this.unwatch = watchWrites(WATCHED, () => this.clear());
   }
 
   user(id: number, load: () => Promise<SessionUser | null>): Promise<SessionUser | null> {
@@ -93,9 +73,7 @@ export class MemberCache implements OnModuleDestroy {
   }
 
   onModuleDestroy(): void {
-    for (const model of WATCHED) {
-      for (const hook of HOOKS) model.removeHook(hook, this.hookName);
-    }
+    this.unwatch();
   }
 
   private get<T>(map: Map<number, Entry<T>>, key: number, load: () => Promise<T>): Promise<T> {

@@ -2,20 +2,11 @@ import { randomUUID } from 'node:crypto';
 import { Injectable, type OnModuleDestroy } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
 import { InjectConnection } from '@nestjs/sequelize';
-import type { Transaction } from 'sequelize';
 import type { Sequelize } from 'sequelize-typescript';
 import type { AppConfig } from '../config/app.config.js';
+import { transactionOf, WRITE_HOOKS } from '../database/model-writes.js';
 import { PgChannel } from '../database/pg-channel.js';
 import { Miss } from './models/miss.model.js';
-
-const HOOKS = [
-  'afterCreate',
-  'afterUpdate',
-  'afterDestroy',
-  'afterBulkCreate',
-  'afterBulkUpdate',
-  'afterBulkDestroy',
-] as const;
 
 /**
  * How many misses a notebook filter matches, kept for `ttlMs` per household: counting a big
@@ -45,15 +36,12 @@ export class CountCache implements OnModuleDestroy {
       const row = args[0] instanceof Miss ? args[0] : undefined;
       const household = row ? String(row.householdId) : '';
       this.forget(household);
-      const options = args.find(
-        (a): a is { transaction?: Transaction | null } =>
-          typeof a === 'object' && a !== null && 'transaction' in a,
-      );
-      options?.transaction?.afterCommit(() => this.forget(household));
+      const transaction = transactionOf(args);
+      transaction?.afterCommit(() => this.forget(household));
       // Awaited by the write, so the notice is out before the request answers.
-      await this.channel?.send(sequelize, household, options?.transaction);
+      await this.channel?.send(sequelize, household, transaction);
     };
-    for (const hook of HOOKS) Miss.addHook(hook, this.hookName, onWrite);
+    for (const hook of WRITE_HOOKS) Miss.addHook(hook, this.hookName, onWrite);
   }
 
   /** One household's counts ('12'), or everyone's ('' or null). */
@@ -80,7 +68,7 @@ export class CountCache implements OnModuleDestroy {
   }
 
   async onModuleDestroy(): Promise<void> {
-    for (const hook of HOOKS) Miss.removeHook(hook, this.hookName);
+    for (const hook of WRITE_HOOKS) Miss.removeHook(hook, this.hookName);
     await this.channel?.close();
   }
 }
