@@ -1,6 +1,7 @@
 import { Button, Card } from '@blueprintjs/core';
 import { CameraIcon, EditIcon } from '@blueprintjs/icons';
 import { Link } from 'react-router-dom';
+import type { ReactNode } from 'react';
 
 import { FormError } from '../../../components/form/form-error';
 import { LinkButton } from '../../../components/link-button';
@@ -62,19 +63,7 @@ export function SittingMisses({
               <li key={mark.id}>
                 <Card className="wb-sitting-miss">
                   <div className="wb-sitting-miss-main">
-                    <p className="wb-sitting-miss-problem">
-                      <span className="wb-muted">Item {mark.number ?? item?.number}</span>{' '}
-                      <span className="wb-digits">{item?.prompt}</span>
-                    </p>
-                    <p>
-                      Wrote <span className="wb-digits wb-child-answer">{mark.answer ?? '—'}</span>
-                      {item ? (
-                        <>
-                          {' '}
-                          · key <span className="wb-digits">{item.answer}</span>
-                        </>
-                      ) : null}
-                    </p>
+                    <MarkedItem mark={mark} item={item} />
                     <p className="wb-revisit">
                       <span className="wb-revisit-label">Lessons to revisit:</span>{' '}
                       {item && item.revisitLessons.length > 0
@@ -177,26 +166,15 @@ function HeldItems({
           <li key={mark.id}>
             <Card className="wb-sitting-miss wb-sitting-held">
               <div className="wb-sitting-miss-main">
-                <p className="wb-sitting-miss-problem">
-                  <span className="wb-muted">Item {mark.number ?? item?.number}</span>{' '}
-                  <span className="wb-digits">{item?.prompt}</span>
-                </p>
-                <p>
-                  Wrote <span className="wb-digits wb-child-answer">{mark.answer ?? '—'}</span>
-                  {item ? (
+                <MarkedItem mark={mark} item={item}>
+                  {item?.check?.expected ? (
                     <>
                       {' '}
-                      · key <span className="wb-digits">{item.answer}</span>
-                      {item.check?.expected ? (
-                        <>
-                          {' '}
-                          · the checker works it out as{' '}
-                          <span className="wb-digits">{item.check.expected}</span>
-                        </>
-                      ) : null}
+                      · the checker works it out as{' '}
+                      <span className="wb-digits">{item.check.expected}</span>
                     </>
                   ) : null}
-                </p>
+                </MarkedItem>
               </div>
               {canEdit && item ? (
                 <div className="wb-actions wb-sitting-miss-action">
@@ -217,5 +195,36 @@ function HeldItems({
         ))}
       </ul>
     </section>
+  );
+}
+
+/** A marked item as the child answered it: its number and prompt, what they wrote, the key's answer. */
+function MarkedItem({
+  mark,
+  item,
+  children,
+}: {
+  mark: SittingMark;
+  item: MarkableItem | undefined;
+  /** Said after the key's answer. */
+  children?: ReactNode;
+}) {
+  return (
+    <>
+      <p className="wb-sitting-miss-problem">
+        <span className="wb-muted">Item {mark.number ?? item?.number}</span>{' '}
+        <span className="wb-digits">{item?.prompt}</span>
+      </p>
+      <p>
+        Wrote <span className="wb-digits wb-child-answer">{mark.answer ?? '—'}</span>
+        {item ? (
+          <>
+            {' '}
+            · key <span className="wb-digits">{item.answer}</span>
+            {children}
+          </>
+        ) : null}
+      </p>
+    </>
   );
 }
