@@ -8,6 +8,7 @@ import { SelectField } from '../../../components/form/select-field';
 import { TextAreaField } from '../../../components/form/text-area-field';
 import { TextField } from '../../../components/form/text-field';
 import { newDraftKey, replaceDraft, type Draft } from '../drafts-store';
+import { missFieldRules } from '../../misses/utils/miss-field-rules';
 
 type Values = {
   studentId: string;
@@ -189,25 +190,21 @@ export default function EditDraftDialog({
           idPrefix="draft"
           label="Date of the work"
           type="date"
-          registration={register('occurredOn', { required: 'Enter the day of the worksheet.' })}
+          registration={register('occurredOn', missFieldRules.occurredOn)}
           error={shown.occurredOn?.message}
         />
         <TextField
           idPrefix="draft"
           label="The problem"
           autoComplete="off"
-          registration={register('problem', {
-            validate: (v) => v.trim().length > 0 || 'Type the problem as it was written.',
-          })}
+          registration={register('problem', missFieldRules.problem)}
           error={shown.problem?.message}
         />
         <TextField
           idPrefix="draft"
           label="The child’s answer"
           autoComplete="off"
-          registration={register('answer', {
-            validate: (v) => v.trim().length > 0 || 'Type the answer the child wrote.',
-          })}
+          registration={register('answer', missFieldRules.answer)}
           error={shown.answer?.message}
         />
         {hasLines ? (

@@ -11,7 +11,8 @@ import { useToast } from '../../../components/toaster';
 import { useUpdateMiss } from '../api/update-miss';
 import { useLiveDiagnosis } from '../hooks/use-live-diagnosis';
 import { useWordSuggestion } from '../hooks/use-word-suggestion';
-import { today, type Miss, type MissChanges } from '../types';
+import { type Miss, type MissChanges } from '../types';
+import { missFieldRules } from '../utils/miss-field-rules';
 import { CausePicker } from './cause-picker';
 import { placeLineErrors, readLines, validateLines, WordProblemFields } from './word-problem';
 
@@ -116,10 +117,7 @@ function EditMissForm({ miss, onClose }: { miss: Miss; onClose: () => void }) {
         idPrefix="edit"
         label="Date of the work"
         type="date"
-        registration={register('occurredOn', {
-          required: 'Enter the day of the worksheet.',
-          validate: (value) => value <= today() || 'The day cannot be in the future.',
-        })}
+        registration={register('occurredOn', missFieldRules.occurredOn)}
         error={errors.occurredOn?.message}
       />
       <TextField
@@ -127,18 +125,14 @@ function EditMissForm({ miss, onClose }: { miss: Miss; onClose: () => void }) {
         label="The problem"
         autoComplete="off"
         help="Changing the problem or the answer runs the checkers again."
-        registration={register('problem', {
-          validate: (value) => value.trim().length > 0 || 'Type the problem as it was written.',
-        })}
+        registration={register('problem', missFieldRules.problem)}
         error={errors.problem?.message}
       />
       <TextField
         idPrefix="edit"
         label="The child’s answer"
         autoComplete="off"
-        registration={register('answer', {
-          validate: (value) => value.trim().length > 0 || 'Type the answer the child wrote.',
-        })}
+        registration={register('answer', missFieldRules.answer)}
         error={errors.answer?.message}
       />
       <TextAreaField

@@ -18,6 +18,7 @@ import { readPartials, useLiveDiagnosis, type LiveDiagnosis } from '../hooks/use
 import { useRememberedStudent } from '../hooks/use-remembered-student';
 import { useWordSuggestion } from '../hooks/use-word-suggestion';
 import { formatDay, today, type MissInput, type StudentOption } from '../types';
+import { missFieldRules } from '../utils/miss-field-rules';
 import { CausePicker } from './cause-picker';
 import { ExplanationPrompts } from './explanation-prompts';
 import { applyPhotoChange, checkPhotos, PhotoPicker } from './photo-picker';
@@ -375,10 +376,7 @@ export function LogMissForm({
           idPrefix="miss"
           label="Date of the work"
           type="date"
-          registration={register('occurredOn', {
-            required: 'Enter the day of the worksheet.',
-            validate: (value) => value <= today() || 'The day cannot be in the future.',
-          })}
+          registration={register('occurredOn', missFieldRules.occurredOn)}
           error={errors.occurredOn?.message}
         />
       </div>
@@ -386,11 +384,7 @@ export function LogMissForm({
         idPrefix="miss"
         label="The problem"
         autoComplete="off"
-        registration={register('problem', {
-          required: 'Type the problem as it was written.',
-          validate: (value) => value.trim().length > 0 || 'Type the problem as it was written.',
-          maxLength: { value: 200, message: 'Keep the problem under 200 characters.' },
-        })}
+        registration={register('problem', missFieldRules.problem)}
         error={errors.problem?.message}
         help={<span aria-live="polite">{problemHelp(live)}</span>}
       />
@@ -398,11 +392,7 @@ export function LogMissForm({
         idPrefix="miss"
         label="The child’s answer"
         autoComplete="off"
-        registration={register('answer', {
-          required: 'Type the answer the child wrote.',
-          validate: (value) => value.trim().length > 0 || 'Type the answer the child wrote.',
-          maxLength: { value: 80, message: 'Keep the answer under 80 characters.' },
-        })}
+        registration={register('answer', missFieldRules.answer)}
         error={errors.answer?.message}
         help={answerHelp(live)}
       />
