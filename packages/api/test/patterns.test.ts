@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { HouseholdsService } from '../src/households/households.service.js';
-import { MissesService } from '../src/misses/misses.service.js';
+import { StudentMissesService } from '../src/misses/student-misses.service.js';
 import { toPatternMiss } from '../src/misses/pattern-miss.js';
 import {
   DEMO,
@@ -109,7 +109,7 @@ describe('the misses patterns read', () => {
   it('carry from the row the same rules and facts as the stored diagnoses', async () => {
     const me = (await owner.get('/api/auth/me').expect(200)).body as { user: { id: number } };
     const member = (await t.app.get(HouseholdsService).resolveMember(me.user.id))!;
-    const misses = t.app.get(MissesService);
+    const misses = t.app.get(StudentMissesService);
     for (const studentId of [wren, milo]) {
       const full = await misses.withDiagnoses(member, { studentId });
       const slim = await misses.patternMisses(member, { studentId });

@@ -37,14 +37,18 @@ export const SUMMARY_ATTRIBUTES = [
 export type SummaryFields = Pick<Miss, (typeof SUMMARY_ATTRIBUTES)[number]>;
 export type RawMissRow = Record<(typeof SUMMARY_ATTRIBUTES)[number], unknown>;
 
+/** A JSON text column of a raw row, parsed (the fallback for NULL). */
+export function jsonOf<T>(v: unknown, fallback: T): T {
+  return typeof v === 'string' ? (JSON.parse(v) as T) : ((v as T | null) ?? fallback);
+}
+
 /**
  * A raw row as the model would read it: JSON text parsed, SQLite's 0/1 as a boolean and its
  * date text ('2026-12-03 13:36:39.111 +00:00') as a Date. PostgreSQL's driver hands back
  * booleans and Dates already.
  */
 export function fromRawRow(r: RawMissRow): SummaryFields {
-  const json = <T>(v: unknown, fallback: T): T =>
-    typeof v === 'string' ? (JSON.parse(v) as T) : ((v as T | null) ?? fallback);
+  const json = jsonOf;
   const date = (v: unknown): Date =>
     v instanceof Date ? v : new Date(String(v).replace(' ', 'T').replace(' ', ''));
   return {

@@ -14,6 +14,7 @@ import { MissDiagnosis } from './models/miss-diagnosis.model.js';
 import { MissRule } from './models/miss-rule.model.js';
 import { Miss } from './models/miss.model.js';
 import { PageCache } from './page-cache.js';
+import { StudentMissesService } from './student-misses.service.js';
 
 @Module({
   imports: [
@@ -31,7 +32,8 @@ import { PageCache } from './page-cache.js';
     MarkedMissesService,
     CountCache,
     PageCache,
+    StudentMissesService,
   ],
-  exports: [MissesService, MarkedMissesService],
+  exports: [MissesService, MarkedMissesService, StudentMissesService],
 })
 export class MissesModule {}

@@ -4,7 +4,7 @@ import { Op } from 'sequelize';
 import { CheckUpsService } from '../check-ups/check-ups.service.js';
 import type { MemberContext } from '../common/member-context.js';
 import { fieldsError } from '../common/pipes/validation.pipe.js';
-import { MissesService } from '../misses/misses.service.js';
+import { StudentMissesService } from '../misses/student-misses.service.js';
 import { ReviewPlansService } from '../review-plans/review-plans.service.js';
 import { SittingSummariesService } from '../sittings/sitting-summaries.service.js';
 import { StudentsService } from '../students/students.service.js';
@@ -20,7 +20,7 @@ export class PatternsService {
   constructor(
     @InjectModel(PatternNote) private readonly noteModel: typeof PatternNote,
     private readonly students: StudentsService,
-    private readonly misses: MissesService,
+    private readonly misses: StudentMissesService,
     private readonly sittings: SittingSummariesService,
     private readonly plans: ReviewPlansService,
     private readonly checkUps: CheckUpsService,

@@ -2,7 +2,7 @@ import { Injectable } from '@nestjs/common';
 import { formatTrace } from '@workback/core';
 import type { MemberContext } from '../common/member-context.js';
 import { fieldsError } from '../common/pipes/validation.pipe.js';
-import { MissesService } from '../misses/misses.service.js';
+import { StudentMissesService } from '../misses/student-misses.service.js';
 import { PhotoFilesService } from '../photos/photo-files.service.js';
 import { PhotosService } from '../photos/photos.service.js';
 import { StudentsService } from '../students/students.service.js';
@@ -16,7 +16,7 @@ export const MAX_PORTFOLIO_SAMPLES = 200;
 export class PortfolioService {
   constructor(
     private readonly students: StudentsService,
-    private readonly misses: MissesService,
+    private readonly misses: StudentMissesService,
     private readonly photos: PhotosService,
     private readonly photoFiles: PhotoFilesService,
   ) {}

@@ -1,8 +1,8 @@
 import { revisitLessons, type PlanMiss } from '@workback/core';
-import type { MissesService } from '../misses/misses.service.js';
+import type { StudentMissesService } from '../misses/student-misses.service.js';
 import { toPatternMiss } from '../misses/pattern-miss.js';
 
-export type MissWithDiagnosis = Awaited<ReturnType<MissesService['withDiagnoses']>>[number];
+export type MissWithDiagnosis = Awaited<ReturnType<StudentMissesService['withDiagnoses']>>[number];
 
 /**
  * A stored miss as the core plan maths reads it: the pattern fields and its lessons. A word

@@ -6,6 +6,7 @@ import type { Sequelize } from 'sequelize-typescript';
 import type { MemberContext } from '../common/member-context.js';
 import { fieldsError } from '../common/pipes/validation.pipe.js';
 import { MissesService } from '../misses/misses.service.js';
+import { StudentMissesService } from '../misses/student-misses.service.js';
 import { StudentsService } from '../students/students.service.js';
 import type { CreateReviewPlanDto } from './dto/create-review-plan.dto.js';
 import { ReviewPlanItemMiss } from './models/review-plan-item-miss.model.js';
@@ -26,6 +27,7 @@ export class ReviewPlanMakingService {
     @InjectConnection() private readonly sequelize: Sequelize,
     private readonly students: StudentsService,
     private readonly misses: MissesService,
+    private readonly studentMisses: StudentMissesService,
     private readonly plans: ReviewPlansService,
   ) {}
 
@@ -99,7 +101,7 @@ export class ReviewPlanMakingService {
     transaction: Transaction,
   ): Promise<MissWithDiagnosis[]> {
     if (missIds !== undefined) {
-      const found = await this.misses.withDiagnoses(
+      const found = await this.studentMisses.withDiagnoses(
         member,
         { studentId, ids: missIds },
         transaction,
@@ -125,7 +127,7 @@ export class ReviewPlanMakingService {
     });
     const onLast = last ? await this.missIdsOf(last.id, transaction) : new Set<number>();
     const open = (
-      await this.misses.withDiagnoses(member, { studentId, statuses: OPEN }, transaction)
+      await this.studentMisses.withDiagnoses(member, { studentId, statuses: OPEN }, transaction)
     ).filter((m) => !onLast.has(m.id));
     if (open.length === 0)
       throw new UnprocessableEntityException(

@@ -16,6 +16,7 @@ import { fieldsError } from '../common/pipes/validation.pipe.js';
 import { AnswerKeysService } from '../answer-keys/answer-keys.service.js';
 import { CurriculumService } from '../curriculum/curriculum.service.js';
 import { MissesService } from '../misses/misses.service.js';
+import { StudentMissesService } from '../misses/student-misses.service.js';
 import { StudentsService } from '../students/students.service.js';
 import type { ListReviewPlansQuery } from './dto/list-review-plans.query.js';
 import type { UpdateReviewPlanDto } from './dto/update-review-plan.dto.js';
@@ -35,6 +36,7 @@ export class ReviewPlansService {
     @InjectConnection() private readonly sequelize: Sequelize,
     private readonly students: StudentsService,
     private readonly misses: MissesService,
+    private readonly studentMisses: StudentMissesService,
     private readonly keys: AnswerKeysService,
     private readonly curriculum: CurriculumService,
   ) {}
@@ -108,7 +110,10 @@ export class ReviewPlansService {
     const misses =
       missIds.length === 0
         ? []
-        : await this.misses.withDiagnoses(member, { studentId: plan.studentId, ids: missIds });
+        : await this.studentMisses.withDiagnoses(member, {
+            studentId: plan.studentId,
+            ids: missIds,
+          });
     // Lessons carry the curriculum's current titles (a renamed lesson reads as renamed).
     const titles = await this.lessonTitlesFor(member, misses);
     const titled = new Map<number, { title: string; payload: LessonRange }>();
@@ -217,7 +222,7 @@ export class ReviewPlansService {
         if (resolved.length)
           await this.misses.setStatus(member, resolved, MissStatus.resolved, transaction);
         if (reopened.length) {
-          const wasResolved = await this.misses.withDiagnoses(
+          const wasResolved = await this.studentMisses.withDiagnoses(
             member,
             { studentId: plan.studentId, ids: reopened, statuses: [MissStatus.resolved] },
             transaction,

@@ -1,7 +1,7 @@
 import { readFile } from 'node:fs/promises';
 import { Injectable } from '@nestjs/common';
 import type { MemberContext } from '../common/member-context.js';
-import { MissesService } from '../misses/misses.service.js';
+import { StudentMissesService } from '../misses/student-misses.service.js';
 import { ReviewPlanMakingService } from '../review-plans/review-plan-making.service.js';
 import { ReviewPlansService } from '../review-plans/review-plans.service.js';
 import { StudentsService } from '../students/students.service.js';
@@ -25,7 +25,7 @@ interface DemoPlan {
 export class DemoReviewPlansSeeder {
   constructor(
     private readonly students: StudentsService,
-    private readonly misses: MissesService,
+    private readonly misses: StudentMissesService,
     private readonly plans: ReviewPlansService,
     private readonly making: ReviewPlanMakingService,
   ) {}
