@@ -11,7 +11,7 @@ export interface ServerProcess {
 }
 
 /**
- * The real server (src/main.ts through swc-node) as its own process, on a free port.
+ * The real server (src/main.ts, which sets the thread pool and imports server.ts, through swc-node) as its own process, on a free port.
  * `nodeArgs` go before the script (a bench passes `--cpu-prof`, which NODE_OPTIONS refuses).
  */
 export async function startServerProcess(
