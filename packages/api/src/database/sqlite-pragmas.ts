@@ -42,16 +42,42 @@ export async function applyPragmas(connection: RawConnection): Promise<void> {
   prepared.add(connection);
 }
 
+/** Connections kept for reads outside transactions, beside the one Sequelize keeps for writes. */
+export const READ_CONNECTIONS = 4;
+
+interface ConnectionOptions {
+  uuid?: string;
+  type?: string;
+  transaction?: unknown;
+}
+
 /**
  * Wraps the dialect's getConnection so each new connection is prepared before use, and its
  * column-type lookups go through `tableInfo`.
+ *
+ * Sequelize's SQLite dialect sends every query outside a transaction down one connection, and
+ * node-sqlite3 runs a connection's statements one at a time: with many families at once, a
+ * request's reads queued behind everyone else's. WAL lets readers on other connections run
+ * beside each other and beside the writer, each seeing every commit made before it starts, so
+ * plain SELECTs take turns over a few connections of their own (kept open like the default one).
  */
 export function preparePragmasOnConnect(sequelize: Sequelize, tableInfo: TableInfoCache): void {
   const manager = sequelize.connectionManager as unknown as {
-    getConnection(options?: object): Promise<RawConnection>;
+    getConnection(options?: ConnectionOptions): Promise<RawConnection>;
   };
   const original = manager.getConnection.bind(manager);
-  manager.getConnection = async (options?: object) => {
+  const inMemory = (sequelize.options.storage ?? ':memory:') === ':memory:';
+  let turn = 0;
+  manager.getConnection = async (options?: ConnectionOptions) => {
+    if (
+      !inMemory &&
+      options &&
+      !options.uuid &&
+      !options.transaction &&
+      options.type === 'SELECT'
+    ) {
+      options.uuid = `read-${turn++ % READ_CONNECTIONS}`;
+    }
     const connection = await original(options);
     await applyPragmas(connection);
     tableInfo.wrap(connection);
