@@ -39,7 +39,8 @@ type Kind = keyof typeof KINDS;
 export interface Family {
   email: string;
   students: number[];
-  missIds: { min: number; max: number };
+  /** Misses of the household, to open; a guessed id could be another household's (a 404). */
+  missIds: number[];
   planId: number;
   sitting: { id: number; keyItemIds: number[] };
 }
@@ -94,8 +95,8 @@ export async function prepareFamilies(env: Record<string, string>): Promise<Fami
         'SELECT id FROM students WHERE household_id = ? ORDER BY id',
         [h],
       );
-      const [range] = await q<{ min: number; max: number }>(
-        'SELECT MIN(id) AS min, MAX(id) AS max FROM misses WHERE household_id = ?',
+      const missIds = await q<{ id: number }>(
+        'SELECT id FROM misses WHERE household_id = ? ORDER BY id LIMIT 300',
         [h],
       );
       const [plan] = await q<{ id: number }>(
@@ -114,7 +115,7 @@ export async function prepareFamilies(env: Record<string, string>): Promise<Fami
       families.push({
         email,
         students: students.map((s) => s.id),
-        missIds: range!,
+        missIds: missIds.map((m) => m.id),
         planId: plan!.id,
         sitting: { id: sitting!.id, keyItemIds: marks.map((k) => k.id) },
       });
@@ -200,7 +201,7 @@ function mixRequests(
       case 'O':
         return {
           method: 'GET',
-          path: `/api/misses/${m.missIds.min + Math.floor(random() * (m.missIds.max - m.missIds.min + 1))}`,
+          path: `/api/misses/${pick(m.missIds)}`,
         };
       case 'S': {
         const [problem, answer, explanation] = pick([
