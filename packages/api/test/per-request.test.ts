@@ -9,6 +9,7 @@ import { MemberCache } from '../src/households/member-cache.js';
 import {
   Client,
   DEMO,
+  onPostgres,
   sessionCookie,
   signedIn,
   startTestApp,
@@ -114,15 +115,19 @@ describe('per-request work of the real app', () => {
     const tutor = await signedIn(t, DEMO.tutor);
     expect(await seen(tutor)).toEqual([wren]);
     const { id } = await tutorMember();
-    // Straight into the table, past the models' hooks: the cached context still holds.
+    // Straight into the table, past the models' hooks: the cached context still holds. On
+    // PostgreSQL nothing is kept (another process may have written it), so it shows at once.
     await sequelize.query(
       'INSERT INTO student_grants (membership_id, student_id, created_at) VALUES (?, ?, ?)',
       { replacements: [id, milo, new Date().toISOString()] },
     );
-    expect(await seen(tutor)).toEqual([wren]);
-    t.app.get(MemberCache).clear();
-    expect(await seen(tutor)).toEqual([milo, wren].sort());
-    await owner.send('patch', `/api/members/${id}`, { studentIds: [wren] }).expect(200);
+    try {
+      expect(await seen(tutor)).toEqual(onPostgres() ? [milo, wren].sort() : [wren]);
+      t.app.get(MemberCache).clear();
+      expect(await seen(tutor)).toEqual([milo, wren].sort());
+    } finally {
+      await owner.send('patch', `/api/members/${id}`, { studentIds: [wren] }).expect(200);
+    }
   });
 
   it('forgets the context when grants change, the role changes, or the member is removed', async () => {
