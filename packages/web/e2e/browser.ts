@@ -80,6 +80,10 @@ export async function openApp(
  * the DevTools protocol instead of an injected <script> tag, and the CSP stays in force.
  */
 export async function expectNoSeriousA11yProblems(page: Page, where: string) {
+  // A dialog fading in is read with its text half transparent: wait for transitions to end.
+  await page.waitForFunction(() =>
+    document.getAnimations().every((a) => a.playState !== 'running'),
+  );
   await page.evaluate(axe.source);
   const violations = await page.evaluate(async () => {
     const result = await (window as unknown as { axe: typeof axe }).axe.run(document, {
