@@ -21,6 +21,7 @@ interface RawConnection {
   exec(sql: string, callback: (err: Error | null) => void): void;
   serialize(): void;
   all(sql: string, ...rest: unknown[]): unknown;
+  close(callback: (err: Error | null) => void): void;
 }
 
 const prepared = new WeakSet<object>();
@@ -64,8 +65,22 @@ interface ConnectionOptions {
 export function preparePragmasOnConnect(sequelize: Sequelize, tableInfo: TableInfoCache): void {
   const manager = sequelize.connectionManager as unknown as {
     getConnection(options?: ConnectionOptions): Promise<RawConnection>;
+    connections: Record<string, RawConnection>;
+    _onProcessExit(): Promise<void>;
   };
   const original = manager.getConnection.bind(manager);
+  const closeAll = manager._onProcessExit.bind(manager);
+  // Sequelize closes its connections all at once; the last to close checkpoints the WAL and
+  // removes it, and two closing together can each leave that to the other. The read
+  // connections close first, one at a time, and Sequelize's own last.
+  manager._onProcessExit = async () => {
+    for (const [key, connection] of Object.entries(manager.connections)) {
+      if (!key.startsWith('read-')) continue;
+      delete manager.connections[key];
+      await new Promise<void>((resolve) => connection.close(() => resolve()));
+    }
+    return closeAll();
+  };
   const inMemory = (sequelize.options.storage ?? ':memory:') === ':memory:';
   let turn = 0;
   manager.getConnection = async (options?: ConnectionOptions) => {
