@@ -16,6 +16,8 @@ const run = (args, name, env = {}) => {
 const children = [
   // Mailed links open the Vite server the developer is using, not the API's own port.
   run(['run', 'start:dev', '-w', 'packages/api'], 'api', {
+    // Set before the process starts: the TypeScript hook starts the pool before main.cts runs.
+    UV_THREADPOOL_SIZE: process.env.UV_THREADPOOL_SIZE ?? '16',
     PUBLIC_URL: process.env.PUBLIC_URL ?? 'http://localhost:5173',
   }),
   run(['run', 'dev', '-w', 'packages/web'], 'web'),

@@ -6,7 +6,7 @@ import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 
 const repoRoot = resolve(import.meta.dirname, '../../..');
-const serverEntry = join(repoRoot, 'packages/api/dist/main.js');
+const serverEntry = join(repoRoot, 'packages/api/dist/main.cjs');
 const webBuild = join(repoRoot, 'packages/web/dist/index.html');
 
 export type BuiltServer = {

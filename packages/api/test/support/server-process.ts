@@ -11,7 +11,9 @@ export interface ServerProcess {
 }
 
 /**
- * The real server (src/main.ts, which sets the thread pool and imports server.ts, through swc-node) as its own process, on a free port.
+ * The real server (src/main.cts, which imports server.ts, through swc-node) as its own process, on
+ * a free port. The TypeScript hook starts libuv's thread pool before main.cts runs, so the pool's
+ * size is given here, as production's entry gives it.
  * `nodeArgs` go before the script (a bench passes `--cpu-prof`, which NODE_OPTIONS refuses).
  */
 export async function startServerProcess(
@@ -25,7 +27,7 @@ export async function startServerProcess(
       '--conditions=workback-source',
       '--import',
       '@swc-node/register/esm-register',
-      'src/main.ts',
+      'src/main.cts',
     ],
     {
       cwd: apiRoot,
@@ -33,6 +35,7 @@ export async function startServerProcess(
       env: {
         ...process.env,
         NODE_ENV: 'test',
+        UV_THREADPOOL_SIZE: '16',
         PORT: '0',
         HOST: '127.0.0.1',
         DATABASE_URL: '',
