@@ -61,21 +61,30 @@ interface ConnectionOptions {
  * request's reads queued behind everyone else's. WAL lets readers on other connections run
  * beside each other and beside the writer, each seeing every commit made before it starts, so
  * plain SELECTs take turns over a few connections of their own (kept open like the default one).
+ *
+ * The dialect also opened a new connection for every transaction and closed it after: a file
+ * open, the pragmas and a read of the schema each time, all while holding the write lock.
+ * Transactions run one at a time in this process (queueTransactions), so they share one kept
+ * `write` connection instead; it is let go only if Sequelize gives up on it after an error.
  */
 export function preparePragmasOnConnect(sequelize: Sequelize, tableInfo: TableInfoCache): void {
   const manager = sequelize.connectionManager as unknown as {
     getConnection(options?: ConnectionOptions): Promise<RawConnection>;
+    releaseConnection(connection: RawConnection): void;
+    destroyConnection(connection: RawConnection): Promise<void>;
     connections: Record<string, RawConnection>;
     _onProcessExit(): Promise<void>;
   };
   const original = manager.getConnection.bind(manager);
+  const release = manager.releaseConnection.bind(manager);
+  const destroy = manager.destroyConnection.bind(manager);
   const closeAll = manager._onProcessExit.bind(manager);
   // Sequelize closes its connections all at once; the last to close checkpoints the WAL and
-  // removes it, and two closing together can each leave that to the other. The read
+  // removes it, and two closing together can each leave that to the other. The read and write
   // connections close first, one at a time, and Sequelize's own last.
   manager._onProcessExit = async () => {
     for (const [key, connection] of Object.entries(manager.connections)) {
-      if (!key.startsWith('read-')) continue;
+      if (key === 'default') continue;
       delete manager.connections[key];
       await new Promise<void>((resolve) => connection.close(() => resolve()));
     }
@@ -93,9 +102,28 @@ export function preparePragmasOnConnect(sequelize: Sequelize, tableInfo: TableIn
     ) {
       options.uuid = `read-${turn++ % READ_CONNECTIONS}`;
     }
-    const connection = await original(options);
+    // A transaction asks by its own id (transaction.js prepareEnvironment).
+    const forTransaction =
+      !inMemory &&
+      !!options?.uuid &&
+      options.uuid !== 'default' &&
+      !options.uuid.startsWith('read-');
+    const connection = await original(forTransaction ? { ...options, uuid: WRITE } : options);
     await applyPragmas(connection);
     tableInfo.wrap(connection);
     return connection;
   };
+  // The transaction's end: the write connection stays open for the next one.
+  manager.releaseConnection = (connection) => {
+    if (connection !== manager.connections[WRITE]) release(connection);
+  };
+  // After a failed rollback Sequelize destroys the connection: a fresh one opens next time.
+  manager.destroyConnection = async (connection) => {
+    if (connection !== manager.connections[WRITE]) return destroy(connection);
+    delete manager.connections[WRITE];
+    await new Promise<void>((resolve) => connection.close(() => resolve()));
+  };
 }
+
+/** The key of the connection transactions share. */
+const WRITE = 'write';
