@@ -29,7 +29,10 @@ declare module 'autocannon' {
     url: string;
     connections?: number;
     duration?: number;
-    /** Requests per second from all connections together: an open-loop offered load. */
+    /**
+     * Requests per second from all connections together. Not an even open-loop load: each
+     * connection sends its share when a one-second timer resets, all connections at once.
+     */
     overallRate?: number;
     headers?: Record<string, string>;
     requests?: Request[];
