@@ -35,7 +35,7 @@ export async function startServerProcess(
       env: {
         ...process.env,
         NODE_ENV: 'test',
-        UV_THREADPOOL_SIZE: '16',
+        UV_THREADPOOL_SIZE: process.env.UV_THREADPOOL_SIZE ?? '16',
         PORT: '0',
         HOST: '127.0.0.1',
         DATABASE_URL: '',
