@@ -38,3 +38,30 @@ describe.each(LISTS)('$name pages through PageQuery', ({ metatype }) => {
     });
   });
 });
+
+describe('a query checked again', () => {
+  it('answers the same checked values, each time in a copy of its own', async () => {
+    const query = { page: '3', status: 'logged' };
+    const first = (await parse(ListMissesQuery, query)) as ListMissesQuery;
+    first.page = 99;
+    const second = (await parse(ListMissesQuery, query)) as ListMissesQuery;
+    expect(second).toBeInstanceOf(ListMissesQuery);
+    expect(second).not.toBe(first);
+    expect(second).toMatchObject({ page: 3, status: 'logged' });
+  });
+
+  it('refuses a bad query every time it is asked, never keeping it', async () => {
+    for (let i = 0; i < 2; i++) {
+      expect(await refusal(ListMissesQuery, { page: '0' })).toEqual({
+        page: 'page must be a whole number from 1',
+      });
+    }
+  });
+
+  it('keeps each class’s results apart: the same text may be good for one and refused by another', async () => {
+    await expect(parse(ListMissesQuery, { status: 'logged' })).resolves.toMatchObject({
+      status: 'logged',
+    });
+    expect(Object.keys(await refusal(ListNotesQuery, { status: 'logged' }))).toEqual(['status']);
+  });
+});

@@ -5,6 +5,7 @@ import {
   type ValidationError,
 } from '@nestjs/common';
 import type { ValidatorOptions } from 'class-validator';
+import { LRUCache } from 'lru-cache';
 import {
   CONTROL_CHARS,
   CONTROL_CHARS_BUT_LINES,
@@ -121,8 +122,36 @@ export function refuseControlCharacters(value: unknown, path = ''): void {
  * and control characters in every text field and query parameter before class-validator runs.
  */
 export class WorkbackValidationPipe extends ValidationPipe {
+  /**
+   * Query DTOs as last checked, by class and query text: a notebook asks for the same few pages
+   * and filters again and again, and transforming and validating them was a tenth of a kept
+   * page's cost. Checking is a pure function of the text, so a kept result stands; refusals are
+   * never kept. Each request gets its own copy.
+   */
+  private readonly queries = new WeakMap<object, LRUCache<string, object>>();
+
   override async transform(value: unknown, metadata: ArgumentMetadata): Promise<unknown> {
     if (metadata.type === 'custom') return super.transform(value, metadata);
+    if (metadata.type === 'query' && metadata.metatype && typeof value === 'object' && value) {
+      return this.checkedQuery(value, metadata);
+    }
+    return this.check(value, metadata);
+  }
+
+  private async checkedQuery(value: object, metadata: ArgumentMetadata): Promise<unknown> {
+    let ofClass = this.queries.get(metadata.metatype!);
+    if (!ofClass) this.queries.set(metadata.metatype!, (ofClass = new LRUCache({ max: 500 })));
+    const key = `${metadata.data ?? ''}\u0000${JSON.stringify(value)}`;
+    let kept = ofClass.get(key);
+    if (!kept) {
+      const checked: unknown = await this.check(value, metadata);
+      if (typeof checked !== 'object' || checked === null) return checked;
+      ofClass.set(key, (kept = checked));
+    }
+    return Object.assign(Object.create(Object.getPrototypeOf(kept) as object) as object, kept);
+  }
+
+  private async check(value: unknown, metadata: ArgumentMetadata): Promise<unknown> {
     refuseDeepNesting(value);
     if (typeof value === 'string' || Array.isArray(value)) {
       // A bare @Query('x') or @Param('x'): no DTO to carry marks, so no control characters.
