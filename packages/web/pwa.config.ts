@@ -15,12 +15,18 @@ const ONLINE_ONLY = ['index.html', 'src/features/misses/components/notebook-tabl
 
 type ViteManifest = Record<
   string,
-  { file: string; imports?: string[]; dynamicImports?: string[]; css?: string[] }
+  {
+    file: string;
+    imports?: string[];
+    dynamicImports?: string[];
+    css?: string[];
+    assets?: string[];
+  }
 >;
 
 /**
  * The build files of `OFFLINE_ROUTES` and all they import, at once or on use (the photo cropper,
- * the photo preparer and its worker), read from Vite's build manifest.
+ * the photo preparer and its worker script), read from Vite's build manifest.
  */
 function offlineFiles(): Set<string> {
   const path = join(import.meta.dirname, 'dist/.vite/manifest.json');
@@ -34,6 +40,8 @@ function offlineFiles(): Set<string> {
     seen.add(key);
     files.add(chunk.file);
     for (const css of chunk.css ?? []) files.add(css);
+    // Files a chunk names by URL, such as the photo preparer's worker script (`?url`).
+    for (const asset of chunk.assets ?? []) files.add(asset);
     for (const imported of chunk.imports ?? []) visit(imported);
     if (key === 'index.html') return;
     for (const later of chunk.dynamicImports ?? []) if (!ONLINE_ONLY.includes(later)) visit(later);

@@ -272,6 +272,10 @@ describe('offline on a phone', () => {
     await page.getByRole('heading', { name: 'Log a miss', exact: true }).waitFor();
     const problem = '8034 - 1657';
     expect(await countMisses(context, problem)).toBe(0);
+    // As on a phone that has opened the app before: the service worker is installed and
+    // answers for this page, with the form's later files (the photo preparer) kept. Going
+    // offline before that left the preparer to fetch, and the photo never showed.
+    await page.waitForFunction(() => navigator.serviceWorker.controller !== null);
 
     await context.setOffline(true);
     await fillMiss(page, problem, '7623');
