@@ -12,7 +12,7 @@ import { fillFamilies } from './household-fill.js';
 import { type KindStats, type LoadRequest, openLoop, type OpenLoopResult } from './open-loop.js';
 import { throwawayDatabase } from './postgres.js';
 import { type Session, signIn } from './sign-in.js';
-import { percentile, table } from './stats.js';
+import { percentile, processCpuMs, table } from './stats.js';
 
 const HOUSEHOLDS = Number(process.env.BENCH_FAMILIES ?? 2000);
 const MISSES_EACH = Number(process.env.BENCH_FAMILY_MISSES ?? 300);
@@ -28,8 +28,12 @@ const BURSTS = process.env.BENCH_BURSTS !== '0';
 const TARGET_P99_MS = 100;
 const TARGET_RATE = 150;
 
-/** Drawn from at random: notebook lists 50%, open 20%, log with a photo 10%, patterns 10%, PDF 5%, marks 5%. */
-const CYCLE = 'LOLSLPLOLFLOLSLPLOLM';
+/**
+ * Drawn from at random: notebook lists 50%, open 20%, log with a photo 10%, patterns 10%, PDF 5%,
+ * marks 5%. BENCH_FAMILY_MIX=F (or any string of the kinds' letters) offers another mix, to
+ * measure one kind's cost alone.
+ */
+const CYCLE = process.env.BENCH_FAMILY_MIX ?? 'LOLSLPLOLFLOLSLPLOLM';
 const KINDS = {
   L: 'notebook list (with and without filters)',
   O: 'open a miss',
@@ -39,6 +43,9 @@ const KINDS = {
   M: 'mark a sitting',
 } as const;
 type Kind = keyof typeof KINDS;
+if (![...CYCLE].every((k) => k in KINDS)) {
+  throw new Error(`BENCH_FAMILY_MIX takes letters of ${Object.keys(KINDS).join('')}, not ${CYCLE}`);
+}
 
 export interface Family {
   email: string;
@@ -318,6 +325,8 @@ interface RateResult {
   rate: number;
   load: Load;
   run: OpenLoopResult<Kind>;
+  /** The server's CPU over the run, where /proc tells it: main thread and all threads, ms. */
+  cpu?: { main: number; all: number };
 }
 
 /** SQLite in DATA_DIR, or PostgreSQL behind DATABASE_URL: the same fill, server and mix. */
@@ -389,8 +398,14 @@ async function familiesOn(db: Database): Promise<RateResult[]> {
         ];
         if (BURSTS) runs.push(['autocannon bursts', () => burstsAt(server.url, rate, draw)]);
         for (const [load, go] of runs) {
+          const before = processCpuMs(server.child.pid!);
           const run = await go();
-          results.push({ rate, load, run });
+          const after = processCpuMs(server.child.pid!);
+          const cpu =
+            before && after
+              ? { main: after.main - before.main, all: after.all - before.all }
+              : undefined;
+          results.push({ rate, load, run, cpu });
           console.log(
             `  ${rate} req/s offered (${load}): p99 ${Math.round(percentile(run.times, 99))} ms, ` +
               `${run.errors} errors or unanswered`,
@@ -407,12 +422,15 @@ async function familiesOn(db: Database): Promise<RateResult[]> {
   }
 }
 
-function row(database: string, { rate, load, run }: RateResult) {
+function row(database: string, { rate, load, run, cpu }: RateResult) {
   return {
     database,
     load,
     offered: rate,
     'answered/s': Math.round(run.answered / SECONDS),
+    // The event loop's CPU per answer, and how busy the server kept the machine's cores.
+    'main ms/req': cpu && run.answered ? (cpu.main / run.answered).toFixed(1) : '–',
+    'server CPU %': cpu ? Math.round(cpu.all / (10 * SECONDS)) : '–',
     'p50 ms': Math.round(percentile(run.times, 50)),
     'p99 ms': Math.round(percentile(run.times, 99)),
     'errors, unanswered': `${run.errors - run.unanswered}, ${run.unanswered}`,

@@ -1,3 +1,5 @@
+import { readFileSync } from 'node:fs';
+
 export function percentile(sorted: readonly number[], p: number): number {
   if (sorted.length === 0) return NaN;
   const i = Math.min(sorted.length - 1, Math.ceil((p / 100) * sorted.length) - 1);
@@ -14,4 +16,21 @@ export const ms = (n: number) => `${n.toFixed(1)} ms`;
 export function table(title: string, rows: Record<string, string | number>[]): void {
   console.log(`\n${title}`);
   console.table(rows);
+}
+
+/**
+ * CPU time a process has used so far, in ms, from Linux's /proc: its main thread (the event
+ * loop, where JavaScript runs) and all its threads (libuv's pool too). Undefined elsewhere.
+ */
+export function processCpuMs(pid: number): { main: number; all: number } | undefined {
+  // Fields 14 and 15 of stat are user and system time in clock ticks (USER_HZ, 100 on Linux).
+  const ticks = (file: string) => {
+    const fields = readFileSync(file, 'utf8').split(') ')[1]!.split(' ');
+    return (Number(fields[11]) + Number(fields[12])) * 10;
+  };
+  try {
+    return { main: ticks(`/proc/${pid}/task/${pid}/stat`), all: ticks(`/proc/${pid}/stat`) };
+  } catch {
+    return undefined;
+  }
 }
