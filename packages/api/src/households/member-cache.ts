@@ -32,7 +32,9 @@ const WATCHED: ModelStatic<Model>[] = [User, Household, Membership, StudentGrant
  * A short-lived cache of the session user and their memberships, so a signed-in request does
  * not read `users`, `memberships` and `student_grants` every time. Any write through the models
  * above empties it (again once its transaction commits), and services that change those tables
- * in raw SQL call `clear()` themselves; entries also expire after `ttlMs`.
+ * in raw SQL call `clear()` themselves; entries also expire after `ttlMs`, a minute: long enough
+ * that a parent's visit reads them once (at 5 s, most requests of many families read both
+ * tables again), short enough that an edit made past the app (a restored file) soon shows.
  *
  * On PostgreSQL (DATABASE_URL) nothing is kept: several processes share the database, and a
  * grant removed through one must hold on the others at their very next request, which no
@@ -40,7 +42,7 @@ const WATCHED: ModelStatic<Model>[] = [User, Household, Membership, StudentGrant
  */
 @Injectable()
 export class MemberCache implements OnModuleDestroy {
-  static readonly TTL_MS = 5_000;
+  static readonly TTL_MS = 60_000;
   private readonly ttlMs = MemberCache.TTL_MS;
   private generation = 0;
   private readonly users = new Map<number, Entry<SessionUser | null>>();
