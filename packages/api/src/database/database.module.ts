@@ -5,6 +5,7 @@ import { Transaction } from 'sequelize';
 import type { AppConfig } from '../config/app.config.js';
 import { DatabaseService } from './database.service.js';
 import { MODELS } from './models.js';
+import { SqlReader } from './sql-reader.js';
 
 @Global()
 @Module({
@@ -39,7 +40,7 @@ import { MODELS } from './models.js';
       },
     }),
   ],
-  providers: [DatabaseService],
-  exports: [DatabaseService],
+  providers: [DatabaseService, SqlReader],
+  exports: [DatabaseService, SqlReader],
 })
 export class DatabaseModule {}

@@ -3,14 +3,17 @@ import { InjectModel } from '@nestjs/sequelize';
 import {
   checkLines,
   type CheckedLines,
+  type Diagnosis,
   type InterviewStage,
   type WrittenSteps,
 } from '@workback/core';
 import { Op, type Transaction } from 'sequelize';
 import { fieldsError } from '../common/pipes/validation.pipe.js';
+import { SqlReader } from '../database/sql-reader.js';
 import { DiagnoseService, type Checked } from '../diagnose/diagnose.service.js';
 import { MAX_LINE_LENGTH } from './dto/create-miss.dto.js';
 import { firstWrongLine, ruleIdsOf, type WordProblem } from './miss-columns.js';
+import { jsonOf } from './miss-json.js';
 import { MissDiagnosis } from './models/miss-diagnosis.model.js';
 import { MissRule } from './models/miss-rule.model.js';
 import type { Miss } from './models/miss.model.js';
@@ -22,6 +25,7 @@ export class MissDiagnosesService {
     @InjectModel(MissRule) private readonly ruleModel: typeof MissRule,
     @InjectModel(MissDiagnosis) private readonly diagnosisModel: typeof MissDiagnosis,
     private readonly diagnoser: DiagnoseService,
+    private readonly reader: SqlReader,
   ) {}
 
   check(problem: string, answer: string, steps: WrittenSteps | null): Checked {
@@ -86,8 +90,13 @@ export class MissDiagnosesService {
   }
 
   /** The stored full diagnosis of one miss (null when the engine could not read it). */
-  async diagnosisOf(missId: number) {
-    return (await this.diagnosisModel.findByPk(missId))?.diagnosis ?? null;
+  async diagnosisOf(missId: number): Promise<Diagnosis | null> {
+    // Read on every opened miss: straight through the driver (SqlReader), not as a model.
+    const [row] = await this.reader.rows<{ diagnosis: string | null }>(
+      'SELECT "diagnosis" FROM "miss_diagnoses" WHERE "miss_id" = ?',
+      [missId],
+    );
+    return row ? jsonOf<Diagnosis | null>(row.diagnosis, null) : null;
   }
 
   /** The stored full diagnoses of these misses, by miss id. */

@@ -1,4 +1,5 @@
 import type { Diagnosis } from '@workback/core';
+import { driverBoolean, driverDate } from '../database/sql-reader.js';
 import type { PhotoJson } from '../photos/photos.service.js';
 import type { Miss } from './models/miss.model.js';
 
@@ -49,8 +50,6 @@ export function jsonOf<T>(v: unknown, fallback: T): T {
  */
 export function fromRawRow(r: RawMissRow): SummaryFields {
   const json = jsonOf;
-  const date = (v: unknown): Date =>
-    v instanceof Date ? v : new Date(String(v).replace(' ', 'T').replace(' ', ''));
   return {
     ...(r as unknown as SummaryFields),
     steps: json(r.steps, null),
@@ -58,9 +57,9 @@ export function fromRawRow(r: RawMissRow): SummaryFields {
     revisit: json(r.revisit, []),
     lines: json(r.lines, null),
     ruleIds: json(r.ruleIds, []),
-    correct: r.correct === null ? null : Boolean(r.correct),
-    createdAt: date(r.createdAt),
-    updatedAt: date(r.updatedAt),
+    correct: driverBoolean(r.correct),
+    createdAt: driverDate(r.createdAt),
+    updatedAt: driverDate(r.updatedAt),
   };
 }
 

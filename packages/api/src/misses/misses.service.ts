@@ -5,6 +5,7 @@ import { Op, UniqueConstraintError, type Transaction } from 'sequelize';
 import type { Sequelize } from 'sequelize-typescript';
 import type { MemberContext } from '../common/member-context.js';
 import { fieldsError } from '../common/pipes/validation.pipe.js';
+import { placeholders, selectList, SqlReader } from '../database/sql-reader.js';
 import { MAX_PHOTOS_PER_MISS } from '../photos/photo-limits.js';
 import { PhotosService, type UploadedPhoto } from '../photos/photos.service.js';
 import { StudentsService } from '../students/students.service.js';
@@ -22,6 +23,9 @@ import {
 import { missScope } from './miss-scope.js';
 import { Miss } from './models/miss.model.js';
 import { requestDigest } from './request-digest.js';
+
+/** The columns an opened miss shows, as SqlReader reads them. */
+const OPEN_COLUMNS = selectList(Miss, [...SUMMARY_ATTRIBUTES, 'linesCheck']);
 
 /** Links a miss to a sitting's key item; set by the keys and sittings services, not by clients. */
 export interface MissLinks {
@@ -43,6 +47,7 @@ export class MissesService {
     private readonly students: StudentsService,
     private readonly photos: PhotosService,
     private readonly diagnoses: MissDiagnosesService,
+    private readonly reader: SqlReader,
   ) {}
 
   /**
@@ -145,12 +150,15 @@ export class MissesService {
   }
 
   async findOne(member: MemberContext, id: number) {
-    // A plain row, not a model instance: opening a miss reads it, never saves it.
-    const row = (await this.missModel.findOne({
-      attributes: [...SUMMARY_ATTRIBUTES, 'linesCheck'],
-      where: { [Op.and]: [missScope(member), { id }] },
-      raw: true,
-    })) as unknown as (RawMissRow & { linesCheck: unknown }) | null;
+    // A plain row through the driver (SqlReader), not a model: opening a miss reads it, never
+    // saves it, and is one of the commonest requests.
+    const scope = member.studentIds;
+    if (scope?.length === 0) throw new NotFoundException(`No miss ${id} in this household`);
+    const [row] = await this.reader.rows<RawMissRow & { linesCheck: unknown }>(
+      `SELECT ${OPEN_COLUMNS()} FROM "misses" WHERE "id" = ? AND "household_id" = ?` +
+        (scope ? ` AND "student_id" IN (${placeholders(scope.length)})` : ''),
+      [id, member.householdId, ...(scope ?? [])],
+    );
     if (!row) throw new NotFoundException(`No miss ${id} in this household`);
     const miss = fromRawRow(row);
     const photos = (await this.photos.forMisses([miss.id])).get(miss.id) ?? [];

@@ -9,11 +9,12 @@ import {
 } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
 import { InjectConnection, InjectModel } from '@nestjs/sequelize';
-import { Op, type Transaction } from 'sequelize';
+import type { Transaction } from 'sequelize';
 import type { Sequelize } from 'sequelize-typescript';
 import sharp from 'sharp';
 import type { MemberContext } from '../common/member-context.js';
 import type { AppConfig } from '../config/app.config.js';
+import { driverDate, placeholders, selectList, SqlReader } from '../database/sql-reader.js';
 import { PHOTO_STORAGE, smallKeyOf, type PhotoStorage } from '../storage/photo-storage.js';
 import { DecodeSlots } from './decode-slots.js';
 import { PhotoMark } from './models/photo-mark.model.js';
@@ -75,6 +76,7 @@ export class PhotosService {
     @InjectModel(PhotoMark) private readonly markModel: typeof PhotoMark,
     @Inject(PHOTO_STORAGE) private readonly storage: PhotoStorage,
     @InjectConnection() private readonly sequelize: Sequelize,
+    private readonly reader: SqlReader,
     private readonly pipeline: PhotoPipeline,
     config: ConfigService,
   ) {
@@ -198,17 +200,16 @@ export class PhotosService {
   async forMisses(missIds: readonly number[]): Promise<Map<number, PhotoJson[]>> {
     const map = new Map<number, PhotoJson[]>();
     if (missIds.length === 0) return map;
-    const photos = await this.photoModel.findAll({
-      where: { missId: { [Op.in]: missIds } },
-      order: [
-        ['missId', 'ASC'],
-        ['position', 'ASC'],
-      ],
-    });
+    // Read on every opened miss: straight through the driver (SqlReader), not as models.
+    const photos = await this.reader.rows<PhotoRow>(
+      `SELECT ${PHOTO_COLUMNS()} FROM "photos" WHERE "miss_id" IN (${placeholders(missIds.length)})
+       ORDER BY "miss_id", "position"`,
+      missIds,
+    );
     const marks = await this.marksByPhoto(photos.map((p) => p.id));
     for (const p of photos) {
       const list = map.get(p.missId) ?? [];
-      list.push(toPhotoJson(p, marks.get(p.id) ?? []));
+      list.push(toPhotoJson({ ...p, createdAt: driverDate(p.createdAt) }, marks.get(p.id) ?? []));
       map.set(p.missId, list);
     }
     return map;
@@ -220,14 +221,12 @@ export class PhotosService {
   ): Promise<Map<number, { id: number; count: number }>> {
     const map = new Map<number, { id: number; count: number }>();
     if (missIds.length === 0) return map;
-    const rows = await this.photoModel.findAll({
-      attributes: ['id', 'missId'],
-      where: { missId: { [Op.in]: missIds } },
-      order: [
-        ['missId', 'ASC'],
-        ['position', 'ASC'],
-      ],
-    });
+    // Read for every notebook page: straight through the driver (SqlReader), not as models.
+    const rows = await this.reader.rows<{ id: number; missId: number }>(
+      `SELECT "id", "miss_id" AS "missId" FROM "photos"
+       WHERE "miss_id" IN (${placeholders(missIds.length)}) ORDER BY "miss_id", "position"`,
+      missIds,
+    );
     for (const r of rows) {
       const seen = map.get(r.missId);
       if (seen) seen.count++;
@@ -271,10 +270,11 @@ export class PhotosService {
   async marksByPhoto(photoIds: readonly number[]): Promise<Map<number, MarkJson[]>> {
     const map = new Map<number, MarkJson[]>();
     if (photoIds.length === 0) return map;
-    const marks = await this.markModel.findAll({
-      where: { photoId: { [Op.in]: photoIds } },
-      order: [['id', 'ASC']],
-    });
+    const marks = await this.reader.rows<MarkJson & { photoId: number }>(
+      `SELECT "id", "photo_id" AS "photoId", "x", "y", "label" FROM "photo_marks"
+       WHERE "photo_id" IN (${placeholders(photoIds.length)}) ORDER BY "id"`,
+      photoIds,
+    );
     for (const m of marks) {
       const list = map.get(m.photoId) ?? [];
       list.push({ id: m.id, x: m.x, y: m.y, label: m.label });
@@ -284,7 +284,28 @@ export class PhotosService {
   }
 }
 
-export function toPhotoJson(p: Photo, marks: MarkJson[]): PhotoJson {
+/** The columns of a photo the app shows (toPhotoJson), as SqlReader reads them. */
+const PHOTO_ATTRIBUTES = [
+  'id',
+  'missId',
+  'position',
+  'contentType',
+  'width',
+  'height',
+  'bytes',
+  'thumbWidth',
+  'thumbHeight',
+  'createdAt',
+] as const satisfies readonly (keyof Photo)[];
+const PHOTO_COLUMNS = selectList(Photo, PHOTO_ATTRIBUTES);
+type PhotoRow = Pick<Photo, Exclude<(typeof PHOTO_ATTRIBUTES)[number], 'createdAt'>> & {
+  createdAt: unknown;
+};
+
+export function toPhotoJson(
+  p: Pick<Photo, Exclude<(typeof PHOTO_ATTRIBUTES)[number], 'missId'>>,
+  marks: MarkJson[],
+): PhotoJson {
   return {
     id: p.id,
     position: p.position,

@@ -1,13 +1,10 @@
 import { Injectable } from '@nestjs/common';
 import { InjectModel } from '@nestjs/sequelize';
-import { Op } from 'sequelize';
-import { AnswerKeysService } from '../answer-keys/answer-keys.service.js';
 import { AnswerKey } from '../answer-keys/models/answer-key.model.js';
-import type { KeyItem } from '../answer-keys/models/key-item.model.js';
 import type { MemberContext } from '../common/member-context.js';
+import { placeholders, SqlReader } from '../database/sql-reader.js';
 import { StudentsService } from '../students/students.service.js';
 import type { SittingRangeQuery } from './dto/list-sittings.query.js';
-import { SittingMark } from './models/sitting-mark.model.js';
 import { Sitting } from './models/sitting.model.js';
 import { scoreOf, sumTallies } from './sitting-json.js';
 import { SittingsService } from './sittings.service.js';
@@ -21,10 +18,9 @@ const SUMMARY_CAUTION =
 export class SittingSummariesService {
   constructor(
     @InjectModel(Sitting) private readonly sittingModel: typeof Sitting,
-    @InjectModel(SittingMark) private readonly markModel: typeof SittingMark,
     private readonly sittings: SittingsService,
     private readonly students: StudentsService,
-    private readonly keys: AnswerKeysService,
+    private readonly reader: SqlReader,
   ) {}
 
   async summary(member: MemberContext, studentId: number, query: SittingRangeQuery) {
@@ -103,12 +99,29 @@ export class SittingSummariesService {
       ],
     });
     if (sittings.length === 0) return [];
-    const marks = await this.markModel.findAll({
-      where: { sittingId: { [Op.in]: sittings.map((s) => s.id) }, correct: true },
-    });
-    const items = new Map<number, KeyItem>();
-    for (const keyId of new Set(sittings.map((s) => s.answerKeyId)))
-      for (const item of await this.keys.itemsOf(keyId)) items.set(item.id, item);
+    // Hundreds of rows for a term of sittings, read for the maths and never saved: straight
+    // through the driver (SqlReader), not as models, and every key's items in one read.
+    const sittingIds = sittings.map((s) => s.id);
+    const marks = await this.reader.rows<{
+      sittingId: number;
+      keyItemId: number;
+      answer: string | null;
+    }>(
+      `SELECT "sitting_id" AS "sittingId", "key_item_id" AS "keyItemId", "answer"
+       FROM "sitting_marks" WHERE "sitting_id" IN (${placeholders(sittingIds.length)}) AND "correct" = ?
+       ORDER BY "id"`,
+      [...sittingIds, true],
+    );
+    const keyIds = [...new Set(sittings.map((s) => s.answerKeyId))];
+    const items = new Map(
+      (
+        await this.reader.rows<{ id: number; prompt: string; answer: string }>(
+          `SELECT "id", "prompt", "answer" FROM "key_items"
+           WHERE "answer_key_id" IN (${placeholders(keyIds.length)})`,
+          keyIds,
+        )
+      ).map((item) => [item.id, item]),
+    );
     const day = new Map(sittings.map((s) => [s.id, s.startedAt.slice(0, 10)]));
     return marks.flatMap((m) => {
       const item = items.get(m.keyItemId);
