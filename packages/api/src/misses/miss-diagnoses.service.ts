@@ -60,21 +60,25 @@ export class MissDiagnosesService {
     return { lines, linesCheck, stage };
   }
 
-  /** The diagnosis row and the rule rows of a miss, replaced by the new findings. */
+  /**
+   * The diagnosis row and the rule rows of a miss, replaced by the new findings. `newMiss`: the
+   * miss was made in this transaction, so there are none to remove first.
+   */
   async writeRules(
     miss: Miss,
     checked: Checked,
     transaction: Transaction,
     word: WordProblem | null = null,
+    newMiss = false,
   ) {
-    await this.diagnosisModel.destroy({ where: { missId: miss.id }, transaction });
+    if (!newMiss) await this.diagnosisModel.destroy({ where: { missId: miss.id }, transaction });
     if (checked.checked) {
       await this.diagnosisModel.create(
         { missId: miss.id, diagnosis: checked.diagnosis },
         { transaction },
       );
     }
-    await this.ruleModel.destroy({ where: { missId: miss.id }, transaction });
+    if (!newMiss) await this.ruleModel.destroy({ where: { missId: miss.id }, transaction });
     const counted = checked.checked ? checked.diagnosis : firstWrongLine(word?.linesCheck ?? null);
     const ids = counted ? ruleIdsOf(counted) : [];
     if (ids.length === 0) return;

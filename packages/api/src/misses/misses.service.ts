@@ -98,8 +98,8 @@ export class MissesService {
           },
           { transaction },
         );
-        await this.diagnoses.writeRules(miss, checked, transaction, word);
-        await this.photos.createRows(miss.id, staged, member.userId, transaction);
+        await this.diagnoses.writeRules(miss, checked, transaction, word, true);
+        await this.photos.createRows(miss.id, staged, member.userId, transaction, true);
         return miss.id;
       });
       return this.findOne(member, id);

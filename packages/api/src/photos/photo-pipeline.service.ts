@@ -69,15 +69,23 @@ export class PhotoPipeline {
         .flatten({ background: '#ffffff' })
         .jpeg({ quality: 82, chromaSubsampling: '4:2:0' })
         .toBuffer({ resolveWithObject: true });
-      const thumb = await sharp(display.data)
-        .resize(THUMB_LONGEST_SIDE, THUMB_LONGEST_SIDE, { fit: 'inside', withoutEnlargement: true })
-        .jpeg({ quality: 78 })
-        .toBuffer({ resolveWithObject: true });
+      // Both from the display image, side by side: JPEG shrink-on-load makes each decode of it
+      // small, and the photo is ready a pipeline sooner than with the square cut from the thumb.
+      const [thumb, small] = await Promise.all([
+        sharp(display.data)
+          .resize(THUMB_LONGEST_SIDE, THUMB_LONGEST_SIDE, {
+            fit: 'inside',
+            withoutEnlargement: true,
+          })
+          .jpeg({ quality: 78 })
+          .toBuffer({ resolveWithObject: true }),
+        smallThumb(display.data),
+      ]);
       return {
         contentType: 'image/jpeg',
         display: { data: display.data, width: display.info.width, height: display.info.height },
         thumb: { data: thumb.data, width: thumb.info.width, height: thumb.info.height },
-        small: await smallThumb(thumb.data),
+        small,
       };
     } catch (err) {
       throw new UnprocessableEntityException(refusal(label, err));

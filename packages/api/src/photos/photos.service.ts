@@ -134,12 +134,21 @@ export class PhotosService {
       for (const p of processed) {
         const id = randomUUID();
         const item = { processed: p, storageKey: `${id}.jpg`, thumbKey: `${id}-thumb.jpg` };
-        await this.storage.put(item.storageKey, p.display.data);
-        written.push(item.storageKey);
-        await this.storage.put(item.thumbKey, p.thumb.data);
-        written.push(item.thumbKey);
-        await this.storage.put(smallKeyOf(item.storageKey), p.small.data);
-        written.push(smallKeyOf(item.storageKey));
+        // A photo's three files are written side by side (each put is several file-system
+        // round trips, and its own sync); every one that was written is removed on a failure.
+        const files: [string, Buffer][] = [
+          [item.storageKey, p.display.data],
+          [item.thumbKey, p.thumb.data],
+          [smallKeyOf(item.storageKey), p.small.data],
+        ];
+        const puts = await Promise.allSettled(
+          files.map(async ([key, data]) => {
+            await this.storage.put(key, data);
+            written.push(key);
+          }),
+        );
+        const failed = puts.find((put) => put.status === 'rejected');
+        if (failed) throw failed.reason;
         staged.push(item);
       }
       return staged;
@@ -160,36 +169,43 @@ export class PhotosService {
     await this.removeKeys(staged.flatMap(keysOf));
   }
 
+  /**
+   * The rows of staged photos, after the miss's last photo. `newMiss`: the miss was made in
+   * this transaction, so it has none yet and nothing is read first.
+   */
   async createRows(
     missId: number,
     staged: readonly StagedPhoto[],
     userId: number | null,
     transaction: Transaction,
+    newMiss = false,
   ): Promise<void> {
-    const last = (await this.photoModel.max<number | null, Photo>('position', {
-      where: { missId },
-      transaction,
-    })) as number | null;
-    let position = (last ?? 0) + 1;
-    for (const s of staged) {
-      await this.photoModel.create(
-        {
-          missId,
-          position: position++,
-          contentType: s.processed.contentType,
-          storageKey: s.storageKey,
-          thumbKey: s.thumbKey,
-          width: s.processed.display.width,
-          height: s.processed.display.height,
-          bytes: s.processed.display.data.length,
-          thumbWidth: s.processed.thumb.width,
-          thumbHeight: s.processed.thumb.height,
-          thumbBytes: s.processed.thumb.data.length,
-          createdBy: userId,
-        },
-        { transaction },
-      );
-    }
+    if (staged.length === 0) return;
+    const last = newMiss
+      ? 0
+      : ((await this.photoModel.max<number | null, Photo>('position', {
+          where: { missId },
+          transaction,
+        })) as number | null);
+    const first = (last ?? 0) + 1;
+    // One INSERT for all of them: a transaction holds the write lock for each round trip.
+    await this.photoModel.bulkCreate(
+      staged.map((s, i) => ({
+        missId,
+        position: first + i,
+        contentType: s.processed.contentType,
+        storageKey: s.storageKey,
+        thumbKey: s.thumbKey,
+        width: s.processed.display.width,
+        height: s.processed.display.height,
+        bytes: s.processed.display.data.length,
+        thumbWidth: s.processed.thumb.width,
+        thumbHeight: s.processed.thumb.height,
+        thumbBytes: s.processed.thumb.data.length,
+        createdBy: userId,
+      })),
+      { transaction },
+    );
   }
 
   async countFor(missId: number, transaction?: Transaction): Promise<number> {
