@@ -154,7 +154,12 @@ export async function renderReviewPlanPdf(plan: ReviewPlanJson): Promise<Buffer>
 
   heading(doc, 'Problems to re-work together');
   if (plan.misses.length === 0) doc.text('The misses of this plan have been deleted.');
-  plan.misses.forEach((m, i) => drawMiss(doc, plan, m, i + 1, width, tick, small));
+  for (const [i, m] of plan.misses.entries()) {
+    drawMiss(doc, plan, m, i + 1, width, tick, small);
+    // A long plan is laid out in turns: other requests' short steps (a transaction's next
+    // statement, holding the write lock) are not kept waiting behind all of it.
+    if (i % 4 === 3) await new Promise<void>((resolve) => setImmediate(resolve));
+  }
 
   heading(doc, 'Practice problems');
   if (plan.practice.length === 0) doc.text('No written-method errors to practise this time.');
