@@ -1,6 +1,8 @@
 import { Injectable, type OnModuleInit } from '@nestjs/common';
+import { ConfigService } from '@nestjs/config';
 import { InjectConnection } from '@nestjs/sequelize';
 import type { Sequelize } from 'sequelize-typescript';
+import type { AppConfig } from '../config/app.config.js';
 import { migrateOnce } from './migrator.js';
 import { CONNECTION_PRAGMAS, preparePragmasOnConnect } from './sqlite-pragmas.js';
 import { TableInfoCache } from './sqlite-table-info-cache.js';
@@ -14,13 +16,19 @@ export class DatabaseService implements OnModuleInit {
   private lastPing: { at: number; done: Promise<void> } | undefined;
   private readonly tableInfo = new TableInfoCache();
 
-  constructor(@InjectConnection() private readonly sequelize: Sequelize) {}
+  constructor(
+    @InjectConnection() private readonly sequelize: Sequelize,
+    private readonly config: ConfigService,
+  ) {}
 
   async onModuleInit(): Promise<void> {
     if (this.sequelize.getDialect() === 'sqlite') {
       preparePragmasOnConnect(this.sequelize, this.tableInfo);
       // SQLite has one writer per file; PostgreSQL runs concurrent transactions itself.
-      queueTransactions(this.sequelize);
+      // The check for a transaction opened inside another is a developer's guard.
+      queueTransactions(this.sequelize, {
+        guardNesting: this.config.getOrThrow<AppConfig>('app').env !== 'production',
+      });
       // The default connection was opened by the module's authenticate() before the wrap.
       for (const pragma of CONNECTION_PRAGMAS) await this.sequelize.query(pragma);
     }

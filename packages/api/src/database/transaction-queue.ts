@@ -11,7 +11,10 @@ type Work<T> = (transaction: Transaction) => PromiseLike<T>;
  * next statement until the waiters gave up with SQLITE_BUSY. Queued here they wait in
  * JavaScript instead; busy_timeout is left to writers in other processes (a backup).
  */
-export function queueTransactions(sequelize: Sequelize): void {
+export function queueTransactions(
+  sequelize: Sequelize,
+  { guardNesting = true }: { guardNesting?: boolean } = {},
+): void {
   const begin = sequelize.transaction.bind(sequelize) as <T>(
     options: object,
     work: Work<T>,
@@ -19,10 +22,12 @@ export function queueTransactions(sequelize: Sequelize): void {
   const inside = new AsyncLocalStorage<true>();
   let last: Promise<unknown> = Promise.resolve();
   // While a store is enabled, Node 20 runs an async hook on every promise in the process, reads
-  // included. Transactions are few; the store is enabled only while one is queued or running.
+  // included. It is enabled only while a transaction is queued or running, and only where
+  // `guardNesting` asks for the check (development and tests): with many families logging at
+  // once some transaction nearly always is, and production pays for every promise.
   let queued = 0;
   const settled = () => {
-    if (--queued === 0) inside.disable();
+    if (--queued === 0 && guardNesting) inside.disable();
   };
 
   function transaction<T>(optionsOrWork: object | Work<T>, maybeWork?: Work<T>): Promise<T> {
@@ -34,7 +39,9 @@ export function queueTransactions(sequelize: Sequelize): void {
       throw new Error('A transaction was opened inside another: pass the outer one instead');
     }
     queued++;
-    const run = last.then(() => begin<T>(options, (t) => inside.run(true, () => work(t))));
+    const run = last.then(() =>
+      begin<T>(options, (t) => (guardNesting ? inside.run(true, () => work(t)) : work(t))),
+    );
     last = run.then(settled, settled);
     return run;
   }
