@@ -69,7 +69,7 @@ export class MissDiagnosesService {
     checked: Checked,
     transaction: Transaction,
     word: WordProblem | null = null,
-    newMiss = false,
+    { newMiss = false }: { newMiss?: boolean } = {},
   ) {
     if (!newMiss) await this.diagnosisModel.destroy({ where: { missId: miss.id }, transaction });
     if (checked.checked) {

@@ -5,7 +5,7 @@ import { Op, UniqueConstraintError, type Transaction } from 'sequelize';
 import type { Sequelize } from 'sequelize-typescript';
 import type { MemberContext } from '../common/member-context.js';
 import { fieldsError } from '../common/pipes/validation.pipe.js';
-import { placeholders, selectList, SqlReader } from '../database/sql-reader.js';
+import { selectList, SqlReader } from '../database/sql-reader.js';
 import { MAX_PHOTOS_PER_MISS } from '../photos/photo-limits.js';
 import { PhotosService, type UploadedPhoto } from '../photos/photos.service.js';
 import { StudentsService } from '../students/students.service.js';
@@ -20,7 +20,7 @@ import {
   toMissJson,
   type RawMissRow,
 } from './miss-json.js';
-import { missScope } from './miss-scope.js';
+import { missScope, missScopeSql } from './miss-scope.js';
 import { Miss } from './models/miss.model.js';
 import { requestDigest } from './request-digest.js';
 
@@ -98,8 +98,10 @@ export class MissesService {
           },
           { transaction },
         );
-        await this.diagnoses.writeRules(miss, checked, transaction, word, true);
-        await this.photos.createRows(miss.id, staged, member.userId, transaction, true);
+        await this.diagnoses.writeRules(miss, checked, transaction, word, { newMiss: true });
+        await this.photos.createRows(miss.id, staged, member.userId, transaction, {
+          newMiss: true,
+        });
         return miss.id;
       });
       return this.findOne(member, id);
@@ -152,12 +154,10 @@ export class MissesService {
   async findOne(member: MemberContext, id: number) {
     // A plain row through the driver (SqlReader), not a model: opening a miss reads it, never
     // saves it, and is one of the commonest requests.
-    const scope = member.studentIds;
-    if (scope?.length === 0) throw new NotFoundException(`No miss ${id} in this household`);
+    const scope = missScopeSql(member);
     const [row] = await this.reader.rows<RawMissRow & { linesCheck: unknown }>(
-      `SELECT ${OPEN_COLUMNS()} FROM "misses" WHERE "id" = ? AND "household_id" = ?` +
-        (scope ? ` AND "student_id" IN (${placeholders(scope.length)})` : ''),
-      [id, member.householdId, ...(scope ?? [])],
+      `SELECT ${OPEN_COLUMNS()} FROM "misses" WHERE "id" = ? AND ${scope.sql}`,
+      [id, ...scope.params],
     );
     if (!row) throw new NotFoundException(`No miss ${id} in this household`);
     const miss = fromRawRow(row);

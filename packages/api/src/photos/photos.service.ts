@@ -17,7 +17,6 @@ import type { AppConfig } from '../config/app.config.js';
 import { driverDate, placeholders, selectList, SqlReader } from '../database/sql-reader.js';
 import { PHOTO_STORAGE, smallKeyOf, type PhotoStorage } from '../storage/photo-storage.js';
 import { DecodeSlots } from './decode-slots.js';
-import { PhotoMark } from './models/photo-mark.model.js';
 import { Photo } from './models/photo.model.js';
 import { PhotoPipeline, type ProcessedPhoto } from './photo-pipeline.service.js';
 
@@ -73,7 +72,6 @@ export class PhotosService {
 
   constructor(
     @InjectModel(Photo) private readonly photoModel: typeof Photo,
-    @InjectModel(PhotoMark) private readonly markModel: typeof PhotoMark,
     @Inject(PHOTO_STORAGE) private readonly storage: PhotoStorage,
     @InjectConnection() private readonly sequelize: Sequelize,
     private readonly reader: SqlReader,
@@ -178,7 +176,7 @@ export class PhotosService {
     staged: readonly StagedPhoto[],
     userId: number | null,
     transaction: Transaction,
-    newMiss = false,
+    { newMiss = false }: { newMiss?: boolean } = {},
   ): Promise<void> {
     if (staged.length === 0) return;
     const last = newMiss
