@@ -34,7 +34,7 @@ export class CheckUpsService {
   }
 
   async findAll(member: MemberContext, query: ListCheckUpsQuery) {
-    if (query.studentId !== undefined) await this.students.findModel(member, query.studentId);
+    if (query.studentId !== undefined) await this.students.find(member, query.studentId);
     const rows = await this.checkUpModel.findAll({
       where: {
         [Op.and]: [
@@ -81,7 +81,7 @@ export class CheckUpsService {
    * counts the student's check-ups, so a second check-up on the same rules brings new problems.
    */
   async create(member: MemberContext, dto: CreateCheckUpDto) {
-    const student = await this.students.findModel(member, dto.studentId);
+    const student = await this.students.find(member, dto.studentId);
     const earlier = await this.checkUpModel.count({
       where: { householdId: member.householdId, studentId: student.id },
     });
@@ -172,7 +172,7 @@ export class CheckUpsService {
 
   async pdf(member: MemberContext, id: number, which: 'sheet' | 'answers') {
     const row = await this.findModel(member, id);
-    const student = await this.students.findModel(member, row.studentId);
+    const student = await this.students.find(member, row.studentId);
     const header = { studentName: student.name, createdOn: row.createdAt.toISOString() };
     const body =
       which === 'sheet'

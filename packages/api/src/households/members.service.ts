@@ -102,7 +102,7 @@ export class MembersService {
   /** Every id must be a student of this household (404 otherwise), and a tutor needs one. */
   async assertStudents(member: MemberContext, studentIds: readonly number[]): Promise<void> {
     if (studentIds.length === 0) throw fieldsError({ studentIds: TUTOR_NEEDS_STUDENTS });
-    for (const studentId of new Set(studentIds)) await this.students.findModel(member, studentId);
+    for (const studentId of new Set(studentIds)) await this.students.find(member, studentId);
   }
 
   async isMember(householdId: number, email: string): Promise<boolean> {

@@ -62,7 +62,7 @@ export class MissesService {
     links: MissLinks = {},
     once: SentOnce | null = null,
   ) {
-    await this.students.findModel(member, dto.studentId);
+    await this.students.find(member, dto.studentId);
     if (files.length > MAX_PHOTOS_PER_MISS) {
       throw fieldsError({ photos: `attach at most ${MAX_PHOTOS_PER_MISS} photos` });
     }
@@ -182,7 +182,7 @@ export class MissesService {
   async update(member: MemberContext, id: number, dto: UpdateMissDto) {
     const miss = await this.findModel(member, id);
     if (dto.studentId !== undefined && dto.studentId !== miss.studentId) {
-      await this.students.findModel(member, dto.studentId);
+      await this.students.find(member, dto.studentId);
     }
     const changes: Partial<Miss> = {};
     for (const key of [

@@ -4,6 +4,7 @@ import { Op } from 'sequelize';
 import { CheckUpsService } from '../check-ups/check-ups.service.js';
 import type { MemberContext } from '../common/member-context.js';
 import { fieldsError } from '../common/pipes/validation.pipe.js';
+import { driverDate, SqlReader } from '../database/sql-reader.js';
 import { StudentMissesService } from '../misses/student-misses.service.js';
 import { ReviewPlansService } from '../review-plans/review-plans.service.js';
 import { SittingSummariesService } from '../sittings/sitting-summaries.service.js';
@@ -25,13 +26,14 @@ export class PatternsService {
     private readonly plans: ReviewPlansService,
     private readonly checkUps: CheckUpsService,
     private readonly memo: PatternsMemo,
+    private readonly reader: SqlReader,
   ) {}
 
   /** One student's patterns over a day range, the maths done by `@workback/core`. */
   async find(member: MemberContext, query: PatternsQuery, today = new Date()) {
     if (query.from && query.to && query.from > query.to)
       throw fieldsError({ to: 'to must be on or after from' });
-    const student = await this.students.findModel(member, query.studentId);
+    const student = await this.students.find(member, query.studentId);
     const range = { from: query.from, to: query.to };
     const [misses, rightItems, plans, notes, checkUpOn] = await Promise.all([
       this.misses.patternMisses(member, { studentId: student.id, ...range }),
@@ -70,7 +72,7 @@ export class PatternsService {
   }
 
   async listNotes(member: MemberContext, studentId: number) {
-    const student = await this.students.findModel(member, studentId);
+    const student = await this.students.find(member, studentId);
     const items = await this.notesOf(member, student.id);
     return { items, total: items.length };
   }
@@ -78,7 +80,7 @@ export class PatternsService {
   async createNote(member: MemberContext, dto: CreatePatternNoteDto) {
     const problem = patternKeyProblem(dto.patternKey);
     if (problem !== null) throw fieldsError({ patternKey: problem });
-    const student = await this.students.findModel(member, dto.studentId);
+    const student = await this.students.find(member, dto.studentId);
     const note = await this.noteModel.create({
       householdId: member.householdId,
       studentId: student.id,
@@ -107,18 +109,40 @@ export class PatternsService {
       : { householdId: member.householdId, studentId: { [Op.in]: member.studentIds } };
   }
 
-  private async notesOf(member: MemberContext, studentId: number) {
-    const rows = await this.noteModel.findAll({
-      where: { [Op.and]: [this.scope(member), { studentId }] },
-      include: [{ model: User, attributes: ['id', 'displayName'] }],
-      order: [
-        ['createdAt', 'ASC'],
-        ['id', 'ASC'],
-      ],
-    });
-    return rows.map(toPatternNoteJson);
+  /** The student's notes, oldest first, as plain rows through the driver (every patterns view reads them). */
+  private async notesOf(member: MemberContext, studentId: number): Promise<PatternNoteJson[]> {
+    if (member.studentIds !== null && !member.studentIds.includes(studentId)) return [];
+    const rows = await this.reader.rows<NoteRow>(
+      `SELECT "n"."id", "n"."student_id" AS "studentId", "n"."pattern_key" AS "patternKey",
+              "n"."body", "n"."created_at" AS "createdAt",
+              "u"."id" AS "authorId", "u"."display_name" AS "authorName"
+       FROM "pattern_notes" AS "n" LEFT JOIN "users" AS "u" ON "u"."id" = "n"."author_id"
+       WHERE "n"."household_id" = ? AND "n"."student_id" = ?
+       ORDER BY "n"."created_at", "n"."id"`,
+      [member.householdId, studentId],
+    );
+    return rows.map((r) => ({
+      id: r.id,
+      studentId: r.studentId,
+      patternKey: r.patternKey,
+      body: r.body,
+      author: r.authorId === null ? null : { id: r.authorId, displayName: r.authorName! },
+      createdAt: driverDate(r.createdAt),
+    }));
   }
 }
+
+interface NoteRow {
+  id: number;
+  studentId: number;
+  patternKey: string;
+  body: string;
+  createdAt: unknown;
+  authorId: number | null;
+  authorName: string | null;
+}
+
+export type PatternNoteJson = ReturnType<typeof toPatternNoteJson>;
 
 export function toPatternNoteJson(n: PatternNote) {
   return {

@@ -24,7 +24,7 @@ export class PortfolioService {
   async pdf(member: MemberContext, studentId: number, query: PortfolioQuery) {
     if (query.from && query.to && query.from > query.to)
       throw fieldsError({ to: 'to must be on or after from' });
-    const student = await this.students.findModel(member, studentId);
+    const student = await this.students.find(member, studentId);
     const misses = await this.misses.withDiagnoses(member, {
       studentId: student.id,
       from: query.from,

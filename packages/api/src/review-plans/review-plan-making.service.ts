@@ -36,7 +36,7 @@ export class ReviewPlanMakingService {
    * practice problems), then the checklist and its links, then the misses move to planned.
    */
   async create(member: MemberContext, dto: CreateReviewPlanDto) {
-    const student = await this.students.findModel(member, dto.studentId);
+    const student = await this.students.find(member, dto.studentId);
     const id = await this.sequelize.transaction(async (transaction) => {
       const chosen = await this.chooseMisses(member, student.id, dto.missIds, transaction);
       const plan = await this.planModel.create(

@@ -60,7 +60,7 @@ export class ReviewPlansService {
   }
 
   async findAll(member: MemberContext, query: ListReviewPlansQuery) {
-    if (query.studentId !== undefined) await this.students.findModel(member, query.studentId);
+    if (query.studentId !== undefined) await this.students.find(member, query.studentId);
     const page = query.page ?? 1;
     const pageSize = query.pageSize ?? 25;
     const where: WhereOptions<ReviewPlan> = {
@@ -100,7 +100,7 @@ export class ReviewPlansService {
 
   async findOne(member: MemberContext, id: number) {
     const plan = await this.findModel(member, id);
-    const student = await this.students.findModel(member, plan.studentId);
+    const student = await this.students.find(member, plan.studentId);
     const items = await this.itemModel.findAll({
       where: { planId: plan.id },
       order: [['position', 'ASC']],

@@ -24,7 +24,7 @@ export class SittingSummariesService {
   ) {}
 
   async summary(member: MemberContext, studentId: number, query: SittingRangeQuery) {
-    const student = await this.students.findModel(member, studentId);
+    const student = await this.students.find(member, studentId);
     const where = this.sittings.listWhere(member, { ...query, studentId });
     const sittings = await this.sittingModel.findAll({
       where,

@@ -34,7 +34,7 @@ export class SittingsService {
   }
 
   async findAll(member: MemberContext, query: ListSittingsQuery) {
-    if (query.studentId !== undefined) await this.students.findModel(member, query.studentId);
+    if (query.studentId !== undefined) await this.students.find(member, query.studentId);
     const page = query.page ?? 1;
     const pageSize = query.pageSize ?? 50;
     const where = this.listWhere(member, query);
@@ -109,7 +109,7 @@ export class SittingsService {
     }
     const future = checkCalendarDate(startedAt.slice(0, 10));
     if (future !== null) throw fieldsError({ startedAt: `startedAt ${future}` });
-    await this.students.findModel(member, dto.studentId);
+    await this.students.find(member, dto.studentId);
     await this.keys.findKeyModel(member, dto.answerKeyId);
     const sitting = await this.sittingModel.create({
       householdId: member.householdId,
