@@ -61,11 +61,42 @@ describe('reads straight through the driver', () => {
     expect(Number(row!.n)).toBe(await Miss.count());
   });
 
-  it('refuses bad SQL with the database’s error and keeps serving reads', async () => {
+  it('refuses bad SQL with the database’s error, each time, and keeps serving reads', async () => {
+    await expect(reader.rows('SELECT "nope" FROM "misses"')).rejects.toThrow(/nope/);
+    // SQLite keeps statements compiled: one that did not compile is not kept broken.
     await expect(reader.rows('SELECT "nope" FROM "misses"')).rejects.toThrow(/nope/);
     const [row] = await reader.rows<{ n: number | string }>('SELECT COUNT(*) AS "n" FROM "users"');
     expect(Number(row!.n)).toBeGreaterThan(0);
     // The connections Sequelize lends are given back: its own queries still run.
     expect(await sequelize.query('SELECT 1 AS one', { plain: true })).toEqual({ one: 1 });
+  });
+
+  it('sees every write committed since it last ran the same SQL, on each connection', async () => {
+    const sql = 'SELECT "display_name" AS "name" FROM "users" WHERE "id" = ?';
+    const [user] = await sequelize
+      .query('SELECT MIN(id) AS id FROM users', { plain: true })
+      .then((r) => [r as { id: number }]);
+    const names = async () =>
+      // Enough reads that every read connection runs the statement.
+      Promise.all(Array.from({ length: 8 }, () => reader.rows<{ name: string }>(sql, [user!.id])));
+    const before = (await names())[0]![0]!.name;
+    try {
+      await sequelize.query('UPDATE users SET display_name = ? WHERE id = ?', {
+        replacements: ['Renamed for the read test', user!.id],
+      });
+      expect(new Set((await names()).map((rows) => rows[0]!.name))).toEqual(
+        new Set(['Renamed for the read test']),
+      );
+    } finally {
+      await sequelize.query('UPDATE users SET display_name = ? WHERE id = ?', {
+        replacements: [before, user!.id],
+      });
+    }
+    expect((await names())[0]![0]!.name).toBe(before);
+    if (sequelize.getDialect() === 'sqlite') {
+      // A kept statement read to its end holds no snapshot: the whole log can be checkpointed.
+      const checkpoint = await sequelize.query('PRAGMA wal_checkpoint(TRUNCATE)', { plain: true });
+      expect(checkpoint).toMatchObject({ busy: 0 });
+    }
   });
 });

@@ -1,18 +1,14 @@
-import { Injectable } from '@nestjs/common';
+import { Injectable, type OnModuleDestroy } from '@nestjs/common';
 import { InjectConnection } from '@nestjs/sequelize';
 import type { Model, ModelStatic } from 'sequelize';
 import type { Sequelize } from 'sequelize-typescript';
+import type sqlite3 from 'sqlite3';
+import { SqliteStatements } from './sqlite-statements.js';
 
 /** A value bound to a `?` of the SQL. */
 export type SqlParam = string | number | boolean | null;
 
 interface DriverConnection {
-  /** node-sqlite3's Database. */
-  all?(
-    sql: string,
-    params: readonly SqlParam[],
-    done: (err: Error | null, rows: unknown[]) => void,
-  ): void;
   /** pg's Client. */
   query?(sql: string, params: readonly SqlParam[]): Promise<{ rows: unknown[] }>;
 }
@@ -37,8 +33,10 @@ interface ConnectionManager {
  * `fromRawRow` does (driverDate, driverBoolean).
  */
 @Injectable()
-export class SqlReader {
+export class SqlReader implements OnModuleDestroy {
   private readonly postgres: boolean;
+  /** SQLite's statements kept compiled, per read connection. */
+  private readonly statements = new SqliteStatements();
   /** The SQL as this database is sent it, by the SQL as written. */
   private readonly dialectSql = new Map<string, string>();
 
@@ -52,12 +50,15 @@ export class SqlReader {
     try {
       const text = this.forDialect(sql);
       if (this.postgres) return (await connection.query!(text, params)).rows as T[];
-      return await new Promise<T[]>((resolve, reject) =>
-        connection.all!(text, params, (err, rows) => (err ? reject(err) : resolve(rows as T[]))),
-      );
+      return await this.statements.all<T>(connection as sqlite3.Database, text, params);
     } finally {
       await manager.releaseConnection(connection);
     }
+  }
+
+  /** Before the connections close (Sequelize's own shutdown): they cannot with statements open. */
+  async onModuleDestroy(): Promise<void> {
+    await this.statements.close();
   }
 
   /** `?` as `$1`, `$2`, … for PostgreSQL; `"name"` as `` `name` `` for SQLite. */
