@@ -1,6 +1,6 @@
 import { Injectable, type OnModuleDestroy } from '@nestjs/common';
 import { InjectConnection } from '@nestjs/sequelize';
-import type { Model, ModelStatic } from 'sequelize';
+import type { Model, ModelStatic, Transaction } from 'sequelize';
 import type { Sequelize } from 'sequelize-typescript';
 import type sqlite3 from 'sqlite3';
 import { SqliteStatements } from './sqlite-statements.js';
@@ -44,7 +44,16 @@ export class SqlReader implements OnModuleDestroy {
     this.postgres = sequelize.getDialect() === 'postgres';
   }
 
-  async rows<T>(sql: string, params: readonly SqlParam[] = []): Promise<T[]> {
+  /**
+   * The rows of a SELECT. Inside a `transaction` it runs on the transaction's own connection,
+   * so it sees what the transaction wrote so far.
+   */
+  async rows<T>(
+    sql: string,
+    params: readonly SqlParam[] = [],
+    transaction?: Transaction | null,
+  ): Promise<T[]> {
+    if (transaction) return this.inTransaction<T>(transaction, sql, params);
     const manager = this.sequelize.connectionManager as unknown as ConnectionManager;
     const connection = await manager.getConnection({ type: 'SELECT' });
     try {
@@ -54,6 +63,22 @@ export class SqlReader implements OnModuleDestroy {
     } finally {
       await manager.releaseConnection(connection);
     }
+  }
+
+  private async inTransaction<T>(
+    transaction: Transaction,
+    sql: string,
+    params: readonly SqlParam[],
+  ): Promise<T[]> {
+    // Sequelize keeps the driver's connection on the transaction once it has begun.
+    const connection = (transaction as unknown as { connection: DriverConnection }).connection;
+    const text = this.forDialect(sql);
+    if (this.postgres) return (await connection.query!(text, params)).rows as T[];
+    return new Promise<T[]>((resolve, reject) =>
+      (connection as sqlite3.Database).all(text, params, (err, rows) =>
+        err ? reject(err) : resolve(rows as T[]),
+      ),
+    );
   }
 
   /** Before the connections close (Sequelize's own shutdown): they cannot with statements open. */

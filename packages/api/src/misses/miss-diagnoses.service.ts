@@ -7,9 +7,9 @@ import {
   type InterviewStage,
   type WrittenSteps,
 } from '@workback/core';
-import { Op, type Transaction } from 'sequelize';
+import type { Transaction } from 'sequelize';
 import { fieldsError } from '../common/pipes/validation.pipe.js';
-import { SqlReader } from '../database/sql-reader.js';
+import { placeholders, SqlReader } from '../database/sql-reader.js';
 import { DiagnoseService, type Checked } from '../diagnose/diagnose.service.js';
 import { MAX_LINE_LENGTH } from './dto/create-miss.dto.js';
 import { firstWrongLine, ruleIdsOf, type WordProblem } from './miss-columns.js';
@@ -105,10 +105,13 @@ export class MissDiagnosesService {
 
   /** The stored full diagnoses of these misses, by miss id. */
   async diagnosesOf(missIds: readonly number[], transaction?: Transaction) {
-    const rows = await this.diagnosisModel.findAll({
-      where: { missId: { [Op.in]: [...missIds] } },
+    if (missIds.length === 0) return new Map<number, Diagnosis | null>();
+    const rows = await this.reader.rows<{ missId: number; diagnosis: string | null }>(
+      `SELECT "miss_id" AS "missId", "diagnosis" FROM "miss_diagnoses"
+       WHERE "miss_id" IN (${placeholders(missIds.length)})`,
+      missIds,
       transaction,
-    });
-    return new Map(rows.map((d) => [d.missId, d.diagnosis]));
+    );
+    return new Map(rows.map((d) => [d.missId, jsonOf<Diagnosis | null>(d.diagnosis, null)]));
   }
 }

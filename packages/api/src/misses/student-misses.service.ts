@@ -1,19 +1,65 @@
 import { Injectable } from '@nestjs/common';
-import { InjectModel } from '@nestjs/sequelize';
 import type { Cause, MissStatus, PatternMiss } from '@workback/core';
-import { Op, type Transaction, type WhereOptions } from 'sequelize';
+import type { Transaction } from 'sequelize';
 import type { MemberContext } from '../common/member-context.js';
+import { placeholders, selectList, SqlReader, type SqlParam } from '../database/sql-reader.js';
 import { MissDiagnosesService } from './miss-diagnoses.service.js';
-import { jsonOf, toMissSummary } from './miss-json.js';
-import { missScope } from './miss-scope.js';
+import {
+  fromRawRow,
+  jsonOf,
+  SUMMARY_ATTRIBUTES,
+  toMissSummary,
+  type RawMissRow,
+} from './miss-json.js';
+import { missScopeSql } from './miss-scope.js';
 import { Miss } from './models/miss.model.js';
 import { toPatternMiss } from './pattern-miss.js';
+
+const WITH_DIAGNOSES_COLUMNS = selectList(Miss, [...SUMMARY_ATTRIBUTES, 'linesCheck']);
+const PATTERN_COLUMNS = selectList(Miss, [
+  'id',
+  'occurredOn',
+  'cause',
+  'skills',
+  'problem',
+  'answer',
+  'notCheckedReason',
+  'ruleIds',
+  'facts',
+  'lines',
+]);
+
+interface StudentMissFilter {
+  studentId: number;
+  from?: string;
+  to?: string;
+}
+
+/** The member's misses of one student over a day range, as SQL conditions to add to. */
+function filterSql(member: MemberContext, filter: StudentMissFilter) {
+  const scope = missScopeSql(member);
+  const and = [scope.sql];
+  const params: SqlParam[] = [...scope.params];
+  const add = (sql: string, ...values: SqlParam[]) => {
+    and.push(sql);
+    params.push(...values);
+  };
+  add('"student_id" = ?', filter.studentId);
+  if (filter.from) add('"occurred_on" >= ?', filter.from);
+  if (filter.to) add('"occurred_on" <= ?', filter.to);
+  // An empty list matches nothing (PostgreSQL refuses `IN ()`).
+  const addIn = (column: string, values: readonly SqlParam[]) =>
+    values.length === 0
+      ? add('1 = 0')
+      : add(`${column} IN (${placeholders(values.length)})`, ...values);
+  return { addIn, params, sql: () => and.map((c) => `(${c})`).join(' AND ') };
+}
 
 /** One student's misses as the review plans, patterns and the portfolio read them. */
 @Injectable()
 export class StudentMissesService {
   constructor(
-    @InjectModel(Miss) private readonly missModel: typeof Miss,
+    private readonly reader: SqlReader,
     private readonly diagnoses: MissDiagnosesService,
   ) {}
 
@@ -23,71 +69,44 @@ export class StudentMissesService {
    */
   async withDiagnoses(
     member: MemberContext,
-    filter: {
-      studentId: number;
-      from?: string;
-      to?: string;
-      statuses?: readonly MissStatus[];
-      ids?: readonly number[];
-    },
+    filter: StudentMissFilter & { statuses?: readonly MissStatus[]; ids?: readonly number[] },
     transaction?: Transaction,
   ) {
-    const and: WhereOptions<Miss>[] = [missScope(member), { studentId: filter.studentId }];
-    if (filter.from) and.push({ occurredOn: { [Op.gte]: filter.from } });
-    if (filter.to) and.push({ occurredOn: { [Op.lte]: filter.to } });
-    if (filter.statuses) and.push({ status: { [Op.in]: [...filter.statuses] } });
-    if (filter.ids) and.push({ id: { [Op.in]: [...filter.ids] } });
-    const rows = await this.missModel.findAll({
-      where: { [Op.and]: and },
-      order: [
-        ['occurredOn', 'ASC'],
-        ['id', 'ASC'],
-      ],
-      transaction,
-    });
-    const diagnoses = await this.diagnoses.diagnosesOf(
-      rows.map((r) => r.id),
+    const where = filterSql(member, filter);
+    if (filter.statuses) where.addIn('"status"', filter.statuses);
+    if (filter.ids) where.addIn('"id"', filter.ids);
+    // Plain rows (SqlReader): read for plans, prints and the portfolio, never saved from here.
+    const rows = await this.reader.rows<RawMissRow & { linesCheck: unknown }>(
+      `SELECT ${WITH_DIAGNOSES_COLUMNS()} FROM "misses" WHERE ${where.sql()}
+       ORDER BY "occurred_on", "id"`,
+      where.params,
       transaction,
     );
-    return rows.map((m) => ({
-      ...toMissSummary(m),
-      linesCheck: m.linesCheck,
-      diagnosis: diagnoses.get(m.id) ?? null,
-    }));
+    const diagnoses = await this.diagnoses.diagnosesOf(
+      rows.map((r) => r.id as number),
+      transaction,
+    );
+    return rows.map((row) => {
+      const m = fromRawRow(row);
+      return {
+        ...toMissSummary(m),
+        linesCheck: jsonOf<Miss['linesCheck']>(row.linesCheck, null),
+        diagnosis: diagnoses.get(m.id) ?? null,
+      };
+    });
   }
 
   /**
    * One student's misses as the pattern maths reads them, from the row's own columns: the
    * rule ids (a pair's `id` joins its `ids` with `+`) and facts, without the stored diagnosis.
    */
-  async patternMisses(
-    member: MemberContext,
-    filter: { studentId: number; from?: string; to?: string },
-  ): Promise<PatternMiss[]> {
-    const and: WhereOptions<Miss>[] = [missScope(member), { studentId: filter.studentId }];
-    if (filter.from) and.push({ occurredOn: { [Op.gte]: filter.from } });
-    if (filter.to) and.push({ occurredOn: { [Op.lte]: filter.to } });
-    const rows = (await this.missModel.findAll({
-      attributes: [
-        'id',
-        'occurredOn',
-        'cause',
-        'skills',
-        'problem',
-        'answer',
-        'notCheckedReason',
-        'ruleIds',
-        'facts',
-        'lines',
-      ],
-      where: { [Op.and]: and },
-      order: [
-        ['occurredOn', 'ASC'],
-        ['id', 'ASC'],
-      ],
-      // Plain rows, not model instances: read once for the maths, never saved.
-      raw: true,
-    })) as unknown as Record<string, unknown>[];
+  async patternMisses(member: MemberContext, filter: StudentMissFilter): Promise<PatternMiss[]> {
+    const where = filterSql(member, filter);
+    // Plain rows, not model instances: read once for the maths, never saved.
+    const rows = await this.reader.rows<Record<string, unknown>>(
+      `SELECT ${PATTERN_COLUMNS()} FROM "misses" WHERE ${where.sql()} ORDER BY "occurred_on", "id"`,
+      where.params,
+    );
     return rows.map((m) => {
       const ruleIds = jsonOf<string[]>(m.ruleIds, []);
       return toPatternMiss(
