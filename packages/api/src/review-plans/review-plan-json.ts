@@ -5,7 +5,19 @@ import type { MissWithDiagnosis } from './plan-miss.js';
 export const SAME_DAY_WARNING =
   'The review falls on the same day as work it reviews; review works better on a calmer, separate day.';
 
-export function toPlanSummary(p: ReviewPlan) {
+export function toPlanSummary(
+  p: Pick<
+    ReviewPlan,
+    | 'id'
+    | 'studentId'
+    | 'scheduledFor'
+    | 'status'
+    | 'lessonsText'
+    | 'createdBy'
+    | 'createdAt'
+    | 'updatedAt'
+  >,
+) {
   return {
     id: p.id,
     studentId: p.studentId,

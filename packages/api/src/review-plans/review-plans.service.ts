@@ -13,6 +13,14 @@ import { Op, type Transaction, type WhereOptions } from 'sequelize';
 import type { Sequelize } from 'sequelize-typescript';
 import type { MemberContext } from '../common/member-context.js';
 import { fieldsError } from '../common/pipes/validation.pipe.js';
+import {
+  driverBoolean,
+  driverDate,
+  placeholders,
+  selectList,
+  SqlReader,
+} from '../database/sql-reader.js';
+import { jsonOf } from '../misses/miss-json.js';
 import { AnswerKeysService } from '../answer-keys/answer-keys.service.js';
 import { CurriculumService } from '../curriculum/curriculum.service.js';
 import { MissesService } from '../misses/misses.service.js';
@@ -20,11 +28,48 @@ import { StudentMissesService } from '../misses/student-misses.service.js';
 import { StudentsService } from '../students/students.service.js';
 import type { ListReviewPlansQuery } from './dto/list-review-plans.query.js';
 import type { UpdateReviewPlanDto } from './dto/update-review-plan.dto.js';
-import { ReviewPlanItemMiss } from './models/review-plan-item-miss.model.js';
 import { ReviewPlanItem } from './models/review-plan-item.model.js';
 import { ReviewPlan } from './models/review-plan.model.js';
 import { toPlanMiss } from './plan-miss.js';
 import { sameDayWarning, toPlanMissJson, toPlanSummary } from './review-plan-json.js';
+
+const PLAN_FIELDS = [
+  'id',
+  'studentId',
+  'scheduledFor',
+  'status',
+  'covers',
+  'lessonsText',
+  'notes',
+  'createdBy',
+  'createdAt',
+  'updatedAt',
+] as const satisfies readonly (keyof ReviewPlan)[];
+type PlanRow = Pick<ReviewPlan, (typeof PLAN_FIELDS)[number]>;
+const PLAN_COLUMNS = selectList(ReviewPlan, PLAN_FIELDS);
+
+const ITEM_FIELDS = [
+  'id',
+  'position',
+  'kind',
+  'key',
+  'title',
+  'payload',
+  'done',
+  'doneAt',
+  'doneBy',
+] as const satisfies readonly (keyof ReviewPlanItem)[];
+const ITEM_COLUMNS = selectList(ReviewPlanItem, ITEM_FIELDS);
+
+/** A checklist item's raw row as the model reads it. */
+function itemOf(row: Record<string, unknown>): Pick<ReviewPlanItem, (typeof ITEM_FIELDS)[number]> {
+  return {
+    ...(row as unknown as Pick<ReviewPlanItem, (typeof ITEM_FIELDS)[number]>),
+    payload: jsonOf<ReviewPlanItem['payload']>(row.payload, null as never),
+    done: driverBoolean(row.done) ?? false,
+    doneAt: row.doneAt === null || row.doneAt === undefined ? null : driverDate(row.doneAt),
+  };
+}
 
 /** Review plans read (list, one plan with its checklist, coverage for patterns) and checked off. */
 @Injectable()
@@ -32,8 +77,8 @@ export class ReviewPlansService {
   constructor(
     @InjectModel(ReviewPlan) private readonly planModel: typeof ReviewPlan,
     @InjectModel(ReviewPlanItem) private readonly itemModel: typeof ReviewPlanItem,
-    @InjectModel(ReviewPlanItemMiss) private readonly linkModel: typeof ReviewPlanItemMiss,
     @InjectConnection() private readonly sequelize: Sequelize,
+    private readonly reader: SqlReader,
     private readonly students: StudentsService,
     private readonly misses: MissesService,
     private readonly studentMisses: StudentMissesService,
@@ -99,12 +144,15 @@ export class ReviewPlansService {
   }
 
   async findOne(member: MemberContext, id: number) {
-    const plan = await this.findModel(member, id);
+    // Plain rows through the driver (SqlReader): every view, print and export of a plan reads it.
+    const plan = await this.planRow(member, id);
     const student = await this.students.find(member, plan.studentId);
-    const items = await this.itemModel.findAll({
-      where: { planId: plan.id },
-      order: [['position', 'ASC']],
-    });
+    const items = (
+      await this.reader.rows<Record<string, unknown>>(
+        `SELECT ${ITEM_COLUMNS()} FROM "review_plan_items" WHERE "plan_id" = ? ORDER BY "position"`,
+        [plan.id],
+      )
+    ).map(itemOf);
     const links = await this.linksOf(items.map((i) => i.id));
     const missIds = [...new Set(items.flatMap((i) => links.get(i.id) ?? []))];
     const misses =
@@ -160,6 +208,27 @@ export class ReviewPlansService {
       covers: plan.covers,
       notes: plan.notes,
       warning: sameDayWarning(plan.scheduledFor, misses),
+    };
+  }
+
+  /** The plan as a plain row, to read; 404 as findModel. */
+  private async planRow(member: MemberContext, id: number): Promise<PlanRow> {
+    const granted = member.studentIds;
+    const [row] =
+      granted !== null && granted.length === 0
+        ? []
+        : await this.reader.rows<Record<string, unknown>>(
+            `SELECT ${PLAN_COLUMNS()} FROM "review_plans" WHERE "id" = ? AND "household_id" = ?` +
+              (granted === null ? '' : ` AND "student_id" IN (${placeholders(granted.length)})`),
+            [id, member.householdId, ...(granted ?? [])],
+          );
+    if (!row) throw new NotFoundException(`No review plan ${id} in this household`);
+    return {
+      ...(row as unknown as PlanRow),
+      covers: jsonOf<string[]>(row.covers, []),
+      notes: jsonOf<string[]>(row.notes, []),
+      createdAt: driverDate(row.createdAt),
+      updatedAt: driverDate(row.updatedAt),
     };
   }
 
@@ -248,11 +317,17 @@ export class ReviewPlansService {
 
   /** For patterns: each plan of the student with its day and the pattern keys it covered. */
   async coverage(member: MemberContext, studentId: number): Promise<ReviewedPlan[]> {
-    const plans = await this.planModel.findAll({
-      where: { [Op.and]: [this.scope(member), { studentId }] },
-      attributes: ['id', 'scheduledFor', 'covers'],
-    });
-    return plans.map((p) => ({ id: p.id, scheduledFor: p.scheduledFor, covers: p.covers }));
+    if (member.studentIds !== null && !member.studentIds.includes(studentId)) return [];
+    const plans = await this.reader.rows<{ id: number; scheduledFor: string; covers: unknown }>(
+      `SELECT "id", "scheduled_for" AS "scheduledFor", "covers" FROM "review_plans"
+       WHERE "household_id" = ? AND "student_id" = ?`,
+      [member.householdId, studentId],
+    );
+    return plans.map((p) => ({
+      id: p.id,
+      scheduledFor: p.scheduledFor,
+      covers: jsonOf<string[]>(p.covers, []),
+    }));
   }
 
   /** The misses each checklist item covers, by item id. */
@@ -262,11 +337,12 @@ export class ReviewPlansService {
   ): Promise<Map<number, number[]>> {
     const map = new Map<number, number[]>();
     if (itemIds.length === 0) return map;
-    const rows = await this.linkModel.findAll({
-      where: { itemId: { [Op.in]: [...itemIds] } },
-      order: [['missId', 'ASC']],
+    const rows = await this.reader.rows<{ itemId: number; missId: number }>(
+      `SELECT "item_id" AS "itemId", "miss_id" AS "missId" FROM "review_plan_item_misses"
+       WHERE "item_id" IN (${placeholders(itemIds.length)}) ORDER BY "miss_id"`,
+      itemIds,
       transaction,
-    });
+    );
     for (const r of rows) map.set(r.itemId, [...(map.get(r.itemId) ?? []), r.missId]);
     return map;
   }

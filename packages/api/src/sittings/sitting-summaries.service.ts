@@ -2,6 +2,7 @@ import { Injectable } from '@nestjs/common';
 import { InjectModel } from '@nestjs/sequelize';
 import { AnswerKey } from '../answer-keys/models/answer-key.model.js';
 import type { MemberContext } from '../common/member-context.js';
+import { fieldsError } from '../common/pipes/validation.pipe.js';
 import { placeholders, SqlReader } from '../database/sql-reader.js';
 import { StudentsService } from '../students/students.service.js';
 import type { SittingRangeQuery } from './dto/list-sittings.query.js';
@@ -90,14 +91,26 @@ export class SittingSummariesService {
     studentId: number,
     range: { from?: string; to?: string } = {},
   ): Promise<{ occurredOn: string; problem: string; answer: string }[]> {
-    const sittings = await this.sittingModel.findAll({
-      where: this.sittings.listWhere(member, { ...range, studentId }),
-      attributes: ['id', 'answerKeyId', 'startedAt'],
-      order: [
-        ['startedAt', 'ASC'],
-        ['id', 'ASC'],
+    if (range.from && range.to && range.from > range.to) {
+      throw fieldsError({ to: 'to must be on or after from' });
+    }
+    if (member.studentIds !== null && !member.studentIds.includes(studentId)) return [];
+    // Local times sort as text; the whole `to` day is in (as SittingsService.listWhere).
+    const sittings = await this.reader.rows<{
+      id: number;
+      answerKeyId: number;
+      startedAt: string;
+    }>(
+      `SELECT "id", "answer_key_id" AS "answerKeyId", "started_at" AS "startedAt" FROM "sittings"
+       WHERE "household_id" = ? AND "student_id" = ?${range.from ? ' AND "started_at" >= ?' : ''}${range.to ? ' AND "started_at" < ?' : ''}
+       ORDER BY "started_at", "id"`,
+      [
+        member.householdId,
+        studentId,
+        ...(range.from ? [range.from] : []),
+        ...(range.to ? [`${range.to}T99`] : []),
       ],
-    });
+    );
     if (sittings.length === 0) return [];
     // Hundreds of rows for a term of sittings, read for the maths and never saved: straight
     // through the driver (SqlReader), not as models, and every key's items in one read.
