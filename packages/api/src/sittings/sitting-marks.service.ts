@@ -57,7 +57,7 @@ export class SittingMarksService implements OnModuleInit {
    * changes nothing.
    */
   async putMarks(member: MemberContext, id: number, dto: PutMarksDto) {
-    return this.sequelize.transaction(async (transaction) => {
+    const changes = await this.sequelize.transaction(async (transaction) => {
       const sitting = await this.sittings.findModel(member, id, transaction);
       const items = await this.keys.itemsOf(sitting.answerKeyId, transaction);
       const byId = new Map(items.map((i) => [i.id, i]));
@@ -132,8 +132,11 @@ export class SittingMarksService implements OnModuleInit {
           transaction,
         );
       }
-      return { ...(await this.sittings.findOne(member, id, transaction)), misses: changes };
+      return changes;
     });
+    // Read once committed, outside the transaction: this process's writes queue behind each
+    // transaction, so it holds the queue only for what must be read and written together.
+    return { ...(await this.sittings.findOne(member, id)), misses: changes };
   }
 
   /** Re-marks every sitting marked against items whose key answer was corrected. */
