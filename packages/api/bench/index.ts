@@ -1,4 +1,5 @@
 import 'reflect-metadata';
+import { benchFamilyKinds } from './family-kinds.bench.js';
 import { benchLoadMix } from './load-mix.bench.js';
 import { benchManyFamilies } from './many-families.bench.js';
 import { benchPerRequest } from './per-request.bench.js';
@@ -18,5 +19,7 @@ if (!only || only === 'photos') await benchPhotoPipeline();
 if (!only || only === 'request') await benchPerRequest();
 if (!only || only === 'load') await benchLoadMix();
 if (!only || only === 'families') await benchManyFamilies();
-// Only when asked: `-- profile health` or `-- profile notebook` prints the hottest frames.
+// Only when asked: `-- profile health` or `-- profile notebook` prints the hottest frames;
+// `-- kinds` prices each kind of the many-families mix alone (family-kinds.bench.ts).
 if (only === 'profile') await benchProfile(process.argv[3]);
+if (only === 'kinds') await benchFamilyKinds();

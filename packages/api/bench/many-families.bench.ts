@@ -34,7 +34,7 @@ const TARGET_RATE = 150;
  * measure one kind's cost alone.
  */
 const CYCLE = process.env.BENCH_FAMILY_MIX ?? 'LOLSLPLOLFLOLSLPLOLM';
-const KINDS = {
+export const KINDS = {
   L: 'notebook list (with and without filters)',
   O: 'open a miss',
   S: 'log a miss with a small photo',
@@ -138,7 +138,7 @@ export async function prepareFamilies(env: Record<string, string>): Promise<Fami
 }
 
 /** A small photo as the web form sends it, in a multipart body with the miss's fields. */
-async function photoForm(): Promise<{ boundary: string; head: string; photo: Buffer }> {
+export async function photoForm(): Promise<{ boundary: string; head: string; photo: Buffer }> {
   const photo = await sharp({
     create: { width: 320, height: 240, channels: 3, background: { r: 240, g: 238, b: 230 } },
   })
@@ -167,7 +167,7 @@ function multipart(boundary: string, fields: Record<string, string>, photo: Buff
 }
 
 /** A small seeded generator, so every run asks for the same requests. */
-function seeded(seed: number): () => number {
+export function seeded(seed: number): () => number {
   let s = seed >>> 0;
   return () => {
     s = (s + 0x6d2b79f5) >>> 0;
@@ -178,11 +178,12 @@ function seeded(seed: number): () => number {
 }
 
 /** Draws the mix's requests: a kind by its share, a signed-in member, and that member's request. */
-function requestDrawer(
-  members: Member[],
+export function requestDrawer(
+  members: (Family & Session)[],
   photo: Buffer,
   today: string,
   random: () => number,
+  cycle: string = CYCLE,
 ): () => LoadRequest<Kind> {
   const pick = <T>(list: readonly T[]): T => list[Math.floor(random() * list.length)]!;
   const from = new Date(Date.parse(today) - 84 * 86_400_000).toISOString().slice(0, 10);
@@ -269,7 +270,7 @@ function requestDrawer(
         };
     }
   };
-  return () => requestOf(CYCLE[Math.floor(random() * CYCLE.length)] as Kind, pick(members));
+  return () => requestOf(cycle[Math.floor(random() * cycle.length)] as Kind, pick(members));
 }
 
 /**
@@ -335,14 +336,9 @@ interface Database {
   env: Record<string, string>;
 }
 
-/** One database's run: the fill, the sign-ins, then the mix at each offered rate. */
-async function familiesOn(db: Database): Promise<RateResult[]> {
-  // BENCH_DATA_DIR keeps the filled database between runs (it is not removed at the end).
-  const kept = process.env.BENCH_DATA_DIR;
-  const dataDir = kept || mkdtempSync(path.join(tmpdir(), 'workback-bench-'));
-  // BENCH_CPU_PROF_DIR: the server writes a .cpuprofile there when it stops.
-  const profileDir = process.env.BENCH_CPU_PROF_DIR;
-  const env = {
+/** The server's settings for the families benches: production, with limits out of the way. */
+export function familyServerEnv(dataDir: string): Record<string, string> {
+  return {
     NODE_ENV: 'production',
     DATA_DIR: dataDir,
     SEED_DEMO: 'true',
@@ -353,8 +349,17 @@ async function familiesOn(db: Database): Promise<RateResult[]> {
     SMTP_URL: 'smtp://127.0.0.1:9',
     PUBLIC_URL: 'http://localhost',
     DATABASE_URL: '',
-    ...db.env,
   };
+}
+
+/** One database's run: the fill, the sign-ins, then the mix at each offered rate. */
+async function familiesOn(db: Database): Promise<RateResult[]> {
+  // BENCH_DATA_DIR keeps the filled database between runs (it is not removed at the end).
+  const kept = process.env.BENCH_DATA_DIR;
+  const dataDir = kept || mkdtempSync(path.join(tmpdir(), 'workback-bench-'));
+  // BENCH_CPU_PROF_DIR: the server writes a .cpuprofile there when it stops.
+  const profileDir = process.env.BENCH_CPU_PROF_DIR;
+  const env = { ...familyServerEnv(dataDir), ...db.env };
   const today = new Date().toISOString().slice(0, 10);
   console.log(`\nmany families on ${db.name}:`);
   try {
