@@ -71,21 +71,27 @@ export class MissDiagnosesService {
     word: WordProblem | null = null,
     { newMiss = false }: { newMiss?: boolean } = {},
   ) {
-    if (!newMiss) await this.diagnosisModel.destroy({ where: { missId: miss.id }, transaction });
-    if (checked.checked) {
-      await this.diagnosisModel.create(
-        { missId: miss.id, diagnosis: checked.diagnosis },
-        { transaction },
-      );
+    if (!newMiss) {
+      await this.diagnosisModel.destroy({ where: { missId: miss.id }, transaction });
+      await this.ruleModel.destroy({ where: { missId: miss.id }, transaction });
     }
-    if (!newMiss) await this.ruleModel.destroy({ where: { missId: miss.id }, transaction });
     const counted = checked.checked ? checked.diagnosis : firstWrongLine(word?.linesCheck ?? null);
     const ids = counted ? ruleIdsOf(counted) : [];
-    if (ids.length === 0) return;
-    await this.ruleModel.bulkCreate(
-      ids.map((ruleId) => ({ missId: miss.id, ruleId, householdId: miss.householdId })),
-      { transaction },
-    );
+    // Both sent at once (see MissesService.create): neither waits on the other's answer.
+    await Promise.all([
+      checked.checked
+        ? this.diagnosisModel.create(
+            { missId: miss.id, diagnosis: checked.diagnosis },
+            { transaction },
+          )
+        : null,
+      ids.length > 0
+        ? this.ruleModel.bulkCreate(
+            ids.map((ruleId) => ({ missId: miss.id, ruleId, householdId: miss.householdId })),
+            { transaction },
+          )
+        : null,
+    ]);
   }
 
   /** The engine's findings as it checks a marked item: no written steps, never refused. */
