@@ -1,9 +1,8 @@
-import { Injectable, type OnModuleDestroy } from '@nestjs/common';
+import { Injectable } from '@nestjs/common';
 import { InjectConnection } from '@nestjs/sequelize';
 import type { Model, ModelStatic, Transaction } from 'sequelize';
 import type { Sequelize } from 'sequelize-typescript';
 import type sqlite3 from 'sqlite3';
-import { SqliteStatements } from './sqlite-statements.js';
 
 /** A value bound to a `?` of the SQL. */
 export type SqlParam = string | number | boolean | null;
@@ -33,10 +32,8 @@ interface ConnectionManager {
  * `fromRawRow` does (driverDate, driverBoolean).
  */
 @Injectable()
-export class SqlReader implements OnModuleDestroy {
+export class SqlReader {
   private readonly postgres: boolean;
-  /** SQLite's statements kept compiled, per read connection. */
-  private readonly statements = new SqliteStatements();
   /** The SQL as this database is sent it, by the SQL as written. */
   private readonly dialectSql = new Map<string, string>();
 
@@ -57,21 +54,28 @@ export class SqlReader implements OnModuleDestroy {
     const manager = this.sequelize.connectionManager as unknown as ConnectionManager;
     const connection = await manager.getConnection({ type: 'SELECT' });
     try {
-      const text = this.forDialect(sql);
-      if (this.postgres) return (await connection.query!(text, params)).rows as T[];
-      return await this.statements.all<T>(connection as sqlite3.Database, text, params);
+      return await this.query<T>(connection, sql, params);
     } finally {
       await manager.releaseConnection(connection);
     }
   }
 
-  private async inTransaction<T>(
+  private inTransaction<T>(
     transaction: Transaction,
     sql: string,
     params: readonly SqlParam[],
   ): Promise<T[]> {
     // Sequelize keeps the driver's connection on the transaction once it has begun.
     const connection = (transaction as unknown as { connection: DriverConnection }).connection;
+    return this.query<T>(connection, sql, params);
+  }
+
+  /** On SQLite the connection keeps the statement compiled (database/sqlite-statements.ts). */
+  private async query<T>(
+    connection: DriverConnection,
+    sql: string,
+    params: readonly SqlParam[],
+  ): Promise<T[]> {
     const text = this.forDialect(sql);
     if (this.postgres) return (await connection.query!(text, params)).rows as T[];
     return new Promise<T[]>((resolve, reject) =>
@@ -79,11 +83,6 @@ export class SqlReader implements OnModuleDestroy {
         err ? reject(err) : resolve(rows as T[]),
       ),
     );
-  }
-
-  /** Before the connections close (Sequelize's own shutdown): they cannot with statements open. */
-  async onModuleDestroy(): Promise<void> {
-    await this.statements.close();
   }
 
   /** `?` as `$1`, `$2`, … for PostgreSQL; `"name"` as `` `name` `` for SQLite. */

@@ -1,4 +1,5 @@
 import type { Sequelize } from 'sequelize-typescript';
+import { keepStatements, type StatementConnection } from './sqlite-statements.js';
 import type { TableInfoCache } from './sqlite-table-info-cache.js';
 
 /**
@@ -17,11 +18,9 @@ export const CONNECTION_PRAGMAS = [
   'PRAGMA synchronous = FULL',
 ] as const;
 
-interface RawConnection {
+interface RawConnection extends StatementConnection {
   exec(sql: string, callback: (err: Error | null) => void): void;
   serialize(): void;
-  all(sql: string, ...rest: unknown[]): unknown;
-  close(callback: (err: Error | null) => void): void;
 }
 
 const prepared = new WeakSet<object>();
@@ -111,6 +110,7 @@ export function preparePragmasOnConnect(sequelize: Sequelize, tableInfo: TableIn
     const connection = await original(forTransaction ? { ...options, uuid: WRITE } : options);
     await applyPragmas(connection);
     tableInfo.wrap(connection);
+    keepStatements(connection);
     return connection;
   };
   // The transaction's end: the write connection stays open for the next one.

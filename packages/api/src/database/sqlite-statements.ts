@@ -1,5 +1,68 @@
 import type sqlite3 from 'sqlite3';
-import type { SqlParam } from './sql-reader.js';
+
+type Callback = (this: unknown, err: Error | null, rows?: unknown) => void;
+type Params = readonly unknown[] | Record<string, unknown>;
+
+/** The parts of a node-sqlite3 connection this wraps. */
+export interface StatementConnection {
+  all(sql: string, ...rest: unknown[]): unknown;
+  run(sql: string, ...rest: unknown[]): unknown;
+  prepare(sql: string, callback: (err: Error | null) => void): sqlite3.Statement;
+  close(callback?: (err: Error | null) => void): unknown;
+}
+
+/** Transaction control exactly as Sequelize's SQLite dialect sends it: the same text each time. */
+const TRANSACTION_CONTROL = /^(BEGIN (DEFERRED|IMMEDIATE|EXCLUSIVE) TRANSACTION|COMMIT|ROLLBACK);$/;
+
+/** At most this many statements are kept per connection, the least recently used let go first. */
+export const MAX_KEPT_STATEMENTS = 200;
+
+const wrapped = new WeakSet<object>();
+
+/**
+ * Keeps a connection's statements compiled, by their SQL. node-sqlite3 compiles a statement and
+ * runs it as two trips through the thread pool, and each trip ends with a turn of the event
+ * loop; a kept statement makes one. Compiling is also about a third of a small read's CPU
+ * (0.28 → 0.17 ms per query, measured on this machine). On the write connection the turns are
+ * what a transaction holds the write lock for while the event loop is busy, so BEGIN and COMMIT
+ * are kept too.
+ *
+ * Kept: SQL with bound parameters (the same text for every value) and transaction control.
+ * SQL with values written into it (Sequelize's WHERE clauses) would be used once: it is not.
+ * A statement read to its end has let its snapshot go (SQLite ends a finished statement's read),
+ * so a kept one sees every later commit; one that failed is let go. `close` finalizes them all
+ * first, as a connection with statements still open cannot close.
+ */
+export function keepStatements(connection: StatementConnection): void {
+  if (wrapped.has(connection)) return;
+  wrapped.add(connection);
+  const kept = new KeptStatements(connection);
+  for (const method of ['all', 'run'] as const) {
+    const direct = connection[method].bind(connection);
+    connection[method] = (sql: string, ...rest: unknown[]) => {
+      const [params, callback] = rest as [Params, Callback];
+      if (kept.closed || typeof callback !== 'function' || rest.length !== 2) {
+        return direct(sql, ...rest);
+      }
+      if (!keepable(sql, params)) return direct(sql, ...rest);
+      const { statement, ready } = kept.get(sql);
+      ready.then(
+        () =>
+          (statement[method] as (p: Params, cb: Callback) => void)(params, function (err, rows) {
+            if (err) kept.drop(sql, statement);
+            callback.call(this, err, rows);
+          }),
+        (err: Error) => callback.call(statement, err),
+      );
+      return connection;
+    };
+  }
+  const close = connection.close.bind(connection);
+  connection.close = (callback?: (err: Error | null) => void) => {
+    void kept.finalizeAll().then(() => close(callback));
+    return connection;
+  };
+}
 
 interface Prepared {
   statement: sqlite3.Statement;
@@ -7,67 +70,53 @@ interface Prepared {
   ready: Promise<void>;
 }
 
-/**
- * SELECTs kept compiled on the connections SqlReader reads through, by their SQL. Compiling
- * is about a third of a small read's CPU (0.28 → 0.17 ms per query, measured on this machine),
- * and a notebook page makes the same few reads again and again. A statement read to its end
- * has let its snapshot go (SQLite ends a finished statement's read), so a kept one sees every
- * later commit. At most MAX_PER_CONNECTION per connection, the oldest let go first; `close`
- * lets all of them go, as a connection with statements still open cannot close.
- */
-export class SqliteStatements {
-  static readonly MAX_PER_CONNECTION = 200;
-  private readonly byConnection = new Map<sqlite3.Database, Map<string, Prepared>>();
-  private closed = false;
+/** One connection's kept statements, least recently used first. */
+class KeptStatements {
+  closed = false;
+  private readonly bySql = new Map<string, Prepared>();
 
-  all<T>(connection: sqlite3.Database, sql: string, params: readonly SqlParam[]): Promise<T[]> {
-    if (this.closed) {
-      return new Promise<T[]>((resolve, reject) =>
-        connection.all(sql, params, (err, rows) => (err ? reject(err) : resolve(rows as T[]))),
-      );
+  constructor(private readonly connection: StatementConnection) {}
+
+  get(sql: string): Prepared {
+    const found = this.bySql.get(sql);
+    if (found) {
+      this.bySql.delete(sql);
+      this.bySql.set(sql, found);
+      return found;
     }
-    const prepared = this.preparedOn(connection, sql);
-    return prepared.ready.then(
-      () =>
-        new Promise<T[]>((resolve, reject) =>
-          prepared.statement.all(params, (err: Error | null, rows: unknown[]) =>
-            err ? reject(err) : resolve(rows as T[]),
-          ),
-        ),
-    );
-  }
-
-  /** Finalizes every kept statement; later reads compile each time. */
-  async close(): Promise<void> {
-    this.closed = true;
-    const all = [...this.byConnection.values()].flatMap((kept) => [...kept.values()]);
-    this.byConnection.clear();
-    await Promise.all(all.map((p) => finalize(p.statement)));
-  }
-
-  private preparedOn(connection: sqlite3.Database, sql: string): Prepared {
-    let kept = this.byConnection.get(connection);
-    if (!kept) this.byConnection.set(connection, (kept = new Map()));
-    const found = kept.get(sql);
-    if (found) return found;
-    if (kept.size >= SqliteStatements.MAX_PER_CONNECTION) {
-      const [oldest, first] = kept.entries().next().value as [string, Prepared];
-      kept.delete(oldest);
-      // Finalizing waits for the statement's reads already queued.
-      void finalize(first.statement);
+    if (this.bySql.size >= MAX_KEPT_STATEMENTS) {
+      const [oldest, first] = this.bySql.entries().next().value!;
+      this.drop(oldest, first.statement);
     }
     let statement!: sqlite3.Statement;
     const ready = new Promise<void>((resolve, reject) => {
-      statement = connection.prepare(sql, (err: Error | null) => (err ? reject(err) : resolve()));
+      statement = this.connection.prepare(sql, (err) => (err ? reject(err) : resolve()));
     });
-    const prepared = { statement, ready };
-    kept.set(sql, prepared);
+    this.bySql.set(sql, { statement, ready });
     // SQL that does not compile is not kept: the caller gets SQLite's message each time.
-    ready.catch(() => {
-      if (kept.get(sql) === prepared) kept.delete(sql);
-    });
-    return prepared;
+    ready.catch(() => this.drop(sql, statement));
+    return { statement, ready };
   }
+
+  /** Lets a statement go (finalizing waits for its calls already queued). */
+  drop(sql: string, statement: sqlite3.Statement): void {
+    if (this.bySql.get(sql)?.statement !== statement) return;
+    this.bySql.delete(sql);
+    void finalize(statement);
+  }
+
+  /** Finalizes every kept statement; later calls compile each time. */
+  async finalizeAll(): Promise<void> {
+    this.closed = true;
+    const all = [...this.bySql.values()];
+    this.bySql.clear();
+    await Promise.all(all.map((p) => finalize(p.statement)));
+  }
+}
+
+function keepable(sql: string, params: Params): boolean {
+  const bound = Array.isArray(params) ? params.length : Object.keys(params ?? {}).length;
+  return bound > 0 || TRANSACTION_CONTROL.test(sql);
 }
 
 function finalize(statement: sqlite3.Statement): Promise<void> {
