@@ -5,6 +5,7 @@ import { MissesModule } from '../misses/misses.module.js';
 import { ReviewPlansModule } from '../review-plans/review-plans.module.js';
 import { SittingsModule } from '../sittings/sittings.module.js';
 import { StudentsModule } from '../students/students.module.js';
+import { WorkersModule } from '../workers/workers.module.js';
 import { PatternNote } from './models/pattern-note.model.js';
 import { PatternsController } from './patterns.controller.js';
 import { PatternsMemo } from './patterns-memo.js';
@@ -18,6 +19,7 @@ import { PatternsService } from './patterns.service.js';
     SittingsModule,
     ReviewPlansModule,
     CheckUpsModule,
+    WorkersModule,
   ],
   controllers: [PatternsController],
   providers: [PatternsService, PatternsMemo],

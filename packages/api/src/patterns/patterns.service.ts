@@ -42,7 +42,7 @@ export class PatternsService {
       this.notesOf(member, student.id),
       this.checkUps.latestOn(member, student.id),
     ]);
-    const patterns = this.memo.compute(misses, {
+    const patterns = await this.memo.compute(misses, {
       rightItems,
       plans,
       asOf: today.toISOString().slice(0, 10),

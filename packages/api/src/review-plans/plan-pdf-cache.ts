@@ -1,7 +1,7 @@
 import { createHash } from 'node:crypto';
 import { Injectable } from '@nestjs/common';
 import { LRUCache } from 'lru-cache';
-import { renderReviewPlanPdf } from './review-plan-pdf.js';
+import { CpuPool } from '../workers/cpu-pool.service.js';
 import type { ReviewPlanJson } from './review-plans.service.js';
 
 /**
@@ -9,7 +9,8 @@ import type { ReviewPlanJson } from './review-plans.service.js';
  * student): the bytes are kept under the digest of that reading, so printing an unchanged plan
  * again costs a read and a hash, not a layout of every page. Whatever changes what the PDF
  * shows changes the digest, so a stale PDF is never answered; old entries fall out of the
- * cache (at most MAX_BYTES of PDFs in memory). Requests for one plan at once share a rendering.
+ * cache (at most MAX_BYTES of PDFs in memory). Requests for one plan at once share a rendering,
+ * which is laid out in a worker thread (CpuPool).
  */
 @Injectable()
 export class PlanPdfCache {
@@ -20,6 +21,8 @@ export class PlanPdfCache {
   });
   private readonly rendering = new Map<string, Promise<Buffer>>();
 
+  constructor(private readonly cpu: CpuPool) {}
+
   /** The PDF of `plan`, rendered once per version of it. */
   async pdf(plan: ReviewPlanJson): Promise<Buffer> {
     const key = createHash('sha256').update(JSON.stringify(plan)).digest('base64url');
@@ -27,7 +30,7 @@ export class PlanPdfCache {
     if (kept) return kept;
     let pending = this.rendering.get(key);
     if (!pending) {
-      pending = renderReviewPlanPdf(plan);
+      pending = this.cpu.planPdf(plan);
       this.rendering.set(key, pending);
       void pending
         .then(

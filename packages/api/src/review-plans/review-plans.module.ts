@@ -7,6 +7,7 @@ import { MailModule } from '../mail/mail.module.js';
 import { MissesModule } from '../misses/misses.module.js';
 import { StudentsModule } from '../students/students.module.js';
 import { UsersModule } from '../users/users.module.js';
+import { WorkersModule } from '../workers/workers.module.js';
 import { ReviewPlanItemMiss } from './models/review-plan-item-miss.model.js';
 import { ReviewPlanItem } from './models/review-plan-item.model.js';
 import { ReviewPlan } from './models/review-plan.model.js';
@@ -26,6 +27,7 @@ import { ReviewPlansService } from './review-plans.service.js';
     HouseholdsModule,
     UsersModule,
     MailModule,
+    WorkersModule,
   ],
   controllers: [ReviewPlansController],
   providers: [ReviewPlansService, ReviewPlanMakingService, ReviewPlanExportsService, PlanPdfCache],

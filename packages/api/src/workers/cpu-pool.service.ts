@@ -1,0 +1,88 @@
+import { availableParallelism } from 'node:os';
+import { fileURLToPath } from 'node:url';
+import {
+  Injectable,
+  Logger,
+  type OnApplicationShutdown,
+  ServiceUnavailableException,
+} from '@nestjs/common';
+import type { Patterns } from '@workback/core';
+import { Piscina } from 'piscina';
+import type { ReviewPlanJson } from '../review-plans/review-plans.service.js';
+import type * as tasks from './cpu-tasks.js';
+
+/**
+ * Run from TypeScript source (development, tests, benches): the threads need the same loader,
+ * told where the API's tsconfig is (it looks in the working directory, which may be the root).
+ */
+const fromSource = import.meta.url.endsWith('.ts');
+const SOURCE_LOADER = [
+  '--conditions=workback-source',
+  '--import',
+  '@swc-node/register/esm-register',
+];
+const THREADS = Math.max(1, availableParallelism() - 1);
+const API_TSCONFIG = fileURLToPath(new URL('../../tsconfig.json', import.meta.url));
+
+/**
+ * Worker threads for the CPU-heavy pure work of a request: laying out a plan's PDF and weighing
+ * a student's patterns. On the event loop each held every other request for 5–10 ms (with many
+ * families at once, most of a request's wait was queueing behind such work); in a thread the
+ * loop only sends the input and takes the answer. At most `MAX_QUEUED` tasks wait; past that a
+ * request is told to try again (503) rather than the queue growing without end.
+ */
+@Injectable()
+export class CpuPool implements OnApplicationShutdown {
+  static readonly MAX_QUEUED = 100;
+  private readonly pool = new Piscina({
+    filename: new URL(`./cpu-tasks${fromSource ? '.ts' : '.js'}`, import.meta.url).href,
+    execArgv: fromSource ? withSourceLoader(process.execArgv) : process.execArgv,
+    env: fromSource ? { ...process.env, SWC_NODE_PROJECT: API_TSCONFIG } : process.env,
+    // All started with the app and kept: a thread starting mid-load spends its first second
+    // loading the PDF and pattern code, on the cores the requests need. One core is left to
+    // the event loop (and SQLite's and sharp's threads).
+    minThreads: THREADS,
+    maxThreads: THREADS,
+    idleTimeout: Infinity,
+    maxQueue: CpuPool.MAX_QUEUED,
+  });
+  private readonly logger = new Logger('CpuPool');
+
+  constructor() {
+    // A thread that fails outside a task (it could not load) is replaced at the next task; the
+    // pool reports it here instead of ending the process.
+    this.pool.on('error', (err: Error) =>
+      this.logger.error(`a worker thread failed: ${err.message}`),
+    );
+  }
+
+  async planPdf(plan: ReviewPlanJson): Promise<Buffer> {
+    const pdf = await this.run<Awaited<ReturnType<typeof tasks.planPdf>>>('planPdf', plan);
+    return Buffer.from(pdf.buffer, pdf.byteOffset, pdf.byteLength);
+  }
+
+  patterns(...input: tasks.PatternsInput): Promise<Patterns> {
+    return this.run('patterns', input);
+  }
+
+  private async run<T>(name: keyof typeof tasks, input: unknown): Promise<T> {
+    if (this.pool.queueSize >= CpuPool.MAX_QUEUED) {
+      throw new ServiceUnavailableException(
+        'The server is busy printing and weighing patterns: please try again in a moment',
+      );
+    }
+    return (await this.pool.run(input, { name })) as T;
+  }
+
+  async onApplicationShutdown(): Promise<void> {
+    await this.pool.destroy();
+  }
+}
+
+/** The process's own flags, with the TypeScript loader added where it is not already there. */
+function withSourceLoader(execArgv: readonly string[]): string[] {
+  const out = [...execArgv];
+  if (!out.includes(SOURCE_LOADER[0]!)) out.push(SOURCE_LOADER[0]!);
+  if (!out.includes(SOURCE_LOADER[2]!)) out.push(...SOURCE_LOADER.slice(1));
+  return out;
+}
