@@ -180,4 +180,19 @@ describe('per-request work of the real app', () => {
     const api = await t.http().get('/api/misses?page=1').set('cookie', owner.cookie).expect(200);
     expect(sessionCookie(api.headers)).toBeDefined();
   });
+
+  it('answers health with the same JSON and ETag each time, uncompressed, and a 304 for it', async () => {
+    const first = await t.http().get('/api/health').set('accept-encoding', 'gzip').expect(200);
+    expect(first.body).toMatchObject({ status: 'ok', version: expect.any(String) });
+    expect(first.headers['content-type']).toMatch(/^application\/json/);
+    expect(first.headers['content-encoding']).toBeUndefined();
+    expect(first.headers['x-content-type-options']).toBe('nosniff');
+    const again = await t.http().get('/api/health').expect(200);
+    expect(again.text).toBe(first.text);
+    expect(again.headers.etag).toBe(first.headers.etag);
+    await t.http().get('/api/health').set('if-none-match', first.headers.etag!).expect(304);
+    // Other answers are still compressed when asked for (a notebook page is well over 1 kB).
+    const page = await owner.get('/api/misses?page=1').set('accept-encoding', 'gzip').expect(200);
+    expect(page.headers['content-encoding']).toBe('gzip');
+  });
 });

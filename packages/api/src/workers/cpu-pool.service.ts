@@ -36,8 +36,11 @@ export class CpuPool implements OnApplicationShutdown {
   static readonly MAX_QUEUED = 100;
   private readonly pool = new Piscina({
     filename: new URL(`./cpu-tasks${fromSource ? '.ts' : '.js'}`, import.meta.url).href,
-    execArgv: fromSource ? withSourceLoader(process.execArgv) : process.execArgv,
-    env: fromSource ? { ...process.env, SWC_NODE_PROJECT: API_TSCONFIG } : process.env,
+    // Not settings: the threads' own copy of the process's flags and environment.
+    ...(fromSource && {
+      execArgv: withSourceLoader(process.execArgv),
+      env: { ...process.env, SWC_NODE_PROJECT: API_TSCONFIG },
+    }),
     // All started with the app and kept: a thread starting mid-load spends its first second
     // loading the PDF and pattern code, on the cores the requests need. One core is left to
     // the event loop (and SQLite's and sharp's threads).
