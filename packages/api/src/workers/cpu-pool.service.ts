@@ -41,10 +41,12 @@ export class CpuPool implements OnApplicationShutdown {
       execArgv: withSourceLoader(process.execArgv),
       env: { ...process.env, SWC_NODE_PROJECT: API_TSCONFIG },
     }),
-    // All started with the app and kept: a thread starting mid-load spends its first second
-    // loading the PDF and pattern code, on the cores the requests need. One core is left to
-    // the event loop (and SQLite's and sharp's threads).
-    minThreads: THREADS,
+    // Started at the first task and then kept: a thread spends its start loading the PDF and
+    // pattern code, which should happen once, not again at each busy spell (piscina's default
+    // retires idle threads at once). None starts in a process that never prints or weighs
+    // patterns, so none is stopped half-loaded. One core is left to the event loop (and to
+    // SQLite's and sharp's threads).
+    minThreads: 0,
     maxThreads: THREADS,
     idleTimeout: Infinity,
     maxQueue: CpuPool.MAX_QUEUED,
