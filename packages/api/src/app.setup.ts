@@ -47,12 +47,8 @@ export function configureApp(app: NestExpressApplication, config: AppConfig): vo
   app.useBodyParser('json', { limit: JSON_BODY_LIMIT_BYTES });
 
   // JSON and pages compressed on the fly; the web app's files come precompressed (serveWebApp).
-  // Images, PDFs and zips are not compressible types, so downloads stream as they are. The
-  // health check's few bytes never are, and a load balancer asks for them many times a minute.
-  const compress = compression();
-  app.use((req: Request, res: Response, next: NextFunction) =>
-    req.path === HEALTH_PATH ? next() : compress(req, res, next),
-  );
+  // Images, PDFs and zips are not compressible types, so downloads stream as they are.
+  app.use(compression());
 
   // Swagger UI ships inline styles; only its own pages get them.
   const headers = {
@@ -147,10 +143,8 @@ function securityHeaders(config: AppConfig, directives: typeof strictCsp) {
   };
 }
 
-const HEALTH_PATH = '/api/health';
-
 /** Public routes that never read or write the session, and everything outside /api. */
-const SESSIONLESS = [HEALTH_PATH, '/api/docs'];
+const SESSIONLESS = ['/api/health', '/api/docs'];
 
 export function needsSession(path: string): boolean {
   return (

@@ -50,7 +50,11 @@ export class SqlReader {
     params: readonly SqlParam[] = [],
     transaction?: Transaction | null,
   ): Promise<T[]> {
-    if (transaction) return this.inTransaction<T>(transaction, sql, params);
+    if (transaction) {
+      // Sequelize keeps the driver's connection on the transaction once it has begun.
+      const { connection } = transaction as unknown as { connection: DriverConnection };
+      return this.query<T>(connection, sql, params);
+    }
     const manager = this.sequelize.connectionManager as unknown as ConnectionManager;
     const connection = await manager.getConnection({ type: 'SELECT' });
     try {
@@ -58,16 +62,6 @@ export class SqlReader {
     } finally {
       await manager.releaseConnection(connection);
     }
-  }
-
-  private inTransaction<T>(
-    transaction: Transaction,
-    sql: string,
-    params: readonly SqlParam[],
-  ): Promise<T[]> {
-    // Sequelize keeps the driver's connection on the transaction once it has begun.
-    const connection = (transaction as unknown as { connection: DriverConnection }).connection;
-    return this.query<T>(connection, sql, params);
   }
 
   /** On SQLite the connection keeps the statement compiled (database/sqlite-statements.ts). */

@@ -41,10 +41,12 @@ export function keepStatements(connection: StatementConnection): void {
     const direct = connection[method].bind(connection);
     connection[method] = (sql: string, ...rest: unknown[]) => {
       const [params, callback] = rest as [Params, Callback];
-      if (kept.closed || typeof callback !== 'function' || rest.length !== 2) {
-        return direct(sql, ...rest);
-      }
-      if (!keepable(sql, params)) return direct(sql, ...rest);
+      const keep =
+        !kept.closed &&
+        rest.length === 2 &&
+        typeof callback === 'function' &&
+        keepable(sql, params);
+      if (!keep) return direct(sql, ...rest);
       const { statement, ready } = kept.get(sql);
       ready.then(
         () =>

@@ -16,11 +16,8 @@ import type * as tasks from './cpu-tasks.js';
  * told where the API's tsconfig is (it looks in the working directory, which may be the root).
  */
 const fromSource = import.meta.url.endsWith('.ts');
-const SOURCE_LOADER = [
-  '--conditions=workback-source',
-  '--import',
-  '@swc-node/register/esm-register',
-];
+const SOURCE_CONDITION = '--conditions=workback-source';
+const SOURCE_LOADER = ['--import', '@swc-node/register/esm-register'] as const;
 const THREADS = Math.max(1, availableParallelism() - 1);
 const API_TSCONFIG = fileURLToPath(new URL('../../tsconfig.json', import.meta.url));
 
@@ -62,7 +59,7 @@ export class CpuPool implements OnApplicationShutdown {
   }
 
   async planPdf(plan: ReviewPlanJson): Promise<Buffer> {
-    const pdf = await this.run<Awaited<ReturnType<typeof tasks.planPdf>>>('planPdf', plan);
+    const pdf = await this.run<Uint8Array>('planPdf', plan);
     return Buffer.from(pdf.buffer, pdf.byteOffset, pdf.byteLength);
   }
 
@@ -86,8 +83,9 @@ export class CpuPool implements OnApplicationShutdown {
 
 /** The process's own flags, with the TypeScript loader added where it is not already there. */
 function withSourceLoader(execArgv: readonly string[]): string[] {
-  const out = [...execArgv];
-  if (!out.includes(SOURCE_LOADER[0]!)) out.push(SOURCE_LOADER[0]!);
-  if (!out.includes(SOURCE_LOADER[2]!)) out.push(...SOURCE_LOADER.slice(1));
-  return out;
+  return [
+    ...execArgv,
+    ...(execArgv.includes(SOURCE_CONDITION) ? [] : [SOURCE_CONDITION]),
+    ...(execArgv.includes(SOURCE_LOADER[1]) ? [] : SOURCE_LOADER),
+  ];
 }
