@@ -11,7 +11,7 @@ import {
   requestDrawer,
   seeded,
 } from './many-families.bench.js';
-import { signIn } from './sign-in.js';
+import { signIn } from '../test/support/sign-in.js';
 import { processCpuMs, table } from './stats.js';
 
 const REQUESTS = Number(process.env.BENCH_KIND_REQUESTS ?? 400);

@@ -8,7 +8,7 @@ import { createApp } from '../src/app.factory.js';
 import { startServerProcess } from '../test/support/server-process.js';
 import { report } from './figures.js';
 import { fillHousehold } from './household-fill.js';
-import { type Session, signIn } from './sign-in.js';
+import { type Session, signIn } from '../test/support/sign-in.js';
 import { percentile, table } from './stats.js';
 
 const MISSES = Number(process.env.BENCH_MISSES ?? 100_000);

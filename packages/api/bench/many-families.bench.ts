@@ -11,7 +11,7 @@ import { type Figure, report } from './figures.js';
 import { fillFamilies } from './household-fill.js';
 import { type KindStats, type LoadRequest, openLoop, type OpenLoopResult } from './open-loop.js';
 import { throwawayDatabase } from './postgres.js';
-import { type Session, signIn } from './sign-in.js';
+import { type Session, signIn } from '../test/support/sign-in.js';
 import { percentile, processCpuMs, table } from './stats.js';
 
 const HOUSEHOLDS = Number(process.env.BENCH_FAMILIES ?? 2000);
@@ -364,10 +364,12 @@ async function familiesOn(db: Database): Promise<RateResult[]> {
   console.log(`\nmany families on ${db.name}:`);
   try {
     const families = await prepareFamilies(env);
-    const server = await startServerProcess(
-      env,
-      profileDir ? ['--cpu-prof', `--cpu-prof-dir=${profileDir}`] : [],
-    );
+    // BENCH_SERVER_NODE_ARGS: more flags for the server's node (`--trace-gc`, heap sizes).
+    const extra = (process.env.BENCH_SERVER_NODE_ARGS ?? '').split(' ').filter(Boolean);
+    const server = await startServerProcess(env, [
+      ...(profileDir ? ['--cpu-prof', `--cpu-prof-dir=${profileDir}`] : []),
+      ...extra,
+    ]);
     try {
       const members: Member[] = [];
       for (const f of families) members.push({ ...f, ...(await signIn(server.url, f.email)) });

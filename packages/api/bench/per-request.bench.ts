@@ -6,7 +6,7 @@ import { fileURLToPath } from 'node:url';
 import autocannon, { type Result } from 'autocannon';
 import { startServerProcess } from '../test/support/server-process.js';
 import { report } from './figures.js';
-import { signIn } from './sign-in.js';
+import { signIn } from '../test/support/sign-in.js';
 import { table } from './stats.js';
 
 const DURATION = Number(process.env.BENCH_PER_REQUEST_SECONDS ?? 6);

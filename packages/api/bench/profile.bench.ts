@@ -3,7 +3,7 @@ import { tmpdir } from 'node:os';
 import path from 'node:path';
 import autocannon from 'autocannon';
 import { startProductionServer } from './per-request.bench.js';
-import { signIn } from './sign-in.js';
+import { signIn } from '../test/support/sign-in.js';
 
 const SECONDS = Number(process.env.BENCH_PROFILE_SECONDS ?? 6);
 const TOP = 15;

@@ -3,9 +3,23 @@ import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 import { startServerProcess } from './support/server-process.js';
+import { signIn } from './support/sign-in.js';
 
 const dataDir = mkdtempSync(path.join(tmpdir(), 'workback-shutdown-'));
-afterAll(() => rmSync(dataDir, { recursive: true, force: true }));
+const workerDataDir = mkdtempSync(path.join(tmpdir(), 'workback-shutdown-'));
+afterAll(() => {
+  for (const dir of [dataDir, workerDataDir]) rmSync(dir, { recursive: true, force: true });
+});
+
+/** The server's exit, or SIGKILL after a minute. */
+async function exitOf(server: Awaited<ReturnType<typeof startServerProcess>>) {
+  const exit = await Promise.race([
+    server.exited,
+    new Promise<'still running'>((r) => setTimeout(() => r('still running'), 60_000)),
+  ]);
+  if (exit === 'still running') server.child.kill('SIGKILL');
+  return exit;
+}
 
 describe('graceful shutdown', () => {
   it('finishes in-flight requests on SIGTERM, closes the databases and exits 0', async () => {
@@ -21,11 +35,7 @@ describe('graceful shutdown', () => {
     await new Promise((r) => setTimeout(r, 5));
     server.child.kill('SIGTERM');
     const statuses = await Promise.allSettled(inFlight);
-    const exit = await Promise.race([
-      server.exited,
-      new Promise<'still running'>((r) => setTimeout(() => r('still running'), 60_000)),
-    ]);
-    if (exit === 'still running') server.child.kill('SIGKILL');
+    const exit = await exitOf(server);
     expect(exit, server.output()).toEqual({ code: 0, signal: null });
     // Every request either completed with 200 or was never accepted; none was cut off mid-way.
     for (const s of statuses) if (s.status === 'fulfilled') expect(s.value).toBe(200);
@@ -34,5 +44,55 @@ describe('graceful shutdown', () => {
     expect(existsSync(path.join(dataDir, 'workback.sqlite-wal'))).toBe(false);
     expect(existsSync(path.join(dataDir, 'sessions.sqlite-wal'))).toBe(false);
     // Starting through swc-node compiles src on the fly: slow on a loaded 2-core machine.
+  }, 180_000);
+
+  it('lets PDFs and patterns waiting for the worker thread finish on SIGTERM', async () => {
+    const server = await startServerProcess({ DATA_DIR: workerDataDir, SEED_DEMO: 'true' });
+    const { cookie } = await signIn(server.url, 'parent@workback.test');
+    const get = (p: string) =>
+      fetch(`${server.url}/api${p}`, { headers: { cookie }, signal: AbortSignal.timeout(30_000) });
+    const students = (await (await get('/students')).json()) as { items: { id: number }[] };
+    const plans = (await (await get('/review-plans')).json()) as { items: { id: number }[] };
+    expect(plans.items.length).toBeGreaterThan(0);
+    // Each its own task (another range, another plan): the thread starts at the first, so at
+    // SIGTERM most are still queued for it.
+    const paths = [
+      ...students.items.flatMap((s) =>
+        ['2026-01-01', '2026-02-01', '2026-03-01'].map(
+          (from) => `/patterns?studentId=${s.id}&from=${from}`,
+        ),
+      ),
+      ...plans.items.map((p) => `/review-plans/${p.id}/export.pdf`),
+    ];
+    const inFlight = paths.map((p) => get(p).then((r) => r.status));
+    await new Promise((r) => setTimeout(r, 50));
+    server.child.kill('SIGTERM');
+    const statuses = await Promise.allSettled(inFlight);
+    expect(await exitOf(server), server.output()).toEqual({ code: 0, signal: null });
+    expect(statuses.map((s) => (s.status === 'fulfilled' ? s.value : 'not answered'))).toEqual(
+      paths.map(() => 200),
+    );
+  }, 180_000);
+
+  it('exits 0 on SIGTERM when the clients waiting on the worker thread have gone', async () => {
+    const server = await startServerProcess({ DATA_DIR: workerDataDir, SEED_DEMO: 'true' });
+    const { cookie } = await signIn(server.url, 'parent@workback.test');
+    const students = (await (
+      await fetch(`${server.url}/api/students`, { headers: { cookie } })
+    ).json()) as { items: { id: number }[] };
+    const gone = new AbortController();
+    const requests = students.items.flatMap((s) =>
+      ['2025-01-01', '2025-02-01', '2025-03-01'].map((from) =>
+        fetch(`${server.url}/api/patterns?studentId=${s.id}&from=${from}`, {
+          headers: { cookie },
+          signal: gone.signal,
+        }).catch(() => 'gone'),
+      ),
+    );
+    await new Promise((r) => setTimeout(r, 50));
+    gone.abort();
+    await Promise.all(requests);
+    server.child.kill('SIGTERM');
+    expect(await exitOf(server), server.output()).toEqual({ code: 0, signal: null });
   }, 180_000);
 });

@@ -16,8 +16,15 @@ import type * as tasks from './cpu-tasks.js';
  * told where the API's tsconfig is (it looks in the working directory, which may be the root).
  */
 const fromSource = import.meta.url.endsWith('.ts');
-const SOURCE_CONDITION = '--conditions=workback-source';
-const SOURCE_LOADER = ['--import', '@swc-node/register/esm-register'] as const;
+/**
+ * A thread's flags replace the process's: only the loader's, as V8's (`--trace-gc`, heap sizes)
+ * and process-wide ones (`--cpu-prof`) are refused in a thread or would act once per thread.
+ */
+const SOURCE_FLAGS = [
+  '--conditions=workback-source',
+  '--import',
+  '@swc-node/register/esm-register',
+];
 const THREADS = Math.max(1, availableParallelism() - 1);
 const API_TSCONFIG = fileURLToPath(new URL('../../tsconfig.json', import.meta.url));
 
@@ -35,7 +42,7 @@ export class CpuPool implements OnApplicationShutdown {
     filename: new URL(`./cpu-tasks${fromSource ? '.ts' : '.js'}`, import.meta.url).href,
     // Not settings: the threads' own copy of the process's flags and environment.
     ...(fromSource && {
-      execArgv: withSourceLoader(process.execArgv),
+      execArgv: SOURCE_FLAGS,
       env: { ...process.env, SWC_NODE_PROJECT: API_TSCONFIG },
     }),
     // Started at the first task and then kept: a thread spends its start loading the PDF and
@@ -79,13 +86,4 @@ export class CpuPool implements OnApplicationShutdown {
   async onApplicationShutdown(): Promise<void> {
     await this.pool.destroy();
   }
-}
-
-/** The process's own flags, with the TypeScript loader added where it is not already there. */
-function withSourceLoader(execArgv: readonly string[]): string[] {
-  return [
-    ...execArgv,
-    ...(execArgv.includes(SOURCE_CONDITION) ? [] : [SOURCE_CONDITION]),
-    ...(execArgv.includes(SOURCE_LOADER[1]) ? [] : SOURCE_LOADER),
-  ];
 }
