@@ -1,3 +1,5 @@
+import { getConnectionToken } from '@nestjs/sequelize';
+import type { Sequelize } from 'sequelize-typescript';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import {
   type Client,
@@ -56,6 +58,14 @@ async function sitting(studentId: number, startedAt: string, conditions?: object
   expect(res.status, res.text).toBe(201);
   return res.body as { id: number; timeOfDay: string };
 }
+
+const emptyChanges = {
+  heldItemIds: [],
+  createdMissIds: [],
+  reopenedMissIds: [],
+  resolvedMissIds: [],
+  updatedMissIds: [],
+};
 
 function putMarks(id: number, marks: object[]) {
   return owner.send('put', `/api/sittings/${id}/marks`, { marks });
@@ -216,14 +226,41 @@ describe('marks and misses', () => {
     ];
     const first = await putMarks(s.id, marks).expect(200);
     const second = await putMarks(s.id, marks).expect(200);
-    expect(second.body.misses).toEqual({
-      heldItemIds: [],
-      createdMissIds: [],
-      reopenedMissIds: [],
-      resolvedMissIds: [],
-      updatedMissIds: [],
-    });
+    expect(second.body.misses).toEqual(emptyChanges);
     expect(second.body.marks).toEqual(first.body.marks);
+    expect(await missesOf(s.id)).toHaveLength(1);
+  });
+
+  it('answers marks sent again as saved while another write holds the database', async () => {
+    const s = await sitting(wren, '2026-02-04T14:00');
+    const marks = [
+      { keyItemId: item(1), correct: false, answer: '57' },
+      { keyItemId: item(2), correct: true },
+    ];
+    const first = await putMarks(s.id, marks).expect(200);
+    let release!: () => void;
+    const held = t.app
+      .get<Sequelize>(getConnectionToken())
+      .transaction(() => new Promise<void>((resolve) => (release = resolve)));
+    // Not a timing: a deadline, so a save that queued behind `held` fails here, not by hanging.
+    const deadline = new Promise<'still waiting'>((r) =>
+      setTimeout(() => r('still waiting'), 20_000),
+    );
+    try {
+      const again = await Promise.race([putMarks(s.id, [...marks].reverse()), deadline]);
+      expect(again === 'still waiting' ? again : again.body).toEqual({
+        ...first.body,
+        misses: emptyChanges,
+      });
+      // A save naming an item twice is refused as before, without the lock either.
+      const twice = await Promise.race([putMarks(s.id, [...marks, marks[0]!]), deadline]);
+      expect(twice === 'still waiting' ? twice : twice.body.fields).toEqual({
+        'marks.2.keyItemId': 'item 1 is marked twice (also marks.0)',
+      });
+    } finally {
+      release();
+      await held;
+    }
     expect(await missesOf(s.id)).toHaveLength(1);
   });
 

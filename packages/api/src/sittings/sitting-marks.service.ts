@@ -57,6 +57,11 @@ export class SittingMarksService implements OnModuleInit {
    * changes nothing.
    */
   async putMarks(member: MemberContext, id: number, dto: PutMarksDto) {
+    // Marks sent again as they are saved (a retry after a lost answer, a second tap) change
+    // nothing: answered from reads, without queueing for the write lock behind every family.
+    if (await this.savedAlready(member, id, dto)) {
+      return { ...(await this.sittings.findOne(member, id)), misses: emptyChanges() };
+    }
     const changes = await this.sequelize.transaction(async (transaction) => {
       const sitting = await this.sittings.findModel(member, id, transaction);
       // The three reads at once: each turn of the event loop is time the write queue waits.
@@ -65,25 +70,13 @@ export class SittingMarksService implements OnModuleInit {
         this.markModel.findAll({ where: { sittingId: id }, transaction }),
         this.misses.findForSitting(id, transaction),
       ]);
-      const byId = new Map(items.map((i) => [i.id, i]));
-      const errors: Record<string, string> = {};
-      const seen = new Map<number, number>();
-      dto.marks.forEach((m, index) => {
-        if (!byId.has(m.keyItemId)) {
-          errors[`marks.${index}.keyItemId`] = `item ${m.keyItemId} is not in this sitting’s key`;
-        } else if (seen.has(m.keyItemId)) {
-          errors[`marks.${index}.keyItemId`] =
-            `item ${byId.get(m.keyItemId)!.number} is marked twice (also marks.${seen.get(m.keyItemId)})`;
-        }
-        seen.set(m.keyItemId, index);
-      });
-      if (Object.keys(errors).length) throw fieldsError(errors);
+      const byId = itemsMarked(dto, items);
 
       const existing = new Map(marks.map((m) => [m.keyItemId, m]));
       const changes = emptyChanges();
       const added: Pick<SittingMark, 'sittingId' | 'keyItemId' | 'correct' | 'answer'>[] = [];
       for (const m of dto.marks) {
-        const answer = m.answer === undefined || m.answer === '' ? null : m.answer;
+        const answer = answerOf(m);
         const before = existing.get(m.keyItemId);
         existing.delete(m.keyItemId);
         const item = byId.get(m.keyItemId)!;
@@ -136,6 +129,38 @@ export class SittingMarksService implements OnModuleInit {
     // Read once committed, outside the transaction: this process's writes queue behind each
     // transaction, so it holds the queue only for what must be read and written together.
     return { ...(await this.sittings.findOne(member, id)), misses: changes };
+  }
+
+  /**
+   * Whether the sitting's saved marks are exactly `dto`'s, so saving it would change nothing;
+   * a save naming items wrongly is refused here as the write would refuse it. Read outside a
+   * transaction: the marks are one query, so they are all from one moment, and this save is
+   * then the same as one made at that moment.
+   */
+  private async savedAlready(member: MemberContext, id: number, dto: PutMarksDto) {
+    const sitting = await this.sittings.findModel(member, id);
+    const [items, saved] = await Promise.all([
+      this.keys.itemsOf(sitting.answerKeyId),
+      this.markModel.findAll({
+        where: { sittingId: id },
+        attributes: ['keyItemId', 'correct', 'answer'],
+        raw: true,
+      }),
+    ]);
+    const byId = itemsMarked(dto, items);
+    if (saved.length !== dto.marks.length) return false;
+    const savedMarks = new Map(saved.map((m) => [m.keyItemId, m]));
+    return dto.marks.every((m) => {
+      const before = savedMarks.get(m.keyItemId);
+      return (
+        before !== undefined &&
+        // Raw rows: SQLite's booleans are 0 and 1.
+        Boolean(before.correct) === m.correct &&
+        before.answer === answerOf(m) &&
+        // A wrong mark whose flagged key answer is now said to be right may make its miss.
+        (m.correct || m.keyAnswerRight !== true || !keyFlagged(byId.get(m.keyItemId)!))
+      );
+    });
   }
 
   /** Re-marks every sitting marked against items whose key answer was corrected. */
@@ -297,6 +322,28 @@ export class SittingMarksService implements OnModuleInit {
     return new Map(rows.map((r) => [r.keyItemId, r.count]));
   }
 }
+
+/** The sitting's key items by id, once every mark names one of them, and only once. */
+function itemsMarked(dto: PutMarksDto, items: readonly KeyItem[]): Map<number, KeyItem> {
+  const byId = new Map(items.map((i) => [i.id, i]));
+  const errors: Record<string, string> = {};
+  const seen = new Map<number, number>();
+  dto.marks.forEach((m, index) => {
+    if (!byId.has(m.keyItemId)) {
+      errors[`marks.${index}.keyItemId`] = `item ${m.keyItemId} is not in this sitting’s key`;
+    } else if (seen.has(m.keyItemId)) {
+      errors[`marks.${index}.keyItemId`] =
+        `item ${byId.get(m.keyItemId)!.number} is marked twice (also marks.${seen.get(m.keyItemId)})`;
+    }
+    seen.set(m.keyItemId, index);
+  });
+  if (Object.keys(errors).length) throw fieldsError(errors);
+  return byId;
+}
+
+/** The child's answer as saved: none typed is null. */
+const answerOf = (m: PutMarksDto['marks'][number]) =>
+  m.answer === undefined || m.answer === '' ? null : m.answer;
 
 const emptyChanges = (): MissChanges => ({
   heldItemIds: [],
