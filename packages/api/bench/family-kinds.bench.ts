@@ -10,6 +10,7 @@ import {
   prepareFamilies,
   requestDrawer,
   seeded,
+  serverNodeArgs,
 } from './many-families.bench.js';
 import { signIn } from '../test/support/sign-in.js';
 import { processCpuMs, table } from './stats.js';
@@ -30,7 +31,7 @@ export async function benchFamilyKinds(): Promise<void> {
   const env = familyServerEnv(dataDir);
   try {
     const families = await prepareFamilies(env);
-    const server = await startServerProcess(env);
+    const server = await startServerProcess(env, serverNodeArgs());
     const pool = new Pool(server.url, { connections: 1 });
     try {
       const members = [];
@@ -38,7 +39,11 @@ export async function benchFamilyKinds(): Promise<void> {
       const { photo } = await photoForm();
       const today = new Date().toISOString().slice(0, 10);
       const rows = [];
-      for (const kind of Object.keys(KINDS) as (keyof typeof KINDS)[]) {
+      // BENCH_KINDS=SM measures only those.
+      const only = process.env.BENCH_KINDS ?? Object.keys(KINDS).join('');
+      for (const kind of Object.keys(KINDS).filter((k) =>
+        only.includes(k),
+      ) as (keyof typeof KINDS)[]) {
         const draw = requestDrawer(members, photo, today, seeded(7), kind);
         const send = async () => {
           const r = draw();

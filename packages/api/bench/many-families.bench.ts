@@ -352,24 +352,29 @@ export function familyServerEnv(dataDir: string): Record<string, string> {
   };
 }
 
+/**
+ * The server's node flags: BENCH_CPU_PROF_DIR has it write a .cpuprofile there when it stops;
+ * BENCH_SERVER_NODE_ARGS adds any others (`--trace-gc`, heap sizes).
+ */
+export function serverNodeArgs(): string[] {
+  const profileDir = process.env.BENCH_CPU_PROF_DIR;
+  return [
+    ...(profileDir ? ['--cpu-prof', `--cpu-prof-dir=${profileDir}`] : []),
+    ...(process.env.BENCH_SERVER_NODE_ARGS ?? '').split(' ').filter(Boolean),
+  ];
+}
+
 /** One database's run: the fill, the sign-ins, then the mix at each offered rate. */
 async function familiesOn(db: Database): Promise<RateResult[]> {
   // BENCH_DATA_DIR keeps the filled database between runs (it is not removed at the end).
   const kept = process.env.BENCH_DATA_DIR;
   const dataDir = kept || mkdtempSync(path.join(tmpdir(), 'workback-bench-'));
-  // BENCH_CPU_PROF_DIR: the server writes a .cpuprofile there when it stops.
-  const profileDir = process.env.BENCH_CPU_PROF_DIR;
   const env = { ...familyServerEnv(dataDir), ...db.env };
   const today = new Date().toISOString().slice(0, 10);
   console.log(`\nmany families on ${db.name}:`);
   try {
     const families = await prepareFamilies(env);
-    // BENCH_SERVER_NODE_ARGS: more flags for the server's node (`--trace-gc`, heap sizes).
-    const extra = (process.env.BENCH_SERVER_NODE_ARGS ?? '').split(' ').filter(Boolean);
-    const server = await startServerProcess(env, [
-      ...(profileDir ? ['--cpu-prof', `--cpu-prof-dir=${profileDir}`] : []),
-      ...extra,
-    ]);
+    const server = await startServerProcess(env, serverNodeArgs());
     try {
       const members: Member[] = [];
       for (const f of families) members.push({ ...f, ...(await signIn(server.url, f.email)) });
