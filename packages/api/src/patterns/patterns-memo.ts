@@ -1,7 +1,7 @@
-import { createHash } from 'node:crypto';
 import { Injectable } from '@nestjs/common';
 import type { computePatterns, Patterns } from '@workback/core';
 import { LRUCache } from 'lru-cache';
+import { contentDigest } from '../common/content-digest.js';
 import { CpuPool } from '../workers/cpu-pool.service.js';
 
 type Options = Parameters<typeof computePatterns>[1];
@@ -23,9 +23,7 @@ export class PatternsMemo {
   constructor(private readonly cpu: CpuPool) {}
 
   compute(misses: Parameters<typeof computePatterns>[0], options: Options): Promise<Patterns> {
-    const key = createHash('sha256')
-      .update(JSON.stringify([misses, options]))
-      .digest('base64url');
+    const key = contentDigest([misses, options]);
     const kept = this.results.get(key);
     if (kept) return kept;
     const patterns = this.cpu.patterns(misses, options);

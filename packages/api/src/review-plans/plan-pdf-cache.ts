@@ -1,6 +1,6 @@
-import { createHash } from 'node:crypto';
 import { Injectable } from '@nestjs/common';
 import { LRUCache } from 'lru-cache';
+import { contentDigest } from '../common/content-digest.js';
 import { CpuPool } from '../workers/cpu-pool.service.js';
 import type { ReviewPlanJson } from './review-plans.service.js';
 
@@ -25,7 +25,7 @@ export class PlanPdfCache {
 
   /** The PDF of `plan`, rendered once per version of it. */
   async pdf(plan: ReviewPlanJson): Promise<Buffer> {
-    const key = createHash('sha256').update(JSON.stringify(plan)).digest('base64url');
+    const key = contentDigest(plan);
     const kept = this.done.get(key);
     if (kept) return kept;
     let pending = this.rendering.get(key);
