@@ -60,4 +60,20 @@ describe('the worker threads', () => {
     // The queue drained: the pool takes work again.
     expect(await pool.patterns(misses, options)).toEqual(expected);
   });
+
+  it('give up a task not done within its limit with a 503, and work after', async () => {
+    const slow = new CpuPool();
+    try {
+      // The thread starts at the first task, loading the code: far longer than 1 ms.
+      slow.taskLimitMs = 1;
+      const late = await slow.patterns(misses, options).catch((err: unknown) => err);
+      expect(late).toBeInstanceOf(ServiceUnavailableException);
+      expect((late as ServiceUnavailableException).getStatus()).toBe(503);
+      expect((late as Error).message).toMatch(/took too long/);
+      slow.taskLimitMs = CpuPool.TASK_LIMIT_MS;
+      expect(await slow.patterns(misses, options)).toEqual(computePatterns(misses, options));
+    } finally {
+      await slow.onApplicationShutdown();
+    }
+  });
 });

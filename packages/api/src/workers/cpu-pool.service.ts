@@ -33,11 +33,20 @@ const API_TSCONFIG = fileURLToPath(new URL('../../tsconfig.json', import.meta.ur
  * a student's patterns. On the event loop each held every other request for 5–10 ms (with many
  * families at once, most of a request's wait was queueing behind such work); in a thread the
  * loop only sends the input and takes the answer. At most `MAX_QUEUED` tasks wait; past that a
- * request is told to try again (503) rather than the queue growing without end.
+ * request is told to try again (503) rather than the queue growing without end, and so is one
+ * whose task is not done within `TASK_LIMIT_MS`.
  */
 @Injectable()
 export class CpuPool implements OnApplicationShutdown {
   static readonly MAX_QUEUED = 100;
+  /**
+   * A task still waiting or running after this long is given up (a running one's thread is
+   * stopped and another started), and its request answers 503: a thread that cannot start, or
+   * a task that never ends, would otherwise hold the request and the queue for ever.
+   */
+  static readonly TASK_LIMIT_MS = 20_000;
+  /** Tests shorten it. */
+  taskLimitMs = CpuPool.TASK_LIMIT_MS;
   private readonly pool = new Piscina({
     filename: new URL(`./cpu-tasks${fromSource ? '.ts' : '.js'}`, import.meta.url).href,
     // Not settings: the threads' own copy of the process's flags and environment.
@@ -80,7 +89,15 @@ export class CpuPool implements OnApplicationShutdown {
         'The server is busy printing and weighing patterns: please try again in a moment',
       );
     }
-    return (await this.pool.run(input, { name })) as T;
+    const signal = AbortSignal.timeout(this.taskLimitMs);
+    try {
+      return (await this.pool.run(input, { name, signal })) as T;
+    } catch (err) {
+      if (!signal.aborted) throw err;
+      throw new ServiceUnavailableException(
+        'Printing or weighing patterns took too long: please try again in a moment',
+      );
+    }
   }
 
   async onApplicationShutdown(): Promise<void> {
