@@ -2,7 +2,7 @@ import { existsSync, mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
-import { startServerProcess } from './support/server-process.js';
+import { type ServerProcess, startServerProcess } from './support/server-process.js';
 import { signIn } from './support/sign-in.js';
 
 const dataDir = mkdtempSync(path.join(tmpdir(), 'workback-shutdown-'));
@@ -12,13 +12,32 @@ afterAll(() => {
 });
 
 /** The server's exit, or SIGKILL after a minute. */
-async function exitOf(server: Awaited<ReturnType<typeof startServerProcess>>) {
+async function exitOf(server: ServerProcess) {
   const exit = await Promise.race([
     server.exited,
     new Promise<'still running'>((r) => setTimeout(() => r('still running'), 60_000)),
   ]);
   if (exit === 'still running') server.child.kill('SIGKILL');
   return exit;
+}
+
+/**
+ * A demo server with the parent signed in, and requests for patterns that are each their own
+ * task for the worker thread (another student or range): the thread starts at the first, so
+ * the rest queue for it.
+ */
+async function serverWithPatternPaths() {
+  const server = await startServerProcess({ DATA_DIR: workerDataDir, SEED_DEMO: 'true' });
+  const { cookie } = await signIn(server.url, 'parent@workback.test');
+  const get = (p: string, signal: AbortSignal = AbortSignal.timeout(30_000)) =>
+    fetch(`${server.url}/api${p}`, { headers: { cookie }, signal });
+  const students = (await (await get('/students')).json()) as { items: { id: number }[] };
+  const patternPaths = students.items.flatMap((s) =>
+    ['2026-01-01', '2026-02-01', '2026-03-01'].map(
+      (from) => `/patterns?studentId=${s.id}&from=${from}`,
+    ),
+  );
+  return { server, get, patternPaths };
 }
 
 describe('graceful shutdown', () => {
@@ -47,23 +66,11 @@ describe('graceful shutdown', () => {
   }, 180_000);
 
   it('lets PDFs and patterns waiting for the worker thread finish on SIGTERM', async () => {
-    const server = await startServerProcess({ DATA_DIR: workerDataDir, SEED_DEMO: 'true' });
-    const { cookie } = await signIn(server.url, 'parent@workback.test');
-    const get = (p: string) =>
-      fetch(`${server.url}/api${p}`, { headers: { cookie }, signal: AbortSignal.timeout(30_000) });
-    const students = (await (await get('/students')).json()) as { items: { id: number }[] };
+    const { server, get, patternPaths } = await serverWithPatternPaths();
     const plans = (await (await get('/review-plans')).json()) as { items: { id: number }[] };
     expect(plans.items.length).toBeGreaterThan(0);
-    // Each its own task (another range, another plan): the thread starts at the first, so at
-    // SIGTERM most are still queued for it.
-    const paths = [
-      ...students.items.flatMap((s) =>
-        ['2026-01-01', '2026-02-01', '2026-03-01'].map(
-          (from) => `/patterns?studentId=${s.id}&from=${from}`,
-        ),
-      ),
-      ...plans.items.map((p) => `/review-plans/${p.id}/export.pdf`),
-    ];
+    // Each plan's PDF its own task too: at SIGTERM most are still queued for the thread.
+    const paths = [...patternPaths, ...plans.items.map((p) => `/review-plans/${p.id}/export.pdf`)];
     const inFlight = paths.map((p) => get(p).then((r) => r.status));
     await new Promise((r) => setTimeout(r, 50));
     server.child.kill('SIGTERM');
@@ -75,20 +82,9 @@ describe('graceful shutdown', () => {
   }, 180_000);
 
   it('exits 0 on SIGTERM when the clients waiting on the worker thread have gone', async () => {
-    const server = await startServerProcess({ DATA_DIR: workerDataDir, SEED_DEMO: 'true' });
-    const { cookie } = await signIn(server.url, 'parent@workback.test');
-    const students = (await (
-      await fetch(`${server.url}/api/students`, { headers: { cookie } })
-    ).json()) as { items: { id: number }[] };
+    const { server, get, patternPaths } = await serverWithPatternPaths();
     const gone = new AbortController();
-    const requests = students.items.flatMap((s) =>
-      ['2025-01-01', '2025-02-01', '2025-03-01'].map((from) =>
-        fetch(`${server.url}/api/patterns?studentId=${s.id}&from=${from}`, {
-          headers: { cookie },
-          signal: gone.signal,
-        }).catch(() => 'gone'),
-      ),
-    );
+    const requests = patternPaths.map((p) => get(p, gone.signal).catch(() => 'gone'));
     await new Promise((r) => setTimeout(r, 50));
     gone.abort();
     await Promise.all(requests);

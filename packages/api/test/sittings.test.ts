@@ -71,6 +71,17 @@ function putMarks(id: number, marks: object[]) {
   return owner.send('put', `/api/sittings/${id}/marks`, { marks });
 }
 
+/** A sitting of Wren's with item 1 marked wrong (a miss) and item 2 right, saved once. */
+async function markedOnce(startedAt: string) {
+  const s = await sitting(wren, startedAt);
+  const marks = [
+    { keyItemId: item(1), correct: false, answer: '57' },
+    { keyItemId: item(2), correct: true },
+  ];
+  const first = await putMarks(s.id, marks).expect(200);
+  return { s, marks, first };
+}
+
 async function missesOf(sittingId: number) {
   const res = await owner.get(`/api/misses?studentId=${wren}&pageSize=100`).expect(200);
   return (res.body.items as { id: number; sittingId: number | null; status: string }[]).filter(
@@ -219,12 +230,7 @@ describe('marks and misses', () => {
   });
 
   it('creates nothing new when the same marks are saved again', async () => {
-    const s = await sitting(wren, '2026-02-04T10:00');
-    const marks = [
-      { keyItemId: item(1), correct: false, answer: '57' },
-      { keyItemId: item(2), correct: true },
-    ];
-    const first = await putMarks(s.id, marks).expect(200);
+    const { s, marks, first } = await markedOnce('2026-02-04T10:00');
     const second = await putMarks(s.id, marks).expect(200);
     expect(second.body.misses).toEqual(emptyChanges);
     expect(second.body.marks).toEqual(first.body.marks);
@@ -232,12 +238,7 @@ describe('marks and misses', () => {
   });
 
   it('answers marks sent again as saved while another write holds the database', async () => {
-    const s = await sitting(wren, '2026-02-04T14:00');
-    const marks = [
-      { keyItemId: item(1), correct: false, answer: '57' },
-      { keyItemId: item(2), correct: true },
-    ];
-    const first = await putMarks(s.id, marks).expect(200);
+    const { s, marks, first } = await markedOnce('2026-02-04T14:00');
     let release!: () => void;
     const held = t.app
       .get<Sequelize>(getConnectionToken())
