@@ -104,6 +104,34 @@ describe('statements kept compiled on a connection', () => {
     await close(db);
   });
 
+  it('holds ROLLBACK until the statements sent before it are answered, so none commits alone', async () => {
+    // node-sqlite3's default parallel mode, as the write connection runs: each statement
+    // takes its own worker thread. A long read, then an insert, then ROLLBACK, all sent at once.
+    // The read and ROLLBACK are compiled already and the insert is not, so unheld, ROLLBACK
+    // would reach SQLite while the insert still compiles, and the insert would then commit.
+    const count =
+      'WITH RECURSIVE n(i) AS (SELECT 1 UNION ALL SELECT i + 1 FROM n WHERE i < ?) SELECT i FROM n';
+    await all(db, 'BEGIN IMMEDIATE TRANSACTION;');
+    await all(db, count, [1]);
+    await all(db, 'ROLLBACK;');
+    await all(db, 'BEGIN IMMEDIATE TRANSACTION;');
+    const answered: string[] = [];
+    const sent = (label: string, p: Promise<unknown>) =>
+      p.then(
+        () => answered.push(label),
+        (err: Error) => answered.push(`${label}: ${err.message}`),
+      );
+    await Promise.all([
+      sent('read', all(db, count, [200_000])),
+      sent('insert', run(db, 'INSERT INTO items (name) VALUES (?)', ['rolled back'])),
+      sent('rollback', all(db, 'ROLLBACK;')),
+    ]);
+    expect(answered.at(-1)).toBe('rollback');
+    expect(answered.slice(0, 2).sort()).toEqual(['insert', 'read']);
+    expect(await all(db, 'SELECT name FROM items')).toEqual([]);
+    await close(db);
+  });
+
   it(`keeps at most ${MAX_KEPT_STATEMENTS}, letting the least recently used go`, async () => {
     const sqlFor = (n: number) => `SELECT ${n} AS n FROM items WHERE id > ?`;
     await all(db, sqlFor(0), [0]);

@@ -31,13 +31,21 @@ function exec(connection: RawConnection, sql: string): Promise<void> {
   );
 }
 
-export async function applyPragmas(connection: RawConnection): Promise<void> {
+/**
+ * `serialize`: one statement at a time on this connection. In node-sqlite3's default parallel
+ * mode every queued statement takes a libuv worker thread and waits there on the connection's
+ * mutex, so a busy shared connection can hold the workers other connections and file I/O need.
+ * The write connection is left parallel: the transaction queue lets one transaction at a time
+ * send to it, and the statements it sends together (independent reads or inserts) then run one
+ * after another on the worker threads, where a serialized connection would wait a turn of the
+ * busy event loop between each, holding the write lock.
+ */
+export async function applyPragmas(
+  connection: RawConnection,
+  { serialize = true }: { serialize?: boolean } = {},
+): Promise<void> {
   if (prepared.has(connection)) return;
-  // One statement at a time per connection. In node-sqlite3's default parallel mode every
-  // queued statement takes a libuv worker thread and waits there on the connection's mutex,
-  // so a busy shared connection can hold the workers other connections and file I/O need.
-  // (Writers waiting on each other are handled by the transaction queue, not by this.)
-  connection.serialize();
+  if (serialize) connection.serialize();
   for (const pragma of CONNECTION_PRAGMAS) await exec(connection, pragma);
   prepared.add(connection);
 }
@@ -108,7 +116,7 @@ export function preparePragmasOnConnect(sequelize: Sequelize, tableInfo: TableIn
       options.uuid !== 'default' &&
       !options.uuid.startsWith('read-');
     const connection = await original(forTransaction ? { ...options, uuid: WRITE } : options);
-    await applyPragmas(connection);
+    await applyPragmas(connection, { serialize: !forTransaction });
     tableInfo.wrap(connection);
     keepStatements(connection);
     return connection;

@@ -31,31 +31,32 @@ const wrapped = new WeakSet<object>();
  * SQL with values written into it (Sequelize's WHERE clauses) would be used once: it is not.
  * A statement read to its end has let its snapshot go (SQLite ends a finished statement's read),
  * so a kept one sees every later commit; one that failed is let go. `close` finalizes them all
- * first, as a connection with statements still open cannot close.
+ * first, as a connection with statements still open cannot close. Transaction control waits
+ * for the statements sent before it (ControlAfterStatements).
  */
 export function keepStatements(connection: StatementConnection): void {
   if (wrapped.has(connection)) return;
   wrapped.add(connection);
   const kept = new KeptStatements(connection);
+  const order = new ControlAfterStatements();
   for (const method of ['all', 'run'] as const) {
     const direct = connection[method].bind(connection);
     connection[method] = (sql: string, ...rest: unknown[]) => {
       const [params, callback] = rest as [Params, Callback];
-      const keep =
-        !kept.closed &&
-        rest.length === 2 &&
-        typeof callback === 'function' &&
-        keepable(sql, params);
-      if (!keep) return direct(sql, ...rest);
-      const { statement, ready } = kept.get(sql);
-      ready.then(
-        () =>
-          (statement[method] as (p: Params, cb: Callback) => void)(params, function (err, rows) {
-            if (err) kept.drop(sql, statement);
-            callback.call(this, err, rows);
-          }),
-        (err: Error) => callback.call(statement, err),
-      );
+      if (rest.length !== 2 || typeof callback !== 'function') return direct(sql, ...rest);
+      const send = (done: Callback) => {
+        if (kept.closed || !keepable(sql, params)) return direct(sql, params, done);
+        const { statement, ready } = kept.get(sql);
+        ready.then(
+          () =>
+            (statement[method] as (p: Params, cb: Callback) => void)(params, function (err, rows) {
+              if (err) kept.drop(sql, statement);
+              done.call(this, err, rows);
+            }),
+          (err: Error) => done.call(statement, err),
+        );
+      };
+      order.send(TRANSACTION_CONTROL.test(sql), send, callback);
       return connection;
     };
   }
@@ -64,6 +65,35 @@ export function keepStatements(connection: StatementConnection): void {
     void kept.finalizeAll().then(() => close(callback));
     return connection;
   };
+}
+
+/**
+ * Holds BEGIN, COMMIT and ROLLBACK until the statements already sent on the connection are
+ * answered. Kept statements, and any on a connection left in parallel mode, run on the worker
+ * threads in whatever order they get the connection: a ROLLBACK after one of two inserts sent
+ * together failed could otherwise run before the other, which would then commit on its own.
+ */
+class ControlAfterStatements {
+  private running = 0;
+  private readonly held: (() => void)[] = [];
+
+  send(control: boolean, send: (done: Callback) => void, callback: Callback): void {
+    const go = () => {
+      this.running++;
+      const finished = () => this.finished();
+      // `this` is node-sqlite3's statement: Sequelize reads lastID and changes from it.
+      send(function (err, rows) {
+        finished();
+        callback.call(this, err, rows);
+      });
+    };
+    if (control && this.running > 0) this.held.push(go);
+    else go();
+  }
+
+  private finished(): void {
+    if (--this.running === 0) for (const go of this.held.splice(0)) go();
+  }
 }
 
 interface Prepared {
