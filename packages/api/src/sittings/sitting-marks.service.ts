@@ -59,14 +59,14 @@ export class SittingMarksService implements OnModuleInit {
   async putMarks(member: MemberContext, id: number, dto: PutMarksDto) {
     // Marks sent again as they are saved (a retry after a lost answer, a second tap) change
     // nothing: answered from reads, without queueing for the write lock behind every family.
-    if (await this.savedAlready(member, id, dto)) {
-      return { ...(await this.sittings.findOne(member, id)), misses: emptyChanges() };
-    }
+    const { saved, answerKeyId } = await this.savedAlready(member, id, dto);
+    if (saved) return { ...(await this.sittings.findOne(member, id)), misses: emptyChanges() };
     const changes = await this.sequelize.transaction(async (transaction) => {
-      const sitting = await this.sittings.findModel(member, id, transaction);
-      // The three reads at once: each turn of the event loop is time the write queue waits.
-      const [items, marks, misses] = await Promise.all([
-        this.keys.itemsOf(sitting.answerKeyId, transaction),
+      // The four reads at once: each turn of the event loop is time the write queue waits.
+      // A sitting's answer key is fixed when it is made, so its items need not wait for it.
+      const [sitting, items, marks, misses] = await Promise.all([
+        this.sittings.findModel(member, id, transaction),
+        this.keys.itemsOf(answerKeyId, transaction),
         this.markModel.findAll({ where: { sittingId: id }, transaction }),
         this.misses.findForSitting(id, transaction),
       ]);
@@ -135,12 +135,18 @@ export class SittingMarksService implements OnModuleInit {
    * Whether the sitting's saved marks are exactly `dto`'s, so saving it would change nothing;
    * a save naming items wrongly is refused here as the write would refuse it. Read outside a
    * transaction: the marks are one query, so they are all from one moment, and this save is
-   * then the same as one made at that moment.
+   * then the same as one made at that moment. Answers the sitting's answer key too, for the
+   * write's reads.
    */
-  private async savedAlready(member: MemberContext, id: number, dto: PutMarksDto) {
+  private async savedAlready(
+    member: MemberContext,
+    id: number,
+    dto: PutMarksDto,
+  ): Promise<{ saved: boolean; answerKeyId: number }> {
     const sitting = await this.sittings.findModel(member, id);
+    const { answerKeyId } = sitting;
     const [items, saved] = await Promise.all([
-      this.keys.itemsOf(sitting.answerKeyId),
+      this.keys.itemsOf(answerKeyId),
       this.markModel.findAll({
         where: { sittingId: id },
         attributes: ['keyItemId', 'correct', 'answer'],
@@ -148,9 +154,9 @@ export class SittingMarksService implements OnModuleInit {
       }),
     ]);
     const byId = itemsMarked(dto, items);
-    if (saved.length !== dto.marks.length) return false;
+    if (saved.length !== dto.marks.length) return { saved: false, answerKeyId };
     const savedMarks = new Map(saved.map((m) => [m.keyItemId, m]));
-    return dto.marks.every((m) => {
+    const same = dto.marks.every((m) => {
       const before = savedMarks.get(m.keyItemId);
       return (
         before !== undefined &&
@@ -161,6 +167,7 @@ export class SittingMarksService implements OnModuleInit {
         (m.correct || m.keyAnswerRight !== true || !keyFlagged(byId.get(m.keyItemId)!))
       );
     });
+    return { saved: same, answerKeyId };
   }
 
   /** Re-marks every sitting marked against items whose key answer was corrected. */
