@@ -4,6 +4,7 @@ import { SequelizeModule } from '@nestjs/sequelize';
 import { Transaction } from 'sequelize';
 import type { AppConfig } from '../config/app.config.js';
 import { DatabaseService } from './database.service.js';
+import { InsertsService } from './inserts.service.js';
 import { MODELS } from './models.js';
 import { SqlReader } from './sql-reader.js';
 
@@ -40,7 +41,7 @@ import { SqlReader } from './sql-reader.js';
       },
     }),
   ],
-  providers: [DatabaseService, SqlReader],
-  exports: [DatabaseService, SqlReader],
+  providers: [DatabaseService, InsertsService, SqlReader],
+  exports: [DatabaseService, InsertsService, SqlReader],
 })
 export class DatabaseModule {}

@@ -6,7 +6,7 @@ import type { AppConfig } from '../config/app.config.js';
 import { migrateOnce } from './migrator.js';
 import { CONNECTION_PRAGMAS, preparePragmasOnConnect } from './sqlite-pragmas.js';
 import { TableInfoCache } from './sqlite-table-info-cache.js';
-import { queueTransactions } from './transaction-queue.js';
+import { queueTransactions, type WriteQueue } from './transaction-queue.js';
 
 /** Prepares connections and brings the schema up to date before anything serves. */
 @Injectable()
@@ -14,6 +14,8 @@ export class DatabaseService implements OnModuleInit {
   /** How long a good answer stands for the next health checks. */
   static readonly PING_FRESH_MS = 1_000;
   private lastPing: { at: number; done: Promise<void> } | undefined;
+  /** SQLite's one-at-a-time queue of this process's writes (none on PostgreSQL). */
+  writeQueue: WriteQueue | undefined;
   private readonly tableInfo = new TableInfoCache();
 
   constructor(
@@ -26,7 +28,7 @@ export class DatabaseService implements OnModuleInit {
       preparePragmasOnConnect(this.sequelize, this.tableInfo);
       // SQLite has one writer per file; PostgreSQL runs concurrent transactions itself.
       // The check for a transaction opened inside another is a developer's guard.
-      queueTransactions(this.sequelize, {
+      this.writeQueue = queueTransactions(this.sequelize, {
         guardNesting: this.config.getOrThrow<AppConfig>('app').env !== 'production',
       });
       // The default connection was opened by the module's authenticate() before the wrap.

@@ -18,14 +18,16 @@ export const CONNECTION_PRAGMAS = [
   'PRAGMA synchronous = FULL',
 ] as const;
 
-interface RawConnection extends StatementConnection {
+/** A node-sqlite3 connection as Sequelize's connection manager hands it out. */
+export interface RawConnection extends StatementConnection {
   exec(sql: string, callback: (err: Error | null) => void): void;
   serialize(): void;
 }
 
 const prepared = new WeakSet<object>();
 
-function exec(connection: RawConnection, sql: string): Promise<void> {
+/** Runs SQL (one statement or several) on a node-sqlite3 connection. */
+export function exec(connection: RawConnection, sql: string): Promise<void> {
   return new Promise((resolve, reject) =>
     connection.exec(sql, (err) => (err ? reject(err) : resolve())),
   );
@@ -135,3 +137,11 @@ export function preparePragmasOnConnect(sequelize: Sequelize, tableInfo: TableIn
 
 /** The key of the connection transactions share. */
 const WRITE = 'write';
+
+/** The connection transactions share, for writes that send their own BEGIN and COMMIT. */
+export function writeConnection(sequelize: Sequelize): Promise<RawConnection> {
+  const manager = sequelize.connectionManager as unknown as {
+    getConnection(options: ConnectionOptions): Promise<RawConnection>;
+  };
+  return manager.getConnection({ uuid: WRITE });
+}

@@ -9,6 +9,7 @@ import {
 } from '@workback/core';
 import type { Transaction } from 'sequelize';
 import { fieldsError } from '../common/pipes/validation.pipe.js';
+import type { NewRows } from '../database/inserts.service.js';
 import { placeholders, SqlReader } from '../database/sql-reader.js';
 import { DiagnoseService, type Checked } from '../diagnose/diagnose.service.js';
 import { MAX_LINE_LENGTH } from './dto/create-miss.dto.js';
@@ -75,23 +76,32 @@ export class MissDiagnosesService {
       await this.diagnosisModel.destroy({ where: { missId: miss.id }, transaction });
       await this.ruleModel.destroy({ where: { missId: miss.id }, transaction });
     }
+    const [diagnosis, rules] = this.newRows(miss.id, miss.householdId, checked, word);
+    // Both sent at once: neither waits on the other's answer.
+    await Promise.all([
+      diagnosis.values.length > 0
+        ? this.diagnosisModel.create(diagnosis.values[0]!, { transaction })
+        : null,
+      rules.values.length > 0 ? this.ruleModel.bulkCreate(rules.values, { transaction }) : null,
+    ]);
+  }
+
+  /** The diagnosis row (when the engine read the problem) and the rule rows of a miss. */
+  newRows(
+    missId: number,
+    householdId: number,
+    checked: Checked,
+    word: WordProblem | null = null,
+  ): [NewRows<MissDiagnosis>, NewRows<MissRule>] {
     const counted = checked.checked ? checked.diagnosis : firstWrongLine(word?.linesCheck ?? null);
     const ids = counted ? ruleIdsOf(counted) : [];
-    // Both sent at once (see MissesService.create): neither waits on the other's answer.
-    await Promise.all([
-      checked.checked
-        ? this.diagnosisModel.create(
-            { missId: miss.id, diagnosis: checked.diagnosis },
-            { transaction },
-          )
-        : null,
-      ids.length > 0
-        ? this.ruleModel.bulkCreate(
-            ids.map((ruleId) => ({ missId: miss.id, ruleId, householdId: miss.householdId })),
-            { transaction },
-          )
-        : null,
-    ]);
+    return [
+      {
+        model: this.diagnosisModel,
+        values: checked.checked ? [{ missId, diagnosis: checked.diagnosis }] : [],
+      },
+      { model: this.ruleModel, values: ids.map((ruleId) => ({ missId, ruleId, householdId })) },
+    ];
   }
 
   /** The engine's findings as it checks a marked item: no written steps, never refused. */

@@ -5,6 +5,7 @@ import { Op, UniqueConstraintError, type Transaction } from 'sequelize';
 import type { Sequelize } from 'sequelize-typescript';
 import type { MemberContext } from '../common/member-context.js';
 import { fieldsError } from '../common/pipes/validation.pipe.js';
+import { InsertsService } from '../database/inserts.service.js';
 import { selectList, SqlReader } from '../database/sql-reader.js';
 import { MAX_PHOTOS_PER_MISS } from '../photos/photo-limits.js';
 import { PhotosService, type UploadedPhoto } from '../photos/photos.service.js';
@@ -48,6 +49,7 @@ export class MissesService {
     private readonly photos: PhotosService,
     private readonly diagnoses: MissDiagnosesService,
     private readonly reader: SqlReader,
+    private readonly inserts: InsertsService,
   ) {}
 
   /**
@@ -71,41 +73,40 @@ export class MissesService {
     const processed = await this.photos.process(files, member);
     const staged = await this.photos.stage(processed);
     try {
-      const id = await this.sequelize.transaction(async (transaction) => {
-        const miss = await this.missModel.create(
-          {
-            householdId: member.householdId,
-            studentId: dto.studentId,
-            occurredOn: dto.occurredOn,
-            sittingId: links.sittingId ?? null,
-            keyItemId: links.keyItemId ?? null,
-            problem: dto.problem,
-            answer: dto.answer,
-            steps: dto.steps ?? null,
-            explanation: dto.explanation ?? '',
-            cause: dto.cause ?? Cause.unsure,
-            note: dto.note ?? '',
-            status: dto.status ?? MissStatus.logged,
-            skills: dedupe(dto.skills ?? []),
-            revisit: dedupe(dto.revisit ?? []),
-            ...diagnosisColumns(checked),
-            ...wordProblemColumns(checked, word),
-            kind: missKindOf(dto.problem, word),
-            idempotencyKey: once?.key ?? null,
-            requestDigest: once?.digest ?? null,
-            createdBy: member.userId,
-            updatedBy: member.userId,
-          },
-          { transaction },
-        );
-        // Sent together: the connection runs them in order without a turn of the event loop
-        // between them, and every turn is time the write queue waits.
-        await Promise.all([
-          this.diagnoses.writeRules(miss, checked, transaction, word, { newMiss: true }),
-          this.photos.createRows(miss.id, staged, member.userId, transaction, { newMiss: true }),
-        ]);
-        return miss.id;
-      });
+      // The miss with its diagnosis, rule and photo rows, written together (InsertsService).
+      const id = await this.inserts.withNewId(Miss, (id) => [
+        {
+          model: Miss,
+          values: [
+            {
+              id,
+              householdId: member.householdId,
+              studentId: dto.studentId,
+              occurredOn: dto.occurredOn,
+              sittingId: links.sittingId ?? null,
+              keyItemId: links.keyItemId ?? null,
+              problem: dto.problem,
+              answer: dto.answer,
+              steps: dto.steps ?? null,
+              explanation: dto.explanation ?? '',
+              cause: dto.cause ?? Cause.unsure,
+              note: dto.note ?? '',
+              status: dto.status ?? MissStatus.logged,
+              skills: dedupe(dto.skills ?? []),
+              revisit: dedupe(dto.revisit ?? []),
+              ...diagnosisColumns(checked),
+              ...wordProblemColumns(checked, word),
+              kind: missKindOf(dto.problem, word),
+              idempotencyKey: once?.key ?? null,
+              requestDigest: once?.digest ?? null,
+              createdBy: member.userId,
+              updatedBy: member.userId,
+            },
+          ],
+        },
+        ...this.diagnoses.newRows(id, member.householdId, checked, word),
+        this.photos.newRows(id, staged, member.userId),
+      ]);
       return this.findOne(member, id);
     } catch (err) {
       await this.photos.discard(staged);

@@ -14,6 +14,7 @@ import type { Sequelize } from 'sequelize-typescript';
 import sharp from 'sharp';
 import type { MemberContext } from '../common/member-context.js';
 import type { AppConfig } from '../config/app.config.js';
+import type { NewRows } from '../database/inserts.service.js';
 import { driverDate, placeholders, selectList, SqlReader } from '../database/sql-reader.js';
 import { PHOTO_STORAGE, smallKeyOf, type PhotoStorage } from '../storage/photo-storage.js';
 import { DecodeSlots } from './decode-slots.js';
@@ -185,10 +186,21 @@ export class PhotosService {
           where: { missId },
           transaction,
         })) as number | null);
-    const first = (last ?? 0) + 1;
     // One INSERT for all of them: a transaction holds the write lock for each round trip.
-    await this.photoModel.bulkCreate(
-      staged.map((s, i) => ({
+    const { values } = this.newRows(missId, staged, userId, (last ?? 0) + 1);
+    await this.photoModel.bulkCreate(values, { transaction });
+  }
+
+  /** The rows of staged photos, numbered from `first`. */
+  newRows(
+    missId: number,
+    staged: readonly StagedPhoto[],
+    userId: number | null,
+    first = 1,
+  ): NewRows<Photo> {
+    return {
+      model: this.photoModel,
+      values: staged.map((s, i) => ({
         missId,
         position: first + i,
         contentType: s.processed.contentType,
@@ -202,8 +214,7 @@ export class PhotosService {
         thumbBytes: s.processed.thumb.data.length,
         createdBy: userId,
       })),
-      { transaction },
-    );
+    };
   }
 
   async countFor(missId: number, transaction?: Transaction): Promise<number> {

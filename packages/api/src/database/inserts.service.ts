@@ -1,0 +1,215 @@
+import { Injectable } from '@nestjs/common';
+import { InjectConnection } from '@nestjs/sequelize';
+import type {
+  CreationAttributes,
+  Model,
+  ModelAttributeColumnOptions,
+  ModelStatic,
+} from 'sequelize';
+import type { Sequelize } from 'sequelize-typescript';
+import { DatabaseService } from './database.service.js';
+import { WRITE_HOOKS } from './model-writes.js';
+import { exec, writeConnection, type RawConnection } from './sqlite-pragmas.js';
+
+/** Rows of one model to insert, as `create` (one) or `bulkCreate` (several) would take them. */
+export interface NewRows<M extends Model = Model> {
+  model: ModelStatic<M>;
+  values: readonly CreationAttributes<M>[];
+}
+
+/** A model's rows, built and checked as Sequelize's create would. */
+interface BuiltRows {
+  model: ModelStatic<Model>;
+  rows: Model[];
+}
+
+type Hooked = ModelStatic<Model> & {
+  runHooks(name: string, ...args: unknown[]): Promise<void>;
+};
+
+interface QueryGenerator {
+  bulkInsertQuery(
+    table: unknown,
+    fieldValues: Record<string, unknown>[],
+    options: object,
+    attributesByField: Record<string, ModelAttributeColumnOptions>,
+  ): string;
+  quoteTable(table: unknown): string;
+}
+
+/** What `sequelize.dialect.Query` gives: Sequelize's own reading of a driver's error. */
+type DialectQuery = new (
+  connection: unknown,
+  sequelize: Sequelize,
+  options: object,
+) => { formatError(err: Error): Error };
+
+/**
+ * A new row and the rows that hang off it (a miss with its rules, diagnosis and photos), in
+ * one transaction.
+ *
+ * On SQLite the whole transaction goes to the write connection as one `exec`: BEGIN, the
+ * INSERTs, COMMIT, run back to back on a worker thread. Sent through the models, each
+ * statement waited for a turn of the event loop before the next was sent, all while holding
+ * the write lock every family's writes queue for; under load those turns were most of a write's
+ * time. The new row's id is therefore chosen here, one past the highest the table has used
+ * (read once, then counted on, and read again after a row is made another way or an id turns
+ * out taken). On PostgreSQL, where transactions run side by side, the id comes from the
+ * table's sequence and the rows go through the models in an ordinary transaction.
+ *
+ * Either way the rows are built and validated by their models, stored exactly as `create`
+ * stores them, and the models' write hooks run once they are committed, so the caches that
+ * listen to them (pages, counts, members) hear of the rows as of any other write.
+ */
+@Injectable()
+export class InsertsService {
+  /** The last id taken per table, while no row has been made there another way. */
+  private readonly lastIds = new Map<string, number>();
+  private readonly watched = new Set<ModelStatic<Model>>();
+
+  constructor(
+    @InjectConnection() private readonly sequelize: Sequelize,
+    private readonly database: DatabaseService,
+  ) {}
+
+  /**
+   * Inserts a new row of `model` and its dependents: `rowsFor(id)` gives every row, the new
+   * one first (with that id). Answers the id. A write refused by the database (a unique key
+   * or a foreign key) fails as Sequelize's own error for it, with nothing written.
+   */
+  async withNewId<M extends Model>(
+    model: ModelStatic<M>,
+    rowsFor: (id: number) => readonly NewRows[],
+  ): Promise<number> {
+    if (this.sequelize.getDialect() !== 'sqlite') return this.inTransaction(model, rowsFor);
+    this.watch(model);
+    return this.database.writeQueue!.alone(async () => {
+      const connection = await writeConnection(this.sequelize);
+      // An id taken meanwhile by another process is refused by the primary key: once more,
+      // from the table's own highest.
+      for (let attempt = 1; ; attempt++) {
+        const id =
+          (this.lastIds.get(model.tableName) ?? (await this.highestId(connection, model))) + 1;
+        const groups = rowsFor(id).filter((group) => group.values.length > 0);
+        const built = await Promise.all(groups.map((group) => build(group)));
+        const sql = built.map((group) => this.insertSql(group)).join('\n');
+        try {
+          await exec(connection, `BEGIN IMMEDIATE TRANSACTION;\n${sql}\nCOMMIT;`);
+        } catch (err) {
+          // A failed statement leaves the transaction open; when BEGIN itself failed there is
+          // none, and ROLLBACK's own complaint says nothing new.
+          await exec(connection, 'ROLLBACK;').catch(() => undefined);
+          this.lastIds.delete(model.tableName);
+          if (attempt === 1 && idTaken(err, model.tableName)) continue;
+          throw this.formatError(connection, err as Error);
+        }
+        for (const group of built) await afterInsert(group, {});
+        this.lastIds.set(model.tableName, id);
+        return id;
+      }
+    });
+  }
+
+  private async inTransaction<M extends Model>(
+    model: ModelStatic<M>,
+    rowsFor: (id: number) => readonly NewRows[],
+  ): Promise<number> {
+    const sequence = `pg_get_serial_sequence('${model.tableName}', 'id')`;
+    const [row] = (await this.sequelize.query(`SELECT nextval(${sequence}) AS "id"`, {
+      plain: false,
+      raw: true,
+      type: 'SELECT',
+    })) as { id: string | number }[];
+    const id = Number(row!.id);
+    await this.sequelize.transaction(async (transaction) => {
+      for (const { model: m, values } of rowsFor(id)) {
+        if (values.length === 1) await m.create(values[0]!, { transaction });
+        else if (values.length > 1) await m.bulkCreate(values, { transaction });
+      }
+    });
+    return id;
+  }
+
+  /** Rows made through the model (not here) may have taken the next id: read it again then. */
+  private watch(model: ModelStatic<Model>): void {
+    if (this.watched.has(model)) return;
+    this.watched.add(model);
+    const forget = () => void this.lastIds.delete(model.tableName);
+    for (const hook of WRITE_HOOKS) model.addHook(hook, 'inserts-service-ids', forget);
+  }
+
+  private async highestId(connection: RawConnection, model: ModelStatic<Model>): Promise<number> {
+    const table = this.generator().quoteTable(model.tableName);
+    const [row] = await all<{ id: number | null }>(
+      connection,
+      `SELECT MAX(COALESCE((SELECT "seq" FROM "sqlite_sequence" WHERE "name" = ?), 0),
+              COALESCE((SELECT MAX("id") FROM ${table}), 0)) AS "id"`,
+      [model.tableName],
+    );
+    return row?.id ?? 0;
+  }
+
+  private insertSql({ model, rows }: BuiltRows): string {
+    const attributes = model.getAttributes() as Record<string, ModelAttributeColumnOptions>;
+    const byField: Record<string, ModelAttributeColumnOptions> = {};
+    for (const [name, attribute] of Object.entries(attributes)) {
+      byField[attribute.field ?? name] = attribute;
+    }
+    const fieldValues = rows.map((row) => {
+      const values: Record<string, unknown> = {};
+      for (const [name, attribute] of Object.entries(attributes)) {
+        const value: unknown = row.getDataValue(name as never);
+        if (value !== undefined) values[attribute.field ?? name] = value;
+      }
+      return values;
+    });
+    return this.generator().bulkInsertQuery(model.getTableName(), fieldValues, {}, byField);
+  }
+
+  private generator(): QueryGenerator {
+    return (this.sequelize.getQueryInterface() as unknown as { queryGenerator: QueryGenerator })
+      .queryGenerator;
+  }
+
+  private formatError(connection: RawConnection, err: Error): Error {
+    const Query = (this.sequelize as unknown as { dialect: { Query: DialectQuery } }).dialect.Query;
+    return new Query(connection, this.sequelize, {}).formatError(err);
+  }
+}
+
+/** Builds and validates rows as `create` does, with its timestamps. */
+async function build({ model, values }: NewRows): Promise<BuiltRows> {
+  const now = new Date();
+  const attributes = model.getAttributes();
+  const rows = values.map((v) => {
+    const row = model.build(v as never);
+    for (const stamp of ['createdAt', 'updatedAt']) {
+      if (stamp in attributes && row.getDataValue(stamp as never) === undefined) {
+        row.setDataValue(stamp as never, now as never);
+      }
+    }
+    return row;
+  });
+  await Promise.all(rows.map((row) => row.validate()));
+  return { model, rows };
+}
+
+/** The hooks `create` (one row) or `bulkCreate` (several) runs after writing. */
+function afterInsert({ model, rows }: BuiltRows, options: object): Promise<void> {
+  const hooked = model as Hooked;
+  if (rows.length === 1) return hooked.runHooks('afterCreate', rows[0], options);
+  return rows.length > 1 ? hooked.runHooks('afterBulkCreate', rows, options) : Promise.resolve();
+}
+
+/** SQLite's refusal of an id already in `table`. */
+function idTaken(err: unknown, table: string): boolean {
+  return err instanceof Error && err.message.includes(`UNIQUE constraint failed: ${table}.id`);
+}
+
+function all<T>(connection: RawConnection, sql: string, params: unknown[]): Promise<T[]> {
+  return new Promise((resolve, reject) =>
+    connection.all(sql, params, (err: Error | null, rows?: unknown) =>
+      err ? reject(err) : resolve(rows as T[]),
+    ),
+  );
+}
