@@ -1,10 +1,11 @@
 import { Injectable } from '@nestjs/common';
 import { InjectConnection } from '@nestjs/sequelize';
-import type {
-  CreationAttributes,
-  Model,
-  ModelAttributeColumnOptions,
-  ModelStatic,
+import {
+  QueryTypes,
+  type CreationAttributes,
+  type Model,
+  type ModelAttributeColumnOptions,
+  type ModelStatic,
 } from 'sequelize';
 import type { Sequelize } from 'sequelize-typescript';
 import { DatabaseService } from './database.service.js';
@@ -114,12 +115,11 @@ export class InsertsService {
     model: ModelStatic<M>,
     rowsFor: (id: number) => readonly NewRows[],
   ): Promise<number> {
-    const sequence = `pg_get_serial_sequence('${model.tableName}', 'id')`;
-    const [row] = (await this.sequelize.query(`SELECT nextval(${sequence}) AS "id"`, {
-      plain: false,
-      raw: true,
-      type: 'SELECT',
-    })) as { id: string | number }[];
+    // nextval is a bigint, which pg hands back as text.
+    const [row] = await this.sequelize.query<{ id: string }>(
+      'SELECT nextval(pg_get_serial_sequence(?, ?)) AS "id"',
+      { replacements: [model.tableName, 'id'], type: QueryTypes.SELECT },
+    );
     const id = Number(row!.id);
     await this.sequelize.transaction(async (transaction) => {
       for (const { model: m, values } of rowsFor(id)) {

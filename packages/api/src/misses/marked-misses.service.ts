@@ -70,7 +70,7 @@ export class MarkedMissesService {
       },
       { transaction },
     );
-    await this.diagnoses.writeRules(miss, checked, transaction);
+    await this.diagnoses.writeRules(miss, checked, transaction, null, { newMiss: true });
     return miss.id;
   }
 

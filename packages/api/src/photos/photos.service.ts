@@ -168,24 +168,18 @@ export class PhotosService {
     await this.removeKeys(staged.flatMap(keysOf));
   }
 
-  /**
-   * The rows of staged photos, after the miss's last photo. `newMiss`: the miss was made in
-   * this transaction, so it has none yet and nothing is read first.
-   */
+  /** The rows of staged photos, after the miss's last photo. */
   async createRows(
     missId: number,
     staged: readonly StagedPhoto[],
     userId: number | null,
     transaction: Transaction,
-    { newMiss = false }: { newMiss?: boolean } = {},
   ): Promise<void> {
     if (staged.length === 0) return;
-    const last = newMiss
-      ? 0
-      : ((await this.photoModel.max<number | null, Photo>('position', {
-          where: { missId },
-          transaction,
-        })) as number | null);
+    const last = (await this.photoModel.max<number | null, Photo>('position', {
+      where: { missId },
+      transaction,
+    })) as number | null;
     // One INSERT for all of them: a transaction holds the write lock for each round trip.
     const { values } = this.newRows(missId, staged, userId, (last ?? 0) + 1);
     await this.photoModel.bulkCreate(values, { transaction });
