@@ -81,11 +81,17 @@ class ControlAfterStatements {
     const go = () => {
       this.running++;
       const finished = () => this.finished();
-      // `this` is node-sqlite3's statement: Sequelize reads lastID and changes from it.
-      send(function (err, rows) {
+      try {
+        // `this` is node-sqlite3's statement: Sequelize reads lastID and changes from it.
+        send(function (err, rows) {
+          finished();
+          callback.call(this, err, rows);
+        });
+      } catch (err) {
+        // Refused before it was sent (a closed connection): nothing of it is running.
         finished();
-        callback.call(this, err, rows);
-      });
+        throw err;
+      }
     };
     if (control && this.running > 0) this.held.push(go);
     else go();
