@@ -1,4 +1,4 @@
-import { Injectable } from '@nestjs/common';
+import { Injectable, type OnModuleDestroy } from '@nestjs/common';
 import { InjectConnection } from '@nestjs/sequelize';
 import {
   QueryTypes,
@@ -6,10 +6,12 @@ import {
   type Model,
   type ModelAttributeColumnOptions,
   type ModelStatic,
+  type Transaction,
 } from 'sequelize';
 import type { Sequelize } from 'sequelize-typescript';
 import { DatabaseService } from './database.service.js';
-import { WRITE_HOOKS } from './model-writes.js';
+import { watchWrites } from './model-writes.js';
+import { SqlReader } from './sql-reader.js';
 import { exec, writeConnection, type RawConnection } from './sqlite-pragmas.js';
 
 /** Rows of one model to insert, as `create` (one) or `bulkCreate` (several) would take them. */
@@ -35,7 +37,6 @@ interface QueryGenerator {
     options: object,
     attributesByField: Record<string, ModelAttributeColumnOptions>,
   ): string;
-  quoteTable(table: unknown): string;
 }
 
 /** What `sequelize.dialect.Query` gives: Sequelize's own reading of a driver's error. */
@@ -63,15 +64,21 @@ type DialectQuery = new (
  * listen to them (pages, counts, members) hear of the rows as of any other write.
  */
 @Injectable()
-export class InsertsService {
+export class InsertsService implements OnModuleDestroy {
   /** The last id taken per table, while no row has been made there another way. */
   private readonly lastIds = new Map<string, number>();
-  private readonly watched = new Set<ModelStatic<Model>>();
+  /** The unsubscribes of the models whose ids are counted on here. */
+  private readonly watched = new Map<ModelStatic<Model>, () => void>();
 
   constructor(
     @InjectConnection() private readonly sequelize: Sequelize,
     private readonly database: DatabaseService,
+    private readonly reader: SqlReader,
   ) {}
+
+  onModuleDestroy(): void {
+    for (const unwatch of this.watched.values()) unwatch();
+  }
 
   /**
    * Inserts a new row of `model` and its dependents: `rowsFor(id)` gives every row, the new
@@ -89,8 +96,7 @@ export class InsertsService {
       // An id taken meanwhile by another process is refused by the primary key: once more,
       // from the table's own highest.
       for (let attempt = 1; ; attempt++) {
-        const id =
-          (this.lastIds.get(model.tableName) ?? (await this.highestId(connection, model))) + 1;
+        const id = (this.lastIds.get(model.tableName) ?? (await this.highestId(model))) + 1;
         const groups = rowsFor(id).filter((group) => group.values.length > 0);
         const built = await Promise.all(groups.map((group) => build(group)));
         const sql = built.map((group) => this.insertSql(group)).join('\n');
@@ -104,7 +110,7 @@ export class InsertsService {
           if (attempt === 1 && idTaken(err, model.tableName)) continue;
           throw this.formatError(connection, err as Error);
         }
-        for (const group of built) await afterInsert(group, {});
+        for (const group of built) await afterInsert(group);
         this.lastIds.set(model.tableName, id);
         return id;
       }
@@ -122,10 +128,8 @@ export class InsertsService {
     );
     const id = Number(row!.id);
     await this.sequelize.transaction(async (transaction) => {
-      for (const { model: m, values } of rowsFor(id)) {
-        if (values.length === 1) await m.create(values[0]!, { transaction });
-        else if (values.length > 1) await m.bulkCreate(values, { transaction });
-      }
+      // One after another: the dependents name the new row.
+      for (const group of rowsFor(id)) await insertThroughModel(group, transaction);
     });
     return id;
   }
@@ -133,17 +137,17 @@ export class InsertsService {
   /** Rows made through the model (not here) may have taken the next id: read it again then. */
   private watch(model: ModelStatic<Model>): void {
     if (this.watched.has(model)) return;
-    this.watched.add(model);
-    const forget = () => void this.lastIds.delete(model.tableName);
-    for (const hook of WRITE_HOOKS) model.addHook(hook, 'inserts-service-ids', forget);
+    this.watched.set(
+      model,
+      watchWrites([model], () => this.lastIds.delete(model.tableName)),
+    );
   }
 
-  private async highestId(connection: RawConnection, model: ModelStatic<Model>): Promise<number> {
-    const table = this.generator().quoteTable(model.tableName);
-    const [row] = await all<{ id: number | null }>(
-      connection,
+  /** Read while this process's writes wait in the queue, so none of them can move it. */
+  private async highestId(model: ModelStatic<Model>): Promise<number> {
+    const [row] = await this.reader.rows<{ id: number | null }>(
       `SELECT MAX(COALESCE((SELECT "seq" FROM "sqlite_sequence" WHERE "name" = ?), 0),
-              COALESCE((SELECT MAX("id") FROM ${table}), 0)) AS "id"`,
+              COALESCE((SELECT MAX("id") FROM "${model.tableName}"), 0)) AS "id"`,
       [model.tableName],
     );
     return row?.id ?? 0;
@@ -195,21 +199,22 @@ async function build({ model, values }: NewRows): Promise<BuiltRows> {
 }
 
 /** The hooks `create` (one row) or `bulkCreate` (several) runs after writing. */
-function afterInsert({ model, rows }: BuiltRows, options: object): Promise<void> {
+function afterInsert({ model, rows }: BuiltRows): Promise<void> {
   const hooked = model as Hooked;
-  if (rows.length === 1) return hooked.runHooks('afterCreate', rows[0], options);
-  return rows.length > 1 ? hooked.runHooks('afterBulkCreate', rows, options) : Promise.resolve();
+  if (rows.length === 1) return hooked.runHooks('afterCreate', rows[0], {});
+  return rows.length > 1 ? hooked.runHooks('afterBulkCreate', rows, {}) : Promise.resolve();
+}
+
+/** Rows through their model, in `transaction`: `create` for one, `bulkCreate` for several. */
+export async function insertThroughModel(
+  { model, values }: NewRows,
+  transaction: Transaction,
+): Promise<void> {
+  if (values.length === 1) await model.create(values[0]!, { transaction });
+  else if (values.length > 1) await model.bulkCreate(values, { transaction });
 }
 
 /** SQLite's refusal of an id already in `table`. */
 function idTaken(err: unknown, table: string): boolean {
   return err instanceof Error && err.message.includes(`UNIQUE constraint failed: ${table}.id`);
-}
-
-function all<T>(connection: RawConnection, sql: string, params: unknown[]): Promise<T[]> {
-  return new Promise((resolve, reject) =>
-    connection.all(sql, params, (err: Error | null, rows?: unknown) =>
-      err ? reject(err) : resolve(rows as T[]),
-    ),
-  );
 }

@@ -9,7 +9,7 @@ import {
 } from '@workback/core';
 import type { Transaction } from 'sequelize';
 import { fieldsError } from '../common/pipes/validation.pipe.js';
-import type { NewRows } from '../database/inserts.service.js';
+import { insertThroughModel, type NewRows } from '../database/inserts.service.js';
 import { placeholders, SqlReader } from '../database/sql-reader.js';
 import { DiagnoseService, type Checked } from '../diagnose/diagnose.service.js';
 import { MAX_LINE_LENGTH } from './dto/create-miss.dto.js';
@@ -79,10 +79,8 @@ export class MissDiagnosesService {
     const [diagnosis, rules] = this.newRows(miss.id, miss.householdId, checked, word);
     // Both sent at once: neither waits on the other's answer.
     await Promise.all([
-      diagnosis.values.length > 0
-        ? this.diagnosisModel.create(diagnosis.values[0]!, { transaction })
-        : null,
-      rules.values.length > 0 ? this.ruleModel.bulkCreate(rules.values, { transaction }) : null,
+      insertThroughModel(diagnosis, transaction),
+      insertThroughModel(rules, transaction),
     ]);
   }
 
