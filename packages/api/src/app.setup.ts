@@ -6,10 +6,10 @@ import compression from 'compression';
 import express, { type NextFunction, type Request, type Response } from 'express';
 import session from 'express-session';
 import expressStaticGzip from 'express-static-gzip';
-import helmet from 'helmet';
 import passport from 'passport';
 import { createLogger, PinoNestLogger, requestLog } from './common/logging/request-log.js';
 import { JSON_BODY_LIMIT_BYTES, requestBodyLimits } from './common/middleware/request-body.js';
+import { securityHeaders, strictCsp } from './common/middleware/security-headers.js';
 import { createValidationPipe } from './common/pipes/validation.pipe.js';
 import type { AppConfig } from './config/app.config.js';
 import { API_VERSION } from './health/health.controller.js';
@@ -18,18 +18,8 @@ import { MetricsService } from './metrics/metrics.service.js';
 import { SessionStoreService } from './sessions/session-store.service.js';
 import { HttpExceptionFilter } from './common/filters/http-exception.filter.js';
 
-const strictCsp = {
-  defaultSrc: ["'self'"],
-  scriptSrc: ["'self'"],
-  styleSrc: ["'self'"],
-  imgSrc: ["'self'", 'data:', 'blob:'],
-  fontSrc: ["'self'"],
-  connectSrc: ["'self'"],
-  objectSrc: ["'none'"],
-  baseUri: ["'none'"],
-  formAction: ["'self'"],
-  frameAncestors: ["'none'"],
-};
+/** `/api`, and anything under it, as `app.use('/api', …)` matches it. */
+const API_PATH = /^\/api(?:[/?]|$)/;
 
 /** Everything the HTTP app needs around its modules: security headers, sessions, docs, the web app. */
 export function configureApp(app: NestExpressApplication, config: AppConfig): void {
@@ -39,7 +29,12 @@ export function configureApp(app: NestExpressApplication, config: AppConfig): vo
     config.env === 'development' && process.stdout.isTTY === true,
   );
   app.useLogger(new PinoNestLogger(logger));
-  app.use(requestLog(logger));
+  const metrics = app.get(MetricsService);
+  app.use(
+    requestLog(logger, (req, status) => {
+      if (API_PATH.test(req.originalUrl)) metrics.countResponse(status);
+    }),
+  );
   app.setGlobalPrefix('api');
   if (config.trustProxy) app.set('trust proxy', 1);
   app.disable('x-powered-by');
@@ -61,10 +56,8 @@ export function configureApp(app: NestExpressApplication, config: AppConfig): vo
     // req.secure reads X-Forwarded-Proto only with TRUST_PROXY.
     return (req.secure || httpsSite ? page.https : page.http)(req, res, next);
   });
-  const metrics = app.get(MetricsService);
   app.use('/api', (_req: Request, res: Response, next: NextFunction) => {
     res.setHeader('Cache-Control', 'no-store');
-    res.once('finish', () => metrics.countResponse(res.statusCode));
     next();
   });
 
@@ -119,28 +112,6 @@ export function configureApp(app: NestExpressApplication, config: AppConfig): vo
 
   mountDevOutboxPage(app);
   serveWebApp(app, config.webDist);
-}
-
-/**
- * Helmet's headers in two sets. Over plain http (a phone on the home Wi-Fi opening
- * http://workback.home:3000) the https-only ones would break the page: upgrade-insecure-requests
- * rewrites every script and style to https, and browsers ignore HSTS and the opener policy there.
- */
-function securityHeaders(config: AppConfig, directives: typeof strictCsp) {
-  const xFrameOptions = { action: 'deny' as const };
-  return {
-    https: helmet({
-      xFrameOptions,
-      strictTransportSecurity: config.env === 'production' ? undefined : false,
-      contentSecurityPolicy: { directives: { ...directives, upgradeInsecureRequests: [] } },
-    }),
-    http: helmet({
-      xFrameOptions,
-      strictTransportSecurity: false,
-      crossOriginOpenerPolicy: false,
-      contentSecurityPolicy: { directives: { ...directives, upgradeInsecureRequests: null } },
-    }),
-  };
 }
 
 /** Public routes that never read or write the session, and everything outside /api. */

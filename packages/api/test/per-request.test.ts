@@ -173,6 +173,21 @@ describe('per-request work of the real app', () => {
     expect(changed.body.total).toBe(first.body.total + 1);
   });
 
+  it('counts each finished API answer once, by its status class, for the site admin', async () => {
+    const admin = await signedIn(t, DEMO.admin);
+    const counts = async () =>
+      (await admin.get('/api/admin/metrics').expect(200)).body.requests as Record<string, number>;
+    const before = await counts();
+    await t.http().get('/api/no-such-route').expect(404);
+    await t.http().get('/api/health').expect(200);
+    await t.http().get('/api/health').expect(200);
+    const after = await counts();
+    expect(after['4xx']).toBe(before['4xx']! + 1);
+    // The two health checks, and the first metrics answer itself once it had been sent.
+    expect(after['2xx']).toBe(before['2xx']! + 3);
+    expect(after.total).toBe(before.total! + 4);
+  });
+
   it('reads no session for /api/health, even with a session cookie', async () => {
     const res = await t.http().get('/api/health').set('cookie', owner.cookie).expect(200);
     // A session route renews the rolling cookie on every answer; health does not touch it.

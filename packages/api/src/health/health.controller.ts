@@ -1,8 +1,9 @@
-import { Controller, Get, UseInterceptors } from '@nestjs/common';
+import { Controller, Get, Res } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
 import { ApiTags } from '@nestjs/swagger';
+import type { Response } from 'express';
 import { Public } from '../common/decorators/public.decorator.js';
-import { JsonOnceInterceptor } from '../common/interceptors/json-once.interceptor.js';
+import { jsonOnce } from '../common/responses/json-once.js';
 import type { AppConfig } from '../config/app.config.js';
 import { DatabaseService } from '../database/database.service.js';
 
@@ -11,7 +12,7 @@ export const API_VERSION = '0.1.0';
 @ApiTags('health')
 @Controller('health')
 export class HealthController {
-  /** Always the same answer, so its JSON and ETag are made once (JsonOnceInterceptor). */
+  /** Always the same answer, so its JSON and ETag are made once (jsonOnce). */
   private readonly ok: Readonly<{ status: 'ok'; demo: boolean; version: string }>;
 
   constructor(
@@ -27,9 +28,8 @@ export class HealthController {
 
   @Public()
   @Get()
-  @UseInterceptors(JsonOnceInterceptor)
-  async check() {
+  async check(@Res({ passthrough: true }) res: Response) {
     await this.database.ping();
-    return this.ok;
+    return jsonOnce(res, this.ok);
   }
 }

@@ -10,15 +10,14 @@ import {
   Query,
   Res,
   UploadedFiles,
-  UseInterceptors,
 } from '@nestjs/common';
 import { ApiHeader, ApiTags } from '@nestjs/swagger';
 import { Role } from '@workback/core';
 import type { Response } from 'express';
 import { CurrentMember } from '../common/decorators/current-member.decorator.js';
 import { IdParam } from '../common/decorators/id-param.decorator.js';
-import { JsonOnceInterceptor } from '../common/interceptors/json-once.interceptor.js';
 import { Roles } from '../common/decorators/roles.decorator.js';
+import { jsonOnce } from '../common/responses/json-once.js';
 import type { MemberContext } from '../common/member-context.js';
 import { fieldsError } from '../common/pipes/validation.pipe.js';
 import { PhotoUpload } from '../photos/photo-upload.js';
@@ -42,10 +41,13 @@ export class MissesController {
   ) {}
 
   @Get()
-  // Pages are kept between reads (PageCache): each is written as JSON once, not per request.
-  @UseInterceptors(JsonOnceInterceptor)
-  findAll(@CurrentMember() member: MemberContext, @Query() query: ListMissesQuery) {
-    return this.search.findAll(member, query);
+  async findAll(
+    @CurrentMember() member: MemberContext,
+    @Query() query: ListMissesQuery,
+    @Res({ passthrough: true }) res: Response,
+  ) {
+    // Pages are kept between reads (PageCache): each is written as JSON once, not per request.
+    return jsonOnce(res, await this.search.findAll(member, query));
   }
 
   @Roles(Role.owner, Role.parent)

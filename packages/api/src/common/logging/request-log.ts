@@ -56,9 +56,10 @@ function routeOf(req: Request): string {
 
 /**
  * One compact line per request when it ends: method, route, status, ms and the request id
- * (also sent as x-request-id). Full request and response headers only at debug.
+ * (also sent as x-request-id). Full request and response headers only at debug. `onFinished`
+ * hears of each response sent in full, from the same listener (one per request, not one each).
  */
-export function requestLog(logger: Logger) {
+export function requestLog(logger: Logger, onFinished?: (req: Request, status: number) => void) {
   return (req: Request, res: Response, next: NextFunction) => {
     const started = performance.now();
     const id = randomUUID();
@@ -66,6 +67,7 @@ export function requestLog(logger: Logger) {
     res.setHeader('x-request-id', id);
     res.once('close', () => {
       const status = res.writableFinished ? res.statusCode : 499;
+      if (res.writableFinished) onFinished?.(req, status);
       const level: Level = status >= 500 ? 'error' : 'info';
       if (!logger.isLevelEnabled(level)) return;
       const line: Record<string, unknown> = {
