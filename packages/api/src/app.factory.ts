@@ -8,7 +8,11 @@ import type { AppConfig } from './config/app.config.js';
 
 /** The whole HTTP app, configured but not listening; main.ts and the API tests both use it. */
 export async function createApp(): Promise<{ app: NestExpressApplication; config: AppConfig }> {
-  const app = await NestFactory.create<NestExpressApplication>(AppModule, { bufferLogs: true });
+  // Bodies are parsed by configureApp (requestBodies), only for requests that have one.
+  const app = await NestFactory.create<NestExpressApplication>(AppModule, {
+    bufferLogs: true,
+    bodyParser: false,
+  });
   const config = app.get(ConfigService).getOrThrow<AppConfig>('app');
   configureApp(app, config);
   await app.init();

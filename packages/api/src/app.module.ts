@@ -63,6 +63,10 @@ const emailOf = (req: Request) =>
       },
     }),
     DatabaseModule,
+    // Express tries routes in the order they were added, and Nest adds them module by module:
+    // the routes asked most often (health checks, the notebook) come first.
+    HealthModule,
+    MissesModule,
     SessionsModule,
     UsersModule,
     HouseholdsModule,
@@ -70,7 +74,6 @@ const emailOf = (req: Request) =>
     StudentsModule,
     DiagnoseModule,
     PhotosModule,
-    MissesModule,
     CurriculumModule,
     AnswerKeysModule,
     SittingsModule,
@@ -83,7 +86,6 @@ const emailOf = (req: Request) =>
     ReviewPlansModule,
     PatternsModule,
     PortfolioModule,
-    HealthModule,
     MetricsModule,
     SeedModule,
   ],

@@ -8,7 +8,7 @@ import session from 'express-session';
 import expressStaticGzip from 'express-static-gzip';
 import passport from 'passport';
 import { createLogger, PinoNestLogger, requestLog } from './common/logging/request-log.js';
-import { JSON_BODY_LIMIT_BYTES, requestBodyLimits } from './common/middleware/request-body.js';
+import { requestBodies } from './common/middleware/request-body.js';
 import { securityHeaders, strictCsp } from './common/middleware/security-headers.js';
 import { createValidationPipe } from './common/pipes/validation.pipe.js';
 import type { AppConfig } from './config/app.config.js';
@@ -38,8 +38,7 @@ export function configureApp(app: NestExpressApplication, config: AppConfig): vo
   app.setGlobalPrefix('api');
   if (config.trustProxy) app.set('trust proxy', 1);
   app.disable('x-powered-by');
-  app.use(requestBodyLimits(config.limits.bodyTimeoutMs));
-  app.useBodyParser('json', { limit: JSON_BODY_LIMIT_BYTES });
+  app.use(requestBodies(config.limits.bodyTimeoutMs));
 
   // JSON and pages compressed on the fly; the web app's files come precompressed (serveWebApp).
   // Images, PDFs and zips are not compressible types, so downloads stream as they are.
