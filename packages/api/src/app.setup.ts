@@ -18,6 +18,8 @@ import { MetricsService } from './metrics/metrics.service.js';
 import { SessionStoreService } from './sessions/session-store.service.js';
 import { HttpExceptionFilter } from './common/filters/http-exception.filter.js';
 
+const HEALTH_PATH = '/api/health';
+
 /** `/api`, and anything under it, as `app.use('/api', …)` matches it. */
 const API_PATH = /^\/api(?:[/?]|$)/;
 
@@ -41,8 +43,12 @@ export function configureApp(app: NestExpressApplication, config: AppConfig): vo
   app.use(requestBodies(config.limits.bodyTimeoutMs));
 
   // JSON and pages compressed on the fly; the web app's files come precompressed (serveWebApp).
-  // Images, PDFs and zips are not compressible types, so downloads stream as they are.
-  app.use(compression());
+  // Images, PDFs and zips are not compressible types, so downloads stream as they are. Health's
+  // few dozen bytes are under compression's threshold: its probes skip the wrapping altogether.
+  const compress = compression();
+  app.use((req: Request, res: Response, next: NextFunction) =>
+    req.path === HEALTH_PATH ? next() : compress(req, res, next),
+  );
 
   // Swagger UI ships inline styles; only its own pages get them.
   const headers = {
@@ -114,7 +120,7 @@ export function configureApp(app: NestExpressApplication, config: AppConfig): vo
 }
 
 /** Public routes that never read or write the session, and everything outside /api. */
-const SESSIONLESS = ['/api/health', '/api/docs'];
+const SESSIONLESS = [HEALTH_PATH, '/api/docs'];
 
 export function needsSession(path: string): boolean {
   return (
