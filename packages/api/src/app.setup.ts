@@ -87,7 +87,8 @@ export function configureApp(app: NestExpressApplication, config: AppConfig): vo
     }),
   );
   sessions.use(absoluteLifetime(config.session.maxAgeMs));
-  sessions.use(passport.initialize());
+  // passport.session() sets up req.login, req.isAuthenticated and the rest itself; passport's
+  // initialize() would only set them again (its docs: needed for strategies before 0.5).
   sessions.use(passport.session());
   // The store or the member lookup failing (a busy or unreachable database) answers as a
   // route's error would: through the exception filter, never Express's default 500 page.
