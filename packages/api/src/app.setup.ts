@@ -3,11 +3,12 @@ import path from 'node:path';
 import type { NestExpressApplication } from '@nestjs/platform-express';
 import { DocumentBuilder, SwaggerModule } from '@nestjs/swagger';
 import compression from 'compression';
-import express, { type NextFunction, type Request, type Response } from 'express';
+import type { NextFunction, Request, Response } from 'express';
 import session from 'express-session';
 import expressStaticGzip from 'express-static-gzip';
 import passport from 'passport';
 import { createLogger, PinoNestLogger, requestLog } from './common/logging/request-log.js';
+import { inTurn } from './common/middleware/in-turn.js';
 import { requestBodies } from './common/middleware/request-body.js';
 import { securityHeaders, strictCsp } from './common/middleware/security-headers.js';
 import { createValidationPipe } from './common/pipes/validation.pipe.js';
@@ -32,23 +33,20 @@ export function configureApp(app: NestExpressApplication, config: AppConfig): vo
   );
   app.useLogger(new PinoNestLogger(logger));
   const metrics = app.get(MetricsService);
-  app.use(
-    requestLog(logger, (req, status) => {
-      if (API_PATH.test(req.originalUrl)) metrics.countResponse(status);
-    }),
-  );
   app.setGlobalPrefix('api');
   if (config.trustProxy) app.set('trust proxy', 1);
   app.disable('x-powered-by');
-  app.use(requestBodies(config.limits.bodyTimeoutMs));
+
+  const log = requestLog(logger, (req, status) => {
+    if (API_PATH.test(req.originalUrl)) metrics.countResponse(status);
+  });
 
   // JSON and pages compressed on the fly; the web app's files come precompressed (serveWebApp).
   // Images, PDFs and zips are not compressible types, so downloads stream as they are. Health's
   // few dozen bytes are under compression's threshold: its probes skip the wrapping altogether.
   const compress = compression();
-  app.use((req: Request, res: Response, next: NextFunction) =>
-    req.path === HEALTH_PATH ? next() : compress(req, res, next),
-  );
+  const compressUnlessHealth = (req: Request, res: Response, next: NextFunction) =>
+    req.path === HEALTH_PATH ? next() : compress(req, res, next);
 
   // Swagger UI ships inline styles; only its own pages get them.
   const headers = {
@@ -56,20 +54,19 @@ export function configureApp(app: NestExpressApplication, config: AppConfig): vo
     docs: securityHeaders(config, { ...strictCsp, styleSrc: ["'self'", "'unsafe-inline'"] }),
   };
   const httpsSite = config.publicUrl?.startsWith('https:') ?? false;
-  app.use((req: Request, res: Response, next: NextFunction) => {
+  const securityHeadersFor = (req: Request, res: Response, next: NextFunction) => {
     const page = req.path.startsWith('/api/docs') ? headers.docs : headers.app;
     // req.secure reads X-Forwarded-Proto only with TRUST_PROXY.
     return (req.secure || httpsSite ? page.https : page.http)(req, res, next);
-  });
-  app.use('/api', (_req: Request, res: Response, next: NextFunction) => {
-    res.setHeader('Cache-Control', 'no-store');
+  };
+  const noStoreForApi = (req: Request, res: Response, next: NextFunction) => {
+    if (API_PATH.test(req.path)) res.setHeader('Cache-Control', 'no-store');
     next();
-  });
+  };
 
   // Sessions (a store read, passport) only where a route may use them: not for /api/health,
   // the API docs, or the web app's files and pages.
-  const sessions = express.Router();
-  sessions.use(
+  const sessions = inTurn(
     session({
       name: config.session.cookieName,
       secret: config.session.secret,
@@ -85,20 +82,31 @@ export function configureApp(app: NestExpressApplication, config: AppConfig): vo
         maxAge: config.session.idleMs,
       },
     }),
+    absoluteLifetime(config.session.maxAgeMs),
+    // passport.session() sets up req.login, req.isAuthenticated and the rest itself; passport's
+    // initialize() would only set them again (its docs: needed for strategies before 0.5).
+    passport.session(),
   );
-  sessions.use(absoluteLifetime(config.session.maxAgeMs));
-  // passport.session() sets up req.login, req.isAuthenticated and the rest itself; passport's
-  // initialize() would only set them again (its docs: needed for strategies before 0.5).
-  sessions.use(passport.session());
   // The store or the member lookup failing (a busy or unreachable database) answers as a
   // route's error would: through the exception filter, never Express's default 500 page.
   const errors = new HttpExceptionFilter(metrics);
-  app.use((req: Request, res: Response, next: NextFunction) =>
+  const sessionsWhereNeeded = (req: Request, res: Response, next: NextFunction) =>
     needsSession(req.path)
       ? sessions(req, res, (err?: unknown) =>
           err && err !== 'route' ? errors.respond(err, req, res) : next(err),
         )
-      : next(),
+      : next();
+
+  // What every request meets, as one layer of Express's router (see inTurn).
+  app.use(
+    inTurn(
+      log,
+      requestBodies(config.limits.bodyTimeoutMs),
+      compressUnlessHealth,
+      securityHeadersFor,
+      noStoreForApi,
+      sessionsWhereNeeded,
+    ),
   );
 
   app.useGlobalPipes(createValidationPipe());

@@ -14,6 +14,7 @@ import express, {
   type Response,
 } from 'express';
 import type { Observable } from 'rxjs';
+import { inTurn } from './in-turn.js';
 
 /** JSON (and any other body but multipart) may be at most this large. */
 export const JSON_BODY_LIMIT_BYTES = 256 * 1024;
@@ -74,8 +75,7 @@ function requestBodyLimits(timeoutMs: number) {
  * the traffic, skips the lot instead of passing each parser in turn.
  */
 export function requestBodies(timeoutMs: number): RequestHandler {
-  const bodies = express.Router();
-  bodies.use(
+  const bodies = inTurn(
     requestBodyLimits(timeoutMs),
     express.json({ limit: JSON_BODY_LIMIT_BYTES }),
     express.urlencoded({ extended: true }),
