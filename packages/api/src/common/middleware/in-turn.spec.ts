@@ -26,8 +26,8 @@ const mark =
     next();
   };
 
-// The contract is Express's own (expressjs.com, "Writing middleware" and "Error handling"),
-// which the same handlers meet as separate layers; common practice, no source beyond those pages.
+// The contract checked is Express's own for middleware, as its guide states it ("Writing
+// middleware", "Error handling"): the same handlers as separate layers behave so.
 describe('inTurn', () => {
   it('runs every handler in order, then the next layer', async () => {
     const res = await request(appWith(mark('a'), mark('b'), mark('c')))

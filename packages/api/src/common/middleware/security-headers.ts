@@ -46,7 +46,7 @@ export function securityHeaders(config: AppConfig, directives: typeof strictCsp)
  * With fixed directives (no per-request nonce) helmet's answer is the same for every request,
  * and running its dozen small middlewares on each one was a measurable part of a request.
  */
-export function fixedHeaders(middleware: RequestHandler): RequestHandler {
+function fixedHeaders(middleware: RequestHandler): RequestHandler {
   const headers: [string, string][] = [];
   const recorder = {
     setHeader: (name: string, value: string | number) => headers.push([name, String(value)]),
