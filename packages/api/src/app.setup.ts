@@ -3,10 +3,11 @@ import path from 'node:path';
 import type { NestExpressApplication } from '@nestjs/platform-express';
 import { DocumentBuilder, SwaggerModule } from '@nestjs/swagger';
 import compression from 'compression';
-import type { NextFunction, Request, Response } from 'express';
+import type { Express, NextFunction, Request, Response } from 'express';
 import session from 'express-session';
 import expressStaticGzip from 'express-static-gzip';
 import passport from 'passport';
+import { sessionUser } from './auth/session-user.js';
 import { createLogger, PinoNestLogger, requestLog } from './common/logging/request-log.js';
 import { inTurn } from './common/middleware/in-turn.js';
 import { requestBodies } from './common/middleware/request-body.js';
@@ -83,9 +84,9 @@ export function configureApp(app: NestExpressApplication, config: AppConfig): vo
       },
     }),
     absoluteLifetime(config.session.maxAgeMs),
-    // passport.session() sets up req.login, req.isAuthenticated and the rest itself; passport's
-    // initialize() would only set them again (its docs: needed for strategies before 0.5).
-    passport.session(),
+    // passport.session()'s work; req.logIn, req.isAuthenticated and the rest are set once on
+    // Express's request prototype (passport's initialize() is only for strategies before 0.5).
+    sessionUser(passport, (app.getHttpAdapter().getInstance() as Express).request),
   );
   // The store or the member lookup failing (a busy or unreachable database) answers as a
   // route's error would: through the exception filter, never Express's default 500 page.
