@@ -12,6 +12,14 @@ import { HouseholdsService } from '../../households/households.service.js';
 import { IS_PUBLIC, NO_HOUSEHOLD } from '../decorators/public.decorator.js';
 import { ADMIN_ONLY, ROLES_KEY } from '../decorators/roles.decorator.js';
 
+/** A route's access rules, as its decorators (and its controller's) set them. */
+interface RouteRules {
+  isPublic: boolean;
+  adminOnly: boolean;
+  noHousehold: boolean;
+  roles: Role[] | undefined;
+}
+
 /**
  * Protected by default: signed in, then a membership of the session's household
  * (through MemberCache, emptied by every change to memberships or grants, so a
@@ -25,14 +33,17 @@ export class AccessGuard implements CanActivate {
     private readonly households: HouseholdsService,
   ) {}
 
+  /** Each route's rules, read once: decorators' metadata is fixed when the app starts. */
+  private readonly rules = new WeakMap<object, WeakMap<object, RouteRules>>();
+
   async canActivate(context: ExecutionContext): Promise<boolean> {
-    const targets = [context.getHandler(), context.getClass()];
-    if (this.reflector.getAllAndOverride<boolean>(IS_PUBLIC, targets)) return true;
+    const rules = this.rulesOf(context);
+    if (rules.isPublic) return true;
 
     const req = context.switchToHttp().getRequest<Request>();
     if (!req.isAuthenticated() || !req.user) throw new UnauthorizedException('Please sign in');
 
-    if (this.reflector.getAllAndOverride<boolean>(ADMIN_ONLY, targets)) {
+    if (rules.adminOnly) {
       if (!req.user.isAdmin) throw new ForbiddenException('Only the site admin may do this');
       return true;
     }
@@ -42,7 +53,7 @@ export class AccessGuard implements CanActivate {
       req.member = member;
       req.session.householdId = member.householdId;
     }
-    if (this.reflector.getAllAndOverride<boolean>(NO_HOUSEHOLD, targets)) return true;
+    if (rules.noHousehold) return true;
     if (!member) {
       throw new ForbiddenException(
         req.user.isAdmin
@@ -51,10 +62,30 @@ export class AccessGuard implements CanActivate {
       );
     }
 
-    const roles = this.reflector.getAllAndOverride<Role[] | undefined>(ROLES_KEY, targets);
-    if (roles && !roles.includes(member.role)) {
+    if (rules.roles && !rules.roles.includes(member.role)) {
       throw new ForbiddenException(`A ${member.role} may not do this`);
     }
     return true;
+  }
+
+  /** Keyed by controller, then handler: a method a subclass inherits has its own class's rules. */
+  private rulesOf(context: ExecutionContext): RouteRules {
+    const controller = context.getClass();
+    const handler = context.getHandler();
+    let byHandler = this.rules.get(controller);
+    if (!byHandler) this.rules.set(controller, (byHandler = new WeakMap()));
+    let found = byHandler.get(handler);
+    if (!found) {
+      const targets = [handler, controller];
+      const read = <T>(key: string) => this.reflector.getAllAndOverride<T>(key, targets);
+      found = {
+        isPublic: read<boolean>(IS_PUBLIC) === true,
+        adminOnly: read<boolean>(ADMIN_ONLY) === true,
+        noHousehold: read<boolean>(NO_HOUSEHOLD) === true,
+        roles: read<Role[] | undefined>(ROLES_KEY),
+      };
+      byHandler.set(handler, found);
+    }
+    return found;
   }
 }
