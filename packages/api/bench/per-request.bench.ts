@@ -77,7 +77,7 @@ export async function startProductionServer(dataDir: string, nodeArgs: readonly 
 
 /**
  * What every request costs: the product's /api/health and a signed-in notebook page (the
- * demo household's first 25 misses) beside a bare Express app answering the same health
+ * demo household's first 25 misses; also as a browser asks for it, gzipped) beside a bare Express app answering the same health
  * JSON, all measured in this run. The server runs as in production (NODE_ENV=production,
  * info logs written to a pipe that is read and dropped).
  */
@@ -91,6 +91,12 @@ export async function benchPerRequest(): Promise<void> {
       bare: () => run(`${bare.url}/api/health`),
       health: () => run(`${server.url}/api/health`),
       notebook: () => run(`${server.url}/api/misses?page=1`, { cookie: owner.cookie }),
+      // As a browser asks over plain http: the page gzipped (no target; beside the plain one).
+      'notebook, gzip': () =>
+        run(`${server.url}/api/misses?page=1`, {
+          cookie: owner.cookie,
+          'accept-encoding': 'gzip, deflate',
+        }),
     });
     const rate = (r: Result) => Math.round(r.requests.average);
     const share = (r: Result) => rate(r) / Math.max(1, rate(best.bare!));

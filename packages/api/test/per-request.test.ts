@@ -173,6 +173,38 @@ describe('per-request work of the real app', () => {
     expect(changed.body.total).toBe(first.body.total + 1);
   });
 
+  it('answers a notebook page gzipped to a browser, plain otherwise, each with its own ETag', async () => {
+    // A representation's encoding is part of it: each has its own validator (RFC 9110, 8.8.3).
+    const plain = await owner
+      .get('/api/misses?page=1')
+      .set('accept-encoding', 'identity')
+      .expect(200);
+    expect(plain.headers['content-encoding']).toBeUndefined();
+    expect(plain.headers.vary).toMatch(/accept-encoding/i);
+    // superagent inflates the body, so both are compared as JSON.
+    const zipped = await owner
+      .get('/api/misses?page=1')
+      .set('accept-encoding', 'gzip, deflate')
+      .expect(200);
+    expect(zipped.headers['content-encoding']).toBe('gzip');
+    expect(zipped.headers['content-type']).toMatch(/^application\/json/);
+    expect(zipped.headers.vary).toMatch(/accept-encoding/i);
+    expect(zipped.body).toEqual(plain.body);
+    expect(zipped.headers.etag).not.toBe(plain.headers.etag);
+    // Each ETag is fresh for its own representation only.
+    await owner
+      .get('/api/misses?page=1')
+      .set('accept-encoding', 'gzip')
+      .set('if-none-match', zipped.headers.etag!)
+      .expect(304);
+    await owner
+      .get('/api/misses?page=1')
+      .set('accept-encoding', 'gzip;q=0, identity')
+      .set('if-none-match', zipped.headers.etag!)
+      .expect(200)
+      .expect((res) => expect(res.headers['content-encoding']).toBeUndefined());
+  });
+
   it('counts each finished API answer once, by its status class, for the site admin', async () => {
     const admin = await signedIn(t, DEMO.admin);
     const counts = async () =>

@@ -17,7 +17,7 @@ import type { Response } from 'express';
 import { CurrentMember } from '../common/decorators/current-member.decorator.js';
 import { IdParam } from '../common/decorators/id-param.decorator.js';
 import { Roles } from '../common/decorators/roles.decorator.js';
-import { jsonOnce } from '../common/responses/json-once.js';
+import { sendJsonOnce } from '../common/responses/json-once.js';
 import type { MemberContext } from '../common/member-context.js';
 import { fieldsError } from '../common/pipes/validation.pipe.js';
 import { PhotoUpload } from '../photos/photo-upload.js';
@@ -44,10 +44,10 @@ export class MissesController {
   async findAll(
     @CurrentMember() member: MemberContext,
     @Query() query: ListMissesQuery,
-    @Res({ passthrough: true }) res: Response,
-  ) {
-    // Pages are kept between reads (PageCache): each is written as JSON once, not per request.
-    return jsonOnce(res, await this.search.findAll(member, query));
+    @Res() res: Response,
+  ): Promise<void> {
+    // Pages are kept between reads (PageCache): each is written as JSON, and gzipped, once.
+    sendJsonOnce(res, await this.search.findAll(member, query));
   }
 
   @Roles(Role.owner, Role.parent)

@@ -1,9 +1,20 @@
+import { gzipSync } from 'node:zlib';
 import type { Response } from 'express';
 
-/** Answers already written, with their ETag, by the object they were written from. */
-const written = new WeakMap<object, { json: string; etag: string | undefined }>();
+/** An answer already written, with its ETag, and gzipped once a browser has asked for it so. */
+interface Written {
+  json: string;
+  etag: string | undefined;
+  gzip?: { bytes: Buffer; etag: string | undefined };
+}
 
-type ETagFn = (body: string, encoding: BufferEncoding) => string | undefined;
+/** Answers already written, by the object they were written from. */
+const written = new WeakMap<object, Written>();
+
+/** Below this a gzipped answer saves too little to be worth it (compression's own threshold). */
+const GZIP_FROM_BYTES = 1024;
+
+type ETagFn = (body: string | Buffer, encoding?: BufferEncoding) => string | undefined;
 
 /**
  * For a route that answers objects kept between requests (the notebook's page cache, health's
@@ -16,15 +27,55 @@ type ETagFn = (body: string, encoding: BufferEncoding) => string | undefined;
  * through Nest's rxjs chain, which cost more than the JSON it saved on these hot routes.
  */
 export function jsonOnce(res: Response, body: object): string {
-  let answer = written.get(body);
-  if (!answer) {
-    const json = JSON.stringify(body);
-    // Express's own ETag for the text, which it then does not compute again.
-    const etag = (res.app.get('etag fn') as ETagFn | undefined)?.(json, 'utf8');
-    written.set(body, (answer = { json, etag }));
-  }
+  const answer = writtenOnce(res, body);
   if (answer.etag) res.setHeader('ETag', answer.etag);
   // A string is sent as it is (not encoded again) under the type set here.
   res.type('application/json');
   return answer.json;
+}
+
+/**
+ * jsonOnce's answer, sent by the route itself (`@Res()`), gzipped once for every browser that
+ * accepts gzip (all do): the compression middleware would otherwise gzip the same kept page
+ * again on every request. It sees the answer already encoded and leaves it. The gzipped bytes
+ * have their own ETag, as a different representation must (RFC 9110, 8.8.3).
+ */
+export function sendJsonOnce(res: Response, body: object): void {
+  const answer = writtenOnce(res, body);
+  res.type('application/json');
+  res.vary('Accept-Encoding');
+  if (answer.json.length >= GZIP_FROM_BYTES && acceptsGzip(res)) {
+    answer.gzip ??= gzipOf(res, answer.json);
+    if (answer.gzip.etag) res.setHeader('ETag', answer.gzip.etag);
+    res.setHeader('Content-Encoding', 'gzip');
+    res.send(answer.gzip.bytes);
+    return;
+  }
+  if (answer.etag) res.setHeader('ETag', answer.etag);
+  res.send(answer.json);
+}
+
+function writtenOnce(res: Response, body: object): Written {
+  let answer = written.get(body);
+  if (!answer) {
+    const json = JSON.stringify(body);
+    // Express's own ETag for the text, which it then does not compute again.
+    answer = { json, etag: etagFn(res)?.(json, 'utf8') };
+    written.set(body, answer);
+  }
+  return answer;
+}
+
+function gzipOf(res: Response, json: string): NonNullable<Written['gzip']> {
+  const bytes = gzipSync(json);
+  return { bytes, etag: etagFn(res)?.(bytes) };
+}
+
+/** No Accept-Encoding, or gzip refused (`gzip;q=0`), is answered as plain JSON. */
+function acceptsGzip(res: Response): boolean {
+  return !!res.req.headers['accept-encoding'] && res.req.acceptsEncodings('gzip') === 'gzip';
+}
+
+function etagFn(res: Response): ETagFn | undefined {
+  return res.app.get('etag fn') as ETagFn | undefined;
 }
