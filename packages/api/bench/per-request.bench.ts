@@ -77,9 +77,9 @@ export async function startProductionServer(dataDir: string, nodeArgs: readonly 
 
 /**
  * What every request costs: the product's /api/health and a signed-in notebook page (the
- * demo household's first 25 misses; also as a browser asks for it, gzipped) beside a bare Express app answering the same health
- * JSON, all measured in this run. The server runs as in production (NODE_ENV=production,
- * info logs written to a pipe that is read and dropped).
+ * demo household's first 25 misses; also as a browser asks for it, gzipped) beside a bare
+ * Express app answering the same health JSON, all measured in this run. The server runs as in
+ * production (NODE_ENV=production, info logs written to a pipe that is read and dropped).
  */
 export async function benchPerRequest(): Promise<void> {
   const dataDir = mkdtempSync(path.join(tmpdir(), 'workback-bench-'));

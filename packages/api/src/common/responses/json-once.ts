@@ -11,8 +11,8 @@ interface Written {
 /** Answers already written, by the object they were written from. */
 const written = new WeakMap<object, Written>();
 
-/** Below this a gzipped answer saves too little to be worth it (compression's own threshold). */
-const GZIP_FROM_BYTES = 1024;
+/** Shorter JSON is sent as it is: gzip saves too little (compression's own threshold, 1 kB). */
+const GZIP_FROM_CHARS = 1024;
 
 type ETagFn = (body: string | Buffer, encoding?: BufferEncoding) => string | undefined;
 
@@ -44,7 +44,7 @@ export function sendJsonOnce(res: Response, body: object): void {
   const answer = writtenOnce(res, body);
   res.type('application/json');
   res.vary('Accept-Encoding');
-  if (answer.json.length >= GZIP_FROM_BYTES && acceptsGzip(res)) {
+  if (answer.json.length >= GZIP_FROM_CHARS && acceptsGzip(res)) {
     answer.gzip ??= gzipOf(res, answer.json);
     if (answer.gzip.etag) res.setHeader('ETag', answer.gzip.etag);
     res.setHeader('Content-Encoding', 'gzip');
