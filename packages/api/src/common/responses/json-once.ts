@@ -41,18 +41,17 @@ export function jsonOnce(res: Response, body: object): string {
  * have their own ETag, as a different representation must (RFC 9110, 8.8.3).
  */
 export function sendJsonOnce(res: Response, body: object): void {
-  const answer = writtenOnce(res, body);
-  res.type('application/json');
   res.vary('Accept-Encoding');
-  if (answer.json.length >= GZIP_FROM_CHARS && acceptsGzip(res)) {
-    answer.gzip ??= gzipOf(res, answer.json);
-    if (answer.gzip.etag) res.setHeader('ETag', answer.gzip.etag);
-    res.setHeader('Content-Encoding', 'gzip');
-    res.send(answer.gzip.bytes);
+  const answer = writtenOnce(res, body);
+  if (answer.json.length < GZIP_FROM_CHARS || !acceptsGzip(res)) {
+    res.send(jsonOnce(res, body));
     return;
   }
-  if (answer.etag) res.setHeader('ETag', answer.etag);
-  res.send(answer.json);
+  answer.gzip ??= gzipOf(res, answer.json);
+  if (answer.gzip.etag) res.setHeader('ETag', answer.gzip.etag);
+  res.setHeader('Content-Encoding', 'gzip');
+  res.type('application/json');
+  res.send(answer.gzip.bytes);
 }
 
 function writtenOnce(res: Response, body: object): Written {
