@@ -6,6 +6,7 @@ import { revisitLessons } from '@workback/core';
 import type { MemberContext } from '../common/member-context.js';
 import { fieldsError } from '../common/pipes/validation.pipe.js';
 import { CurriculumService } from '../curriculum/curriculum.service.js';
+import { placeholders, SqlReader } from '../database/sql-reader.js';
 import { checkItem } from './cross-check.js';
 import type { CreateAnswerKeyDto } from './dto/create-answer-key.dto.js';
 import { checkItems, type CourseLessons, type ItemFields } from './key-item-checks.js';
@@ -25,6 +26,7 @@ export class AnswerKeysService {
     @InjectModel(KeyCorrection) private readonly correctionModel: typeof KeyCorrection,
     @InjectConnection() private readonly sequelize: Sequelize,
     private readonly curriculum: CurriculumService,
+    private readonly reader: SqlReader,
   ) {
     curriculum.registerUsage({
       courseUsers: (courseId) => this.courseUsers(courseId),
@@ -66,33 +68,32 @@ export class AnswerKeysService {
     return { items: list, total: list.length };
   }
 
-  /** For review plans: the courses of the household's keys these items belong to, most used first. */
+  /**
+   * For review plans: the courses of the household's keys these items belong to, most used
+   * first. One read (items joined to their keys): every print of a plan asks, and each read
+   * waits its turn of a busy event loop.
+   */
   async coursesOfItems(
     member: MemberContext,
     itemIds: readonly number[],
     transaction?: Transaction,
   ): Promise<number[]> {
-    if (itemIds.length === 0) return [];
-    const items = await this.itemModel.findAll({
-      where: { id: { [Op.in]: [...itemIds] } },
-      attributes: ['answerKeyId'],
+    const ids = [...new Set(itemIds)];
+    if (ids.length === 0) return [];
+    const rows = await this.reader.rows<{ courseId: number; items: number | string }>(
+      `SELECT "k"."course_id" AS "courseId", COUNT(*) AS "items"
+       FROM "key_items" AS "i" JOIN "answer_keys" AS "k" ON "k"."id" = "i"."answer_key_id"
+       WHERE "i"."id" IN (${placeholders(ids.length)}) AND "k"."household_id" = ?
+         AND "k"."course_id" IS NOT NULL
+       GROUP BY "k"."course_id"`,
+      [...ids, member.householdId],
       transaction,
-    });
-    const keys = await this.keyModel.findAll({
-      where: {
-        householdId: member.householdId,
-        id: { [Op.in]: [...new Set(items.map((i) => i.answerKeyId))] },
-      },
-      attributes: ['id', 'courseId'],
-      transaction,
-    });
-    const count = new Map<number, number>();
-    const courseOf = new Map(keys.map((k) => [k.id, k.courseId]));
-    for (const i of items) {
-      const c = courseOf.get(i.answerKeyId);
-      if (c != null) count.set(c, (count.get(c) ?? 0) + 1);
-    }
-    return [...count].sort((a, b) => b[1] - a[1] || a[0] - b[0]).map(([id]) => id);
+    );
+    // COUNT(*) comes back as text from PostgreSQL (a bigint).
+    return rows
+      .map((r) => ({ id: Number(r.courseId), items: Number(r.items) }))
+      .sort((a, b) => b.items - a.items || a.id - b.id)
+      .map((r) => r.id);
   }
 
   async findOne(member: MemberContext, id: number, transaction?: Transaction) {

@@ -3,6 +3,7 @@ import { InjectConnection, InjectModel } from '@nestjs/sequelize';
 import type { Transaction } from 'sequelize';
 import type { Sequelize } from 'sequelize-typescript';
 import type { MemberContext } from '../common/member-context.js';
+import { placeholders, SqlReader } from '../database/sql-reader.js';
 import type { CreateCourseDto } from './dto/create-course.dto.js';
 import type { CreateLessonDto } from './dto/create-lesson.dto.js';
 import type { UpdateCourseDto } from './dto/update-course.dto.js';
@@ -27,6 +28,7 @@ export class CurriculumService {
     @InjectModel(Course) private readonly courseModel: typeof Course,
     @InjectModel(Lesson) private readonly lessonModel: typeof Lesson,
     @InjectConnection() private readonly sequelize: Sequelize,
+    private readonly reader: SqlReader,
   ) {}
 
   /** Modules that refer to lessons register here, so deleting one in use answers 409. */
@@ -120,16 +122,20 @@ export class CurriculumService {
       if (all.length !== 1) return {};
       ids = [all[0]!.id];
     }
-    const courses = await this.courseModel.findAll({
-      where: { householdId: member.householdId, id: ids },
-      attributes: ['id'],
+    // One read for every course (only the household's own), not one per course.
+    const lessons = await this.reader.rows<{ courseId: number; number: number; title: string }>(
+      `SELECT "l"."course_id" AS "courseId", "l"."number", "l"."title"
+       FROM "lessons" AS "l" JOIN "courses" AS "c" ON "c"."id" = "l"."course_id"
+       WHERE "c"."household_id" = ? AND "c"."id" IN (${placeholders(ids.length)})`,
+      [member.householdId, ...ids],
       transaction,
-    });
-    const mine = new Set(courses.map((c) => c.id));
+    );
+    const byCourse = new Map<number, typeof lessons>();
+    for (const l of lessons) byCourse.set(l.courseId, [...(byCourse.get(l.courseId) ?? []), l]);
+    // A lesson number two courses share takes the title of the course named first.
     const titles: Record<number, string> = {};
-    for (const courseId of ids.filter((id) => mine.has(id)))
-      for (const l of await this.lessonModel.findAll({ where: { courseId }, transaction }))
-        titles[l.number] ??= l.title;
+    for (const courseId of ids)
+      for (const l of byCourse.get(courseId) ?? []) titles[l.number] ??= l.title;
     return titles;
   }
 

@@ -76,16 +76,24 @@ export class StudentMissesService {
     if (filter.statuses) where.addIn('"status"', filter.statuses);
     if (filter.ids) where.addIn('"id"', filter.ids);
     // Plain rows (SqlReader): read for plans, prints and the portfolio, never saved from here.
-    const rows = await this.reader.rows<RawMissRow & { linesCheck: unknown }>(
+    const read = this.reader.rows<RawMissRow & { linesCheck: unknown }>(
       `SELECT ${WITH_DIAGNOSES_COLUMNS()} FROM "misses" WHERE ${where.sql()}
        ORDER BY "occurred_on", "id"`,
       where.params,
       transaction,
     );
-    const diagnoses = await this.diagnoses.diagnosesOf(
-      rows.map((r) => r.id as number),
-      transaction,
-    );
+    // Misses asked for by id have their diagnoses read beside them (each row the member may see
+    // takes its own); otherwise the diagnoses wait for the rows' ids.
+    const [rows, byId] = await Promise.all([
+      read,
+      filter.ids ? this.diagnoses.diagnosesOf(filter.ids, transaction) : null,
+    ]);
+    const diagnoses =
+      byId ??
+      (await this.diagnoses.diagnosesOf(
+        rows.map((r) => r.id as number),
+        transaction,
+      ));
     return rows.map((row) => {
       const m = fromRawRow(row);
       return {
