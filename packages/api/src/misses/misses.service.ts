@@ -157,15 +157,21 @@ export class MissesService {
   async findOne(member: MemberContext, id: number) {
     // A plain row through the driver (SqlReader), not a model: opening a miss reads it, never
     // saves it, and is one of the commonest requests.
+    // Its photos and diagnosis are read beside it, each otherwise waiting for the one before and
+    // then for a turn of the busy event loop; a miss the member may not see answers 404 before
+    // either is used.
     const scope = missScopeSql(member);
-    const [row] = await this.reader.rows<RawMissRow & { linesCheck: unknown }>(
-      `SELECT ${OPEN_COLUMNS()} FROM "misses" WHERE "id" = ? AND ${scope.sql}`,
-      [id, ...scope.params],
-    );
+    const [[row], photosOf, diagnosis] = await Promise.all([
+      this.reader.rows<RawMissRow & { linesCheck: unknown }>(
+        `SELECT ${OPEN_COLUMNS()} FROM "misses" WHERE "id" = ? AND ${scope.sql}`,
+        [id, ...scope.params],
+      ),
+      this.photos.forMisses([id]),
+      this.diagnoses.diagnosisOf(id),
+    ]);
     if (!row) throw new NotFoundException(`No miss ${id} in this household`);
     const miss = fromRawRow(row);
-    const photos = (await this.photos.forMisses([miss.id])).get(miss.id) ?? [];
-    const diagnosis = await this.diagnoses.diagnosisOf(miss.id);
+    const photos = photosOf.get(miss.id) ?? [];
     return {
       ...toMissJson(miss, photos, diagnosis),
       linesCheck: jsonOf<Miss['linesCheck']>(row.linesCheck, null),

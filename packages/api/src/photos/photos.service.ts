@@ -219,13 +219,20 @@ export class PhotosService {
   async forMisses(missIds: readonly number[]): Promise<Map<number, PhotoJson[]>> {
     const map = new Map<number, PhotoJson[]>();
     if (missIds.length === 0) return map;
-    // Read on every opened miss: straight through the driver (SqlReader), not as models.
-    const photos = await this.reader.rows<PhotoRow>(
-      `SELECT ${PHOTO_COLUMNS()} FROM "photos" WHERE "miss_id" IN (${placeholders(missIds.length)})
-       ORDER BY "miss_id", "position"`,
-      missIds,
-    );
-    const marks = await this.marksByPhoto(photos.map((p) => p.id));
+    // Read on every opened miss: straight through the driver (SqlReader), not as models, and
+    // the photos' marks beside the photos rather than after them.
+    const inMisses = `IN (${placeholders(missIds.length)})`;
+    const [photos, marks] = await Promise.all([
+      this.reader.rows<PhotoRow>(
+        `SELECT ${PHOTO_COLUMNS()} FROM "photos" WHERE "miss_id" ${inMisses}
+         ORDER BY "miss_id", "position"`,
+        missIds,
+      ),
+      this.marksWhere(
+        `"photo_id" IN (SELECT "id" FROM "photos" WHERE "miss_id" ${inMisses})`,
+        missIds,
+      ),
+    ]);
     for (const p of photos) {
       const list = map.get(p.missId) ?? [];
       list.push(toPhotoJson({ ...p, createdAt: driverDate(p.createdAt) }, marks.get(p.id) ?? []));
@@ -287,12 +294,20 @@ export class PhotosService {
 
   /** The marks drawn on these photos, by photo id. */
   async marksByPhoto(photoIds: readonly number[]): Promise<Map<number, MarkJson[]>> {
+    if (photoIds.length === 0) return new Map();
+    return this.marksWhere(`"photo_id" IN (${placeholders(photoIds.length)})`, photoIds);
+  }
+
+  /** Photo marks by photo, of the photos `where` picks. */
+  private async marksWhere(
+    where: string,
+    params: readonly number[],
+  ): Promise<Map<number, MarkJson[]>> {
     const map = new Map<number, MarkJson[]>();
-    if (photoIds.length === 0) return map;
     const marks = await this.reader.rows<MarkJson & { photoId: number }>(
       `SELECT "id", "photo_id" AS "photoId", "x", "y", "label" FROM "photo_marks"
-       WHERE "photo_id" IN (${placeholders(photoIds.length)}) ORDER BY "id"`,
-      photoIds,
+       WHERE ${where} ORDER BY "id"`,
+      params,
     );
     for (const m of marks) {
       const list = map.get(m.photoId) ?? [];

@@ -15,7 +15,7 @@ import type { PutMarksDto } from './dto/put-marks.dto.js';
 import { SittingMark } from './models/sitting-mark.model.js';
 import { Sitting } from './models/sitting.model.js';
 import { keyFlagged, tallyOf } from './sitting-json.js';
-import { SittingsService } from './sittings.service.js';
+import { type SittingRead, SittingsService } from './sittings.service.js';
 
 /** What a mark save or a re-marking did to the sitting's misses. */
 export interface MissChanges {
@@ -59,8 +59,9 @@ export class SittingMarksService implements OnModuleInit {
   async putMarks(member: MemberContext, id: number, dto: PutMarksDto) {
     // Marks sent again as they are saved (a retry after a lost answer, a second tap) change
     // nothing: answered from reads, without queueing for the write lock behind every family.
-    const { saved, answerKeyId } = await this.savedAlready(member, id, dto);
-    if (saved) return { ...(await this.sittings.findOne(member, id)), misses: emptyChanges() };
+    const read = await this.sittings.readWhole(member, id);
+    if (savedAlready(dto, read)) return { ...this.sittings.toJson(read), misses: emptyChanges() };
+    const { answerKeyId } = read.sitting;
     const changes = await this.sequelize.transaction(async (transaction) => {
       // The four reads at once: each turn of the event loop is time the write queue waits.
       // A sitting's answer key is fixed when it is made, so its items need not wait for it.
@@ -129,45 +130,6 @@ export class SittingMarksService implements OnModuleInit {
     // Read once committed, outside the transaction: this process's writes queue behind each
     // transaction, so it holds the queue only for what must be read and written together.
     return { ...(await this.sittings.findOne(member, id)), misses: changes };
-  }
-
-  /**
-   * Whether the sitting's saved marks are exactly `dto`'s, so saving it would change nothing;
-   * a save naming items wrongly is refused here as the write would refuse it. Read outside a
-   * transaction: the marks are one query, so they are all from one moment, and this save is
-   * then the same as one made at that moment. Answers the sitting's answer key too, for the
-   * write's reads.
-   */
-  private async savedAlready(
-    member: MemberContext,
-    id: number,
-    dto: PutMarksDto,
-  ): Promise<{ saved: boolean; answerKeyId: number }> {
-    const sitting = await this.sittings.findModel(member, id);
-    const { answerKeyId } = sitting;
-    const [items, saved] = await Promise.all([
-      this.keys.itemsOf(answerKeyId),
-      this.markModel.findAll({
-        where: { sittingId: id },
-        attributes: ['keyItemId', 'correct', 'answer'],
-        raw: true,
-      }),
-    ]);
-    const byId = itemsMarked(dto, items);
-    if (saved.length !== dto.marks.length) return { saved: false, answerKeyId };
-    const savedMarks = new Map(saved.map((m) => [m.keyItemId, m]));
-    const same = dto.marks.every((m) => {
-      const before = savedMarks.get(m.keyItemId);
-      return (
-        before !== undefined &&
-        // Raw rows: SQLite's booleans are 0 and 1.
-        Boolean(before.correct) === m.correct &&
-        before.answer === answerOf(m) &&
-        // A wrong mark whose flagged key answer is now said to be right may make its miss.
-        (m.correct || m.keyAnswerRight !== true || !keyFlagged(byId.get(m.keyItemId)!))
-      );
-    });
-    return { saved: same, answerKeyId };
   }
 
   /** Re-marks every sitting marked against items whose key answer was corrected. */
@@ -328,6 +290,28 @@ export class SittingMarksService implements OnModuleInit {
     })) as unknown as { keyItemId: number; count: number }[];
     return new Map(rows.map((r) => [r.keyItemId, r.count]));
   }
+}
+
+/**
+ * Whether the sitting's saved marks are exactly `dto`'s, so saving it would change nothing; a
+ * save naming items wrongly is refused here as the write would refuse it. Read outside a
+ * transaction: the marks are one query, so they are all from one moment, and this save is then
+ * the same as one made at that moment.
+ */
+function savedAlready(dto: PutMarksDto, { items, marks }: SittingRead): boolean {
+  const byId = itemsMarked(dto, items);
+  if (marks.length !== dto.marks.length) return false;
+  const savedMarks = new Map(marks.map((m) => [m.keyItemId, m]));
+  return dto.marks.every((m) => {
+    const before = savedMarks.get(m.keyItemId);
+    return (
+      before !== undefined &&
+      before.correct === m.correct &&
+      before.answer === answerOf(m) &&
+      // A wrong mark whose flagged key answer is now said to be right may make its miss.
+      (m.correct || m.keyAnswerRight !== true || !keyFlagged(byId.get(m.keyItemId)!))
+    );
+  });
 }
 
 /** The sitting's key items by id, once every mark names one of them, and only once. */

@@ -113,28 +113,24 @@ export class SittingSummariesService {
     );
     if (sittings.length === 0) return [];
     // Hundreds of rows for a term of sittings, read for the maths and never saved: straight
-    // through the driver (SqlReader), not as models, and every key's items in one read.
+    // through the driver (SqlReader), not as models, every key's items in one read, and that
+    // read beside the marks' (both follow from the sittings alone).
     const sittingIds = sittings.map((s) => s.id);
-    const marks = await this.reader.rows<{
-      sittingId: number;
-      keyItemId: number;
-      answer: string | null;
-    }>(
-      `SELECT "sitting_id" AS "sittingId", "key_item_id" AS "keyItemId", "answer"
-       FROM "sitting_marks" WHERE "sitting_id" IN (${placeholders(sittingIds.length)}) AND "correct" = ?
-       ORDER BY "id"`,
-      [...sittingIds, true],
-    );
     const keyIds = [...new Set(sittings.map((s) => s.answerKeyId))];
-    const items = new Map(
-      (
-        await this.reader.rows<{ id: number; prompt: string; answer: string }>(
-          `SELECT "id", "prompt", "answer" FROM "key_items"
-           WHERE "answer_key_id" IN (${placeholders(keyIds.length)})`,
-          keyIds,
-        )
-      ).map((item) => [item.id, item]),
-    );
+    const [marks, itemRows] = await Promise.all([
+      this.reader.rows<{ sittingId: number; keyItemId: number; answer: string | null }>(
+        `SELECT "sitting_id" AS "sittingId", "key_item_id" AS "keyItemId", "answer"
+         FROM "sitting_marks" WHERE "sitting_id" IN (${placeholders(sittingIds.length)}) AND "correct" = ?
+         ORDER BY "id"`,
+        [...sittingIds, true],
+      ),
+      this.reader.rows<{ id: number; prompt: string; answer: string }>(
+        `SELECT "id", "prompt", "answer" FROM "key_items"
+         WHERE "answer_key_id" IN (${placeholders(keyIds.length)})`,
+        keyIds,
+      ),
+    ]);
+    const items = new Map(itemRows.map((item) => [item.id, item]));
     const day = new Map(sittings.map((s) => [s.id, s.startedAt.slice(0, 10)]));
     return marks.flatMap((m) => {
       const item = items.get(m.keyItemId);
