@@ -19,6 +19,7 @@ import { driverDate, placeholders, selectList, SqlReader } from '../database/sql
 import { PHOTO_STORAGE, smallKeyOf, type PhotoStorage } from '../storage/photo-storage.js';
 import { DecodeSlots } from './decode-slots.js';
 import { Photo } from './models/photo.model.js';
+import { MAX_INPUT_PIXELS } from './photo-limits.js';
 import { PhotoPipeline, type ProcessedPhoto } from './photo-pipeline.service.js';
 
 /** Which file of a photo: the display image, the thumbnail, or the list rows' small square. */
@@ -107,6 +108,10 @@ export class PhotosService {
   }
 
   private async refuseOverPixelBudget(files: readonly UploadedPhoto[]): Promise<void> {
+    // One photo within the pipeline's own limit is within the budget too: the pipeline refuses
+    // a larger one itself (422), so its headers need not be read first (a trip through the
+    // thread pool and a turn of the event loop for every photo logged).
+    if (files.length === 1 && this.pixelBudget >= MAX_INPUT_PIXELS) return;
     let pixels = 0;
     for (const file of files) {
       // Only the header is read; a file sharp cannot read (empty ones throw at once) is the

@@ -18,15 +18,11 @@ export class LocalPhotoStorage implements PhotoStorage {
     try {
       await handle.writeFile(data);
       await handle.sync();
+      // Synced, so the name can be given while the file closes: each step is a trip through the
+      // thread pool and a turn of the event loop, and a photo is three files.
+      await Promise.all([handle.close(), rename(temp, target)]);
     } catch (err) {
-      await handle.close();
-      await rm(temp, { force: true });
-      throw err;
-    }
-    await handle.close();
-    try {
-      await rename(temp, target);
-    } catch (err) {
+      await handle.close().catch(() => undefined);
       await rm(temp, { force: true });
       throw err;
     }
