@@ -5,6 +5,8 @@ import type { Response } from 'express';
 interface Written {
   json: string;
   etag: string | undefined;
+  /** The JSON as UTF-8, encoded once: a string is encoded again on every write to the socket. */
+  bytes?: Buffer;
   gzip?: { bytes: Buffer; etag: string | undefined };
 }
 
@@ -44,7 +46,10 @@ export function sendJsonOnce(res: Response, body: object): void {
   res.vary('Accept-Encoding');
   const answer = writtenOnce(res, body);
   if (answer.json.length < GZIP_FROM_CHARS || !acceptsGzip(res)) {
-    res.send(jsonOnce(res, body));
+    answer.bytes ??= Buffer.from(answer.json);
+    if (answer.etag) res.setHeader('ETag', answer.etag);
+    res.type('application/json');
+    res.send(answer.bytes);
     return;
   }
   answer.gzip ??= gzipOf(res, answer.json);
