@@ -156,10 +156,9 @@ export class MissesService {
 
   async findOne(member: MemberContext, id: number) {
     // A plain row through the driver (SqlReader), not a model: opening a miss reads it, never
-    // saves it, and is one of the commonest requests.
-    // Its photos and diagnosis are read beside it, each otherwise waiting for the one before and
-    // then for a turn of the busy event loop; a miss the member may not see answers 404 before
-    // either is used.
+    // saves it, and is one of the commonest requests. Its photos and diagnosis are read beside
+    // it, each otherwise waiting for the one before and then for a turn of the busy event loop;
+    // a miss the member may not see answers 404 before either is used.
     const scope = missScopeSql(member);
     const [[row], photosOf, diagnosis] = await Promise.all([
       this.reader.rows<RawMissRow & { linesCheck: unknown }>(
