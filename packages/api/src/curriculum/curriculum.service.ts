@@ -130,12 +130,10 @@ export class CurriculumService {
       [member.householdId, ...ids],
       transaction,
     );
-    const byCourse = new Map<number, typeof lessons>();
-    for (const l of lessons) byCourse.set(l.courseId, [...(byCourse.get(l.courseId) ?? []), l]);
     // A lesson number two courses share takes the title of the course named first.
     const titles: Record<number, string> = {};
     for (const courseId of ids)
-      for (const l of byCourse.get(courseId) ?? []) titles[l.number] ??= l.title;
+      for (const l of lessons) if (l.courseId === courseId) titles[l.number] ??= l.title;
     return titles;
   }
 

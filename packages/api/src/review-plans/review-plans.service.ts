@@ -363,7 +363,11 @@ export class ReviewPlansService {
 /** Each item's misses, in the order read. */
 function linkMap(rows: readonly { itemId: number; missId: number }[]): Map<number, number[]> {
   const map = new Map<number, number[]>();
-  for (const r of rows) map.set(r.itemId, [...(map.get(r.itemId) ?? []), r.missId]);
+  for (const r of rows) {
+    const misses = map.get(r.itemId);
+    if (misses) misses.push(r.missId);
+    else map.set(r.itemId, [r.missId]);
+  }
   return map;
 }
 

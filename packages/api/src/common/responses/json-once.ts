@@ -6,8 +6,14 @@ interface Written {
   json: string;
   etag: string | undefined;
   /** The JSON as UTF-8, encoded once: a string is encoded again on every write to the socket. */
-  bytes?: Buffer;
-  gzip?: { bytes: Buffer; etag: string | undefined };
+  plain?: Representation;
+  gzip?: Representation;
+}
+
+/** Bytes sent as they are, with the ETag of those bytes. */
+interface Representation {
+  bytes: Buffer;
+  etag: string | undefined;
 }
 
 /** Answers already written, by the object they were written from. */
@@ -30,9 +36,8 @@ type ETagFn = (body: string | Buffer, encoding?: BufferEncoding) => string | und
  */
 export function jsonOnce(res: Response, body: object): string {
   const answer = writtenOnce(res, body);
-  if (answer.etag) res.setHeader('ETag', answer.etag);
   // A string is sent as it is (not encoded again) under the type set here.
-  res.type('application/json');
+  jsonHeaders(res, answer.etag);
   return answer.json;
 }
 
@@ -45,18 +50,20 @@ export function jsonOnce(res: Response, body: object): string {
 export function sendJsonOnce(res: Response, body: object): void {
   res.vary('Accept-Encoding');
   const answer = writtenOnce(res, body);
-  if (answer.json.length < GZIP_FROM_CHARS || !acceptsGzip(res)) {
-    answer.bytes ??= Buffer.from(answer.json);
-    if (answer.etag) res.setHeader('ETag', answer.etag);
-    res.type('application/json');
-    res.send(answer.bytes);
-    return;
+  let sent: Representation;
+  if (answer.json.length >= GZIP_FROM_CHARS && acceptsGzip(res)) {
+    sent = answer.gzip ??= gzipOf(res, answer.json);
+    res.setHeader('Content-Encoding', 'gzip');
+  } else {
+    sent = answer.plain ??= { bytes: Buffer.from(answer.json), etag: answer.etag };
   }
-  answer.gzip ??= gzipOf(res, answer.json);
-  if (answer.gzip.etag) res.setHeader('ETag', answer.gzip.etag);
-  res.setHeader('Content-Encoding', 'gzip');
+  jsonHeaders(res, sent.etag);
+  res.send(sent.bytes);
+}
+
+function jsonHeaders(res: Response, etag: string | undefined): void {
+  if (etag) res.setHeader('ETag', etag);
   res.type('application/json');
-  res.send(answer.gzip.bytes);
 }
 
 function writtenOnce(res: Response, body: object): Written {
@@ -70,7 +77,7 @@ function writtenOnce(res: Response, body: object): Written {
   return answer;
 }
 
-function gzipOf(res: Response, json: string): NonNullable<Written['gzip']> {
+function gzipOf(res: Response, json: string): Representation {
   const bytes = gzipSync(json);
   return { bytes, etag: etagFn(res)?.(bytes) };
 }
