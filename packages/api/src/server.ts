@@ -1,10 +1,12 @@
 import { createApp } from './app.factory.js';
+import { lowerHelperThreads } from './common/thread-priority.js';
 
 const SHUTDOWN_TIMEOUT_MS = 10_000;
 
 async function bootstrap(): Promise<void> {
   const { app, config } = await createApp();
   await app.listen(config.port, config.host);
+  lowerHelperThreads(config.helperThreadNiceness);
 
   // SIGTERM/SIGINT: stop accepting, let in-flight requests finish, close the
   // databases and the fake mail server (Nest's shutdown hooks), then exit 0.

@@ -1,11 +1,12 @@
 import { mkdtempSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { getPriority, tmpdir } from 'node:os';
 import path from 'node:path';
 import { simpleParser } from 'mailparser';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { FakeSmtpServer } from '../src/mail/fake-smtp-server.js';
 import { startServerProcess, type ServerProcess } from './support/server-process.js';
+import { niceByThread } from './support/thread-nice.js';
 import { Client, DEMO, DEMO_PASSWORD } from './support/test-app.js';
 
 const dirs: string[] = [];
@@ -73,6 +74,18 @@ describe('production with SMTP_URL and PUBLIC_URL', () => {
     await c.refreshToken();
     return c;
   };
+
+  it('runs every thread but the event loop nicer (HELPER_THREAD_NICENESS, 10 unless set)', () => {
+    const nice = niceByThread(server.child.pid!);
+    // The server starts as nice as this runner (a CI job may itself run nicer).
+    const inherited = getPriority();
+    expect(nice.get(server.child.pid!)).toBe(inherited);
+    const helpers = [...nice].filter(([tid]) => tid !== server.child.pid);
+    // libuv's pool (16), V8's platform threads and more: the entry started them all.
+    expect(helpers.length).toBeGreaterThan(10);
+    for (const [tid, value] of helpers)
+      expect(value, `thread ${tid}`).toBe(Math.max(10, inherited));
+  });
 
   it('serves no outbox, as JSON or as a page', async () => {
     const c = await client();

@@ -21,6 +21,8 @@ export interface AppConfig {
   seedDemo: boolean;
   adminEmails: readonly string[];
   signInLimitPerMinute: number;
+  /** Applied by the server's entry (`lowerHelperThreads`), not by an app a test builds. */
+  helperThreadNiceness: number;
   /** What anyone can make the server do, per window (issue 13). */
   limits: {
     invitationsPerHouseholdPerHour: number;
@@ -80,6 +82,7 @@ export const appConfig = registerAs('app', (): AppConfig => {
     seedDemo,
     adminEmails: admins,
     signInLimitPerMinute: env.SIGN_IN_LIMIT_PER_MINUTE,
+    helperThreadNiceness: env.HELPER_THREAD_NICENESS,
     limits: {
       invitationsPerHouseholdPerHour: env.INVITATIONS_PER_HOUSEHOLD_PER_HOUR,
       invitationsPerAddressPerDay: env.INVITATIONS_PER_ADDRESS_PER_DAY,

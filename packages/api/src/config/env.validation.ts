@@ -87,6 +87,13 @@ export class EnvironmentVariables {
   @IsPositive()
   BODY_TIMEOUT_SECONDS = 60;
 
+  /** How much nicer than the event loop the server's other threads run (0: as nice as it). */
+  @Transform(({ value }) => Number(value))
+  @IsInt()
+  @Min(0)
+  @Max(19)
+  HELPER_THREAD_NICENESS = 10;
+
   /** Unset: the demo is seeded except in production, where only SEED_DEMO=true seeds it. */
   @IsOptional()
   @Transform(toBoolean)
