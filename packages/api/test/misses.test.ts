@@ -351,6 +351,16 @@ describe('POST /api/misses', () => {
       expect(res.status).toBe(404);
       expect(await footprint(t)).toEqual(before);
     });
+
+    it('answers 404 for an unknown student before refusing its photo', async () => {
+      // The student is looked up while the photo is decoded; the student's answer comes first.
+      const before = await footprint(t);
+      const res = await postMultipart(owner, '/api/misses', fields({ studentId: 999_999 }), [
+        { name: 'cut.jpg', data: fixture('truncated.jpg') },
+      ]);
+      expect(res.status, JSON.stringify(res.body)).toBe(404);
+      expect(await footprint(t)).toEqual(before);
+    });
   });
 
   describe('fails whole when a step fails', () => {
