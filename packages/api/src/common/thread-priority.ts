@@ -15,8 +15,8 @@ const LOOK_EVERY_MS = 2_000;
  *
  * Threads start later too (libuv's pool at its first task, libvips' when a photo is decoded);
  * one started by a helper inherits its niceness, and the rest are found at the next look.
- * Looks again every `everyMs`; returns a function that stops looking. Elsewhere than Linux, or with `niceness` 0, it does
- * nothing.
+ * Looks again every `everyMs`; returns a function that stops looking. Elsewhere than Linux,
+ * or with `niceness` 0, it does nothing.
  */
 export function lowerHelperThreads(niceness: number, everyMs = LOOK_EVERY_MS): () => void {
   if (process.platform !== 'linux' || niceness <= 0) return () => undefined;
