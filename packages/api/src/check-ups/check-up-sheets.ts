@@ -11,6 +11,7 @@ import {
   printable,
   RULE,
 } from '../common/pdf/pdf-document.js';
+import { addToList } from '../common/add-to-list.js';
 
 interface SheetHeader {
   readonly studentName: string;
@@ -74,7 +75,7 @@ export async function parentSheetPdf(sheet: StoredSheet, header: SheetHeader): P
     const byAnswer = new Map<string, string[]>();
     for (const h of sheet.hypotheses) {
       const answer = p.answers[h] as string;
-      byAnswer.set(answer, [...(byAnswer.get(answer) ?? []), answerMeaning(h)]);
+      addToList(byAnswer, answer, answerMeaning(h));
     }
     for (const [answer, meanings] of byAnswer) {
       ensureRoom(doc, 18);

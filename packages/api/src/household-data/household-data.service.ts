@@ -23,6 +23,7 @@ import {
   quoteIdentifier as q,
   type TableInfo,
 } from './household-tables.js';
+import { addToList } from '../common/add-to-list.js';
 
 type Row = Record<string, unknown>;
 
@@ -205,7 +206,7 @@ export class HouseholdDataService {
     this.primaryKeys.clear();
     for (const k of constraints) {
       if (k.kind === 'PRIMARY KEY') {
-        this.primaryKeys.set(k.table, [...(this.primaryKeys.get(k.table) ?? []), k.column]);
+        addToList(this.primaryKeys, k.table, k.column);
       } else if (k.ref_table) {
         infos.get(k.table)?.foreignKeys.push({
           column: k.column,

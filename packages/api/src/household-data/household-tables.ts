@@ -1,3 +1,5 @@
+import { addToList } from '../common/add-to-list.js';
+
 /**
  * Which tables hold a household's rows, read from the database's own foreign
  * keys: `households` itself, then every table with a foreign-key path to it
@@ -79,7 +81,7 @@ export function deletionOrder(tables: readonly HouseholdTable[]): HouseholdTable
   const byName = new Map(tables.map((t) => [t.name, t]));
   const children = new Map<string, string[]>();
   for (const t of tables) {
-    for (const p of t.parents) children.set(p, [...(children.get(p) ?? []), t.name]);
+    for (const p of t.parents) addToList(children, p, t.name);
   }
   const order: HouseholdTable[] = [];
   const done = new Set<string>();

@@ -21,6 +21,7 @@ import { DecodeSlots } from './decode-slots.js';
 import { Photo } from './models/photo.model.js';
 import { MAX_INPUT_PIXELS } from './photo-limits.js';
 import { PhotoPipeline, type ProcessedPhoto } from './photo-pipeline.service.js';
+import { addToList } from '../common/add-to-list.js';
 
 /** Which file of a photo: the display image, the thumbnail, or the list rows' small square. */
 export type PhotoFileKind = 'image' | 'thumb' | 'small';
@@ -239,9 +240,8 @@ export class PhotosService {
       ),
     ]);
     for (const p of photos) {
-      const list = map.get(p.missId) ?? [];
-      list.push(toPhotoJson({ ...p, createdAt: driverDate(p.createdAt) }, marks.get(p.id) ?? []));
-      map.set(p.missId, list);
+      const json = toPhotoJson({ ...p, createdAt: driverDate(p.createdAt) }, marks.get(p.id) ?? []);
+      addToList(map, p.missId, json);
     }
     return map;
   }
@@ -314,11 +314,7 @@ export class PhotosService {
        WHERE ${where} ORDER BY "id"`,
       params,
     );
-    for (const m of marks) {
-      const list = map.get(m.photoId) ?? [];
-      list.push({ id: m.id, x: m.x, y: m.y, label: m.label });
-      map.set(m.photoId, list);
-    }
+    for (const m of marks) addToList(map, m.photoId, { id: m.id, x: m.x, y: m.y, label: m.label });
     return map;
   }
 }

@@ -32,6 +32,7 @@ import { ReviewPlanItem } from './models/review-plan-item.model.js';
 import { ReviewPlan } from './models/review-plan.model.js';
 import { toPlanMiss } from './plan-miss.js';
 import { sameDayWarning, toPlanMissJson, toPlanSummary } from './review-plan-json.js';
+import { addToList } from '../common/add-to-list.js';
 
 const PLAN_FIELDS = [
   'id',
@@ -363,11 +364,7 @@ export class ReviewPlansService {
 /** Each item's misses, in the order read. */
 function linkMap(rows: readonly { itemId: number; missId: number }[]): Map<number, number[]> {
   const map = new Map<number, number[]>();
-  for (const r of rows) {
-    const misses = map.get(r.itemId);
-    if (misses) misses.push(r.missId);
-    else map.set(r.itemId, [r.missId]);
-  }
+  for (const r of rows) addToList(map, r.itemId, r.missId);
   return map;
 }
 

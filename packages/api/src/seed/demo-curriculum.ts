@@ -9,6 +9,7 @@ import { MissesService } from '../misses/misses.service.js';
 import { SittingMarksService } from '../sittings/sitting-marks.service.js';
 import { SittingsService } from '../sittings/sittings.service.js';
 import { StudentsService } from '../students/students.service.js';
+import { addToList } from '../common/add-to-list.js';
 
 export const DEMO_CURRICULUM_FILE = new URL(
   '../../../../seeds/demo-curriculum.json',
@@ -100,7 +101,7 @@ export class DemoCurriculumSeeder {
       const ids = saved.marks.flatMap((m) =>
         m.missId !== null && wrong.get(m.number ?? 0)?.cause ? [m.missId] : [],
       );
-      (byStatus.get(status) ?? byStatus.set(status, []).get(status)!).push(...ids);
+      addToList(byStatus, status, ...ids);
     }
     for (const [status, ids] of byStatus) await this.misses.setStatus(owner, ids, status);
     return demo.sittings.length;
