@@ -70,6 +70,20 @@ describe('on the home network', () => {
     await table.locator('.bp6-table-cell').first().waitFor();
     await capture(page, 'home-network-notebook-table');
 
+    // Each row's step error is read whole: the demo's titles wrap within the column, not cut.
+    const stepErrors = table.locator('.bp6-table-cell-col-7 .wb-row-hit');
+    expect(await stepErrors.count()).toBeGreaterThan(5);
+    const cut = await stepErrors.evaluateAll((cells) =>
+      cells
+        .filter((cell) =>
+          [cell, ...cell.querySelectorAll('*')].some(
+            (el) => el.scrollWidth > el.clientWidth + 1 || el.scrollHeight > el.clientHeight + 1,
+          ),
+        )
+        .map((cell) => cell.textContent),
+    );
+    expect(cut, 'step errors cut short').toEqual([]);
+
     expect(signedOutAnswersAside(watched.consoleErrors), 'console errors').toEqual([]);
     expect(watched.cspViolations, 'CSP violations').toEqual([]);
     await watched.context.close();

@@ -129,7 +129,13 @@ export function NotebookTable({
         const miss = misses[row];
         const first = miss ? shownRule(miss.ruleIds, filterRule) : undefined;
         const title = first ? ruleTitle(first) : miss?.checked ? '—' : 'Not checked';
-        return cell(row, title, first ? undefined : 'wb-muted', first ? title : undefined);
+        // Up to three lines: a step error's title is often longer than the column is wide.
+        return cell(
+          row,
+          <span className="wb-wrap-cell">{title}</span>,
+          first ? undefined : 'wb-muted',
+          first ? title : undefined,
+        );
       }}
     />,
     <Column
