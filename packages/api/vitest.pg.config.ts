@@ -42,5 +42,6 @@ export default defineConfig({
       'test/access-matrix.test.ts',
     ],
     globalSetup: ['test/support/global-setup-pg.ts'],
+    setupFiles: ['test/support/pg-one-query-at-a-time.ts'],
   },
 });

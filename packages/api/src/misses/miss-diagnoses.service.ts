@@ -1,5 +1,5 @@
 import { Injectable } from '@nestjs/common';
-import { InjectModel } from '@nestjs/sequelize';
+import { InjectConnection, InjectModel } from '@nestjs/sequelize';
 import {
   checkLines,
   type CheckedLines,
@@ -8,7 +8,9 @@ import {
   type WrittenSteps,
 } from '@workback/core';
 import type { Transaction } from 'sequelize';
+import type { Sequelize } from 'sequelize-typescript';
 import { fieldsError } from '../common/pipes/validation.pipe.js';
+import { allQueries } from '../database/in-transaction.js';
 import { insertThroughModel, type NewRows } from '../database/inserts.service.js';
 import { placeholders, SqlReader } from '../database/sql-reader.js';
 import { DiagnoseService, type Checked } from '../diagnose/diagnose.service.js';
@@ -27,6 +29,7 @@ export class MissDiagnosesService {
     @InjectModel(MissDiagnosis) private readonly diagnosisModel: typeof MissDiagnosis,
     private readonly diagnoser: DiagnoseService,
     private readonly reader: SqlReader,
+    @InjectConnection() private readonly sequelize: Sequelize,
   ) {}
 
   check(problem: string, answer: string, steps: WrittenSteps | null): Checked {
@@ -77,10 +80,10 @@ export class MissDiagnosesService {
       await this.ruleModel.destroy({ where: { missId: miss.id }, transaction });
     }
     const [diagnosis, rules] = this.newRows(miss.id, miss.householdId, checked, word);
-    // Both sent at once: neither waits on the other's answer.
-    await Promise.all([
-      insertThroughModel(diagnosis, transaction),
-      insertThroughModel(rules, transaction),
+    // Both sent at once where the database allows: neither waits on the other's answer.
+    await allQueries(this.sequelize, transaction, [
+      () => insertThroughModel(diagnosis, transaction),
+      () => insertThroughModel(rules, transaction),
     ]);
   }
 

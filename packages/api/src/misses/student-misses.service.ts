@@ -1,7 +1,10 @@
 import { Injectable } from '@nestjs/common';
+import { InjectConnection } from '@nestjs/sequelize';
 import type { Cause, MissStatus, PatternMiss } from '@workback/core';
 import type { Transaction } from 'sequelize';
+import type { Sequelize } from 'sequelize-typescript';
 import type { MemberContext } from '../common/member-context.js';
+import { allQueries } from '../database/in-transaction.js';
 import { placeholders, selectList, SqlReader, type SqlParam } from '../database/sql-reader.js';
 import { MissDiagnosesService } from './miss-diagnoses.service.js';
 import {
@@ -61,6 +64,7 @@ export class StudentMissesService {
   constructor(
     private readonly reader: SqlReader,
     private readonly diagnoses: MissDiagnosesService,
+    @InjectConnection() private readonly sequelize: Sequelize,
   ) {}
 
   /**
@@ -76,17 +80,18 @@ export class StudentMissesService {
     if (filter.statuses) where.addIn('"status"', filter.statuses);
     if (filter.ids) where.addIn('"id"', filter.ids);
     // Plain rows (SqlReader): read for plans, prints and the portfolio, never saved from here.
-    const read = this.reader.rows<RawMissRow & { linesCheck: unknown }>(
-      `SELECT ${WITH_DIAGNOSES_COLUMNS()} FROM "misses" WHERE ${where.sql()}
-       ORDER BY "occurred_on", "id"`,
-      where.params,
-      transaction,
-    );
-    // Misses asked for by id have their diagnoses read beside them (each row the member may see
-    // takes its own); otherwise the diagnoses wait for the rows' ids.
-    const [rows, byId] = await Promise.all([
+    const read = () =>
+      this.reader.rows<RawMissRow & { linesCheck: unknown }>(
+        `SELECT ${WITH_DIAGNOSES_COLUMNS()} FROM "misses" WHERE ${where.sql()}
+         ORDER BY "occurred_on", "id"`,
+        where.params,
+        transaction,
+      );
+    // Misses asked for by id have their diagnoses read beside them where the database allows
+    // (each row the member may see takes its own); otherwise the diagnoses wait for the rows' ids.
+    const [rows, byId] = await allQueries(this.sequelize, transaction, [
       read,
-      filter.ids ? this.diagnoses.diagnosesOf(filter.ids, transaction) : null,
+      async () => (filter.ids ? this.diagnoses.diagnosesOf(filter.ids, transaction) : null),
     ]);
     const diagnoses =
       byId ??

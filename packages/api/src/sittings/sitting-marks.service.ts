@@ -9,6 +9,7 @@ import { AnswerKey } from '../answer-keys/models/answer-key.model.js';
 import type { KeyItem } from '../answer-keys/models/key-item.model.js';
 import { sameAnswer as sameAnswerOf } from '../answer-keys/same-answer.js';
 import type { MemberContext } from '../common/member-context.js';
+import { allQueries, queriesSideBySide } from '../database/in-transaction.js';
 import { fieldsError } from '../common/pipes/validation.pipe.js';
 import { MarkedMissesService } from '../misses/marked-misses.service.js';
 import type { PutMarksDto } from './dto/put-marks.dto.js';
@@ -63,14 +64,15 @@ export class SittingMarksService implements OnModuleInit {
     if (savedAlready(dto, read)) return { ...this.sittings.toJson(read), misses: emptyChanges() };
     const { answerKeyId } = read.sitting;
     const changes = await this.sequelize.transaction(async (transaction) => {
-      // The four reads at once: each turn of the event loop is time the write queue waits.
-      // A sitting's answer key is fixed when it is made, so its items need not wait for it.
-      const [sitting, items, marks, misses] = await Promise.all([
-        this.sittings.findModel(member, id, transaction),
-        this.keys.itemsOf(answerKeyId, transaction),
-        this.markModel.findAll({ where: { sittingId: id }, transaction }),
-        this.misses.findForSitting(id, transaction),
-      ]);
+      // The four reads at once where the database allows (allQueries): each turn of the event
+      // loop is time the write queue waits. A sitting's answer key is fixed when it is made, so
+      // its items need not wait for it.
+      const [sitting, items, marks, misses] = await allQueries(this.sequelize, transaction, [
+        () => this.sittings.findModel(member, id, transaction),
+        () => this.keys.itemsOf(answerKeyId, transaction),
+        () => this.markModel.findAll({ where: { sittingId: id }, transaction }),
+        () => this.misses.findForSitting(id, transaction),
+      ] as const);
       const byId = itemsMarked(dto, items);
 
       const existing = new Map(marks.map((m) => [m.keyItemId, m]));
@@ -133,7 +135,7 @@ export class SittingMarksService implements OnModuleInit {
           );
         });
       }
-      return allItems(work, this.sequelize.getDialect() === 'sqlite');
+      return allItems(work, queriesSideBySide(this.sequelize, transaction));
     });
     // Read once committed, outside the transaction: this process's writes queue behind each
     // transaction, so it holds the queue only for what must be read and written together.

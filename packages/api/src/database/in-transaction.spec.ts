@@ -1,0 +1,47 @@
+import type { Transaction } from 'sequelize';
+import type { Sequelize } from 'sequelize-typescript';
+import { describe, expect, it } from 'vitest';
+import { allQueries } from './in-transaction.js';
+
+const on = (dialect: string) => ({ getDialect: () => dialect }) as unknown as Sequelize;
+const transaction = {} as Transaction;
+
+/** Three queries that log when each starts and ends, each answered a moment after it starts. */
+function queries(log: string[]) {
+  const query = (name: string, value: number) => async () => {
+    log.push(`start ${name}`);
+    await new Promise((resolve) => setTimeout(resolve, 1));
+    log.push(`end ${name}`);
+    return value;
+  };
+  return [query('a', 1), query('b', 2), query('c', 3)] as const;
+}
+
+const together = ['start a', 'start b', 'start c'];
+const inTurn = ['start a', 'end a', 'start b', 'end b', 'start c', 'end c'];
+
+describe('allQueries', () => {
+  it('sends a transaction’s queries side by side on SQLite, answered in order', async () => {
+    const log: string[] = [];
+    expect(await allQueries(on('sqlite'), transaction, queries(log))).toEqual([1, 2, 3]);
+    expect(log.slice(0, 3)).toEqual(together);
+  });
+
+  it('sends them one after another on PostgreSQL, where a transaction is one client', async () => {
+    const log: string[] = [];
+    expect(await allQueries(on('postgres'), transaction, queries(log))).toEqual([1, 2, 3]);
+    expect(log).toEqual(inTurn);
+  });
+
+  it('sends queries outside a transaction side by side on PostgreSQL (a client each)', async () => {
+    const log: string[] = [];
+    expect(await allQueries(on('postgres'), undefined, queries(log))).toEqual([1, 2, 3]);
+    expect(log.slice(0, 3)).toEqual(together);
+  });
+
+  it('passes on a failure', async () => {
+    const failing = [async () => 1, () => Promise.reject(new Error('no such table'))] as const;
+    await expect(allQueries(on('postgres'), transaction, failing)).rejects.toThrow('no such table');
+    await expect(allQueries(on('sqlite'), transaction, failing)).rejects.toThrow('no such table');
+  });
+});
