@@ -1,5 +1,6 @@
 import type { StoredSheet } from './models/check-up.model.js';
 import { answerMeaning } from './check-up-words.js';
+import { addToList } from '../common/add-to-list.js';
 import {
   ensureRoom,
   finish,
@@ -11,7 +12,6 @@ import {
   printable,
   RULE,
 } from '../common/pdf/pdf-document.js';
-import { addToList } from '../common/add-to-list.js';
 
 interface SheetHeader {
   readonly studentName: string;

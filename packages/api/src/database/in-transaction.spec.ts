@@ -39,6 +39,14 @@ describe('allQueries', () => {
     expect(log.slice(0, 3)).toEqual(together);
   });
 
+  it('on SQLite throws a failure only once every query sent beside it has finished', async () => {
+    const log: string[] = [];
+    const [, second] = queries(log);
+    const failing = [() => Promise.reject(new Error('disk full')), second] as const;
+    await expect(allQueries(on('sqlite'), transaction, failing)).rejects.toThrow('disk full');
+    expect(log).toEqual(['start b', 'end b']);
+  });
+
   it('passes on a failure', async () => {
     const failing = [async () => 1, () => Promise.reject(new Error('no such table'))] as const;
     await expect(allQueries(on('postgres'), transaction, failing)).rejects.toThrow('no such table');

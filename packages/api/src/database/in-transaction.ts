@@ -8,23 +8,29 @@ import type { Sequelize } from 'sequelize-typescript';
  * there a transaction is one client, which runs one query at a time, and a query sent while
  * another runs is queued by pg with a deprecation warning, and refused from pg 9.
  */
-export function queriesSideBySide(sequelize: Sequelize, transaction?: Transaction): boolean {
+function queriesSideBySide(sequelize: Sequelize, transaction?: Transaction): boolean {
   return !transaction || sequelize.getDialect() === 'sqlite';
 }
 
 /**
- * Queries that may share `transaction`, answered in order: side by side where
- * `queriesSideBySide`, else one after another.
+ * Queries (reads or writes) that may share `transaction`, answered in order: side by side where
+ * `queriesSideBySide`, else one after another. Side by side, every one finishes before the
+ * first failure is thrown, so none is still running when the transaction rolls back.
  */
 export async function allQueries<T extends readonly unknown[]>(
   sequelize: Sequelize,
   transaction: Transaction | undefined,
   queries: { readonly [K in keyof T]: () => PromiseLike<T[K]> },
 ): Promise<T> {
-  if (queriesSideBySide(sequelize, transaction)) {
-    return Promise.all(queries.map((query) => query())) as unknown as Promise<T>;
-  }
   const results: unknown[] = [];
-  for (const query of queries) results.push(await query());
+  if (queriesSideBySide(sequelize, transaction)) {
+    const settled = await Promise.allSettled(queries.map((query) => query()));
+    for (const answer of settled) {
+      if (answer.status === 'rejected') throw answer.reason;
+      results.push(answer.value);
+    }
+  } else {
+    for (const query of queries) results.push(await query());
+  }
   return results as unknown as T;
 }

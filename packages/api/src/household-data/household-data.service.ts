@@ -7,6 +7,7 @@ import { InjectConnection } from '@nestjs/sequelize';
 import { QueryTypes, type Transaction } from 'sequelize';
 import type { Sequelize } from 'sequelize-typescript';
 import yazl from 'yazl';
+import { addToList } from '../common/add-to-list.js';
 import type { MemberContext } from '../common/member-context.js';
 import type { AppConfig } from '../config/app.config.js';
 import { HouseholdsService } from '../households/households.service.js';
@@ -23,7 +24,6 @@ import {
   quoteIdentifier as q,
   type TableInfo,
 } from './household-tables.js';
-import { addToList } from '../common/add-to-list.js';
 
 type Row = Record<string, unknown>;
 

@@ -12,6 +12,7 @@ import { InjectConnection, InjectModel } from '@nestjs/sequelize';
 import type { Transaction } from 'sequelize';
 import type { Sequelize } from 'sequelize-typescript';
 import sharp from 'sharp';
+import { addToList } from '../common/add-to-list.js';
 import type { MemberContext } from '../common/member-context.js';
 import type { AppConfig } from '../config/app.config.js';
 import type { NewRows } from '../database/inserts.service.js';
@@ -21,7 +22,6 @@ import { DecodeSlots } from './decode-slots.js';
 import { Photo } from './models/photo.model.js';
 import { MAX_INPUT_PIXELS } from './photo-limits.js';
 import { PhotoPipeline, type ProcessedPhoto } from './photo-pipeline.service.js';
-import { addToList } from '../common/add-to-list.js';
 
 /** Which file of a photo: the display image, the thumbnail, or the list rows' small square. */
 export type PhotoFileKind = 'image' | 'thumb' | 'small';

@@ -11,6 +11,7 @@ import {
 } from '@workback/core';
 import { Op, type Transaction, type WhereOptions } from 'sequelize';
 import type { Sequelize } from 'sequelize-typescript';
+import { addToList } from '../common/add-to-list.js';
 import type { MemberContext } from '../common/member-context.js';
 import { fieldsError } from '../common/pipes/validation.pipe.js';
 import {
@@ -32,7 +33,6 @@ import { ReviewPlanItem } from './models/review-plan-item.model.js';
 import { ReviewPlan } from './models/review-plan.model.js';
 import { toPlanMiss } from './plan-miss.js';
 import { sameDayWarning, toPlanMissJson, toPlanSummary } from './review-plan-json.js';
-import { addToList } from '../common/add-to-list.js';
 
 const PLAN_FIELDS = [
   'id',

@@ -3,13 +3,13 @@ import { Injectable } from '@nestjs/common';
 import { MissStatus, type Cause } from '@workback/core';
 import { AnswerKeysService } from '../answer-keys/answer-keys.service.js';
 import type { KeyKind } from '../answer-keys/models/answer-key.model.js';
+import { addToList } from '../common/add-to-list.js';
 import type { MemberContext } from '../common/member-context.js';
 import { CurriculumService } from '../curriculum/curriculum.service.js';
 import { MissesService } from '../misses/misses.service.js';
 import { SittingMarksService } from '../sittings/sitting-marks.service.js';
 import { SittingsService } from '../sittings/sittings.service.js';
 import { StudentsService } from '../students/students.service.js';
-import { addToList } from '../common/add-to-list.js';
 
 export const DEMO_CURRICULUM_FILE = new URL(
   '../../../../seeds/demo-curriculum.json',

@@ -10,7 +10,7 @@ import type { KeyItem } from '../answer-keys/models/key-item.model.js';
 import { sameAnswer as sameAnswerOf } from '../answer-keys/same-answer.js';
 import type { MemberContext } from '../common/member-context.js';
 import { fieldsError } from '../common/pipes/validation.pipe.js';
-import { allQueries, queriesSideBySide } from '../database/in-transaction.js';
+import { allQueries } from '../database/in-transaction.js';
 import { MarkedMissesService } from '../misses/marked-misses.service.js';
 import type { PutMarksDto } from './dto/put-marks.dto.js';
 import { SittingMark } from './models/sitting-mark.model.js';
@@ -135,7 +135,7 @@ export class SittingMarksService implements OnModuleInit {
           );
         });
       }
-      return allItems(work, queriesSideBySide(this.sequelize, transaction));
+      return allItems(this.sequelize, transaction, work);
     });
     // Read once committed, outside the transaction: this process's writes queue behind each
     // transaction, so it holds the queue only for what must be read and written together.
@@ -354,19 +354,20 @@ type ItemWrites = (changes: MissChanges) => Promise<unknown>;
  * items' order. In a transaction on SQLite's write connection, statements sent together run
  * back to back on the worker threads; sent one after another, each waited for a turn of the
  * event loop while the transaction held the write lock every family's writes queue for (a
- * sitting's first marks held it 40–210 ms at 150 req/s). Every item's writes finish before an
- * error is thrown, so none is sent after the transaction has ended. PostgreSQL's client runs a
- * transaction's statements one at a time anyway: there they are sent in turn.
+ * sitting's first marks held it 40–210 ms at 150 req/s). `allQueries` lets every item's writes
+ * finish before an error is thrown, and sends them in turn on PostgreSQL.
  */
-async function allItems(work: readonly ItemWrites[], together: boolean): Promise<MissChanges> {
+async function allItems(
+  sequelize: Sequelize,
+  transaction: Transaction,
+  work: readonly ItemWrites[],
+): Promise<MissChanges> {
   const each = work.map(() => emptyChanges());
-  if (!together) {
-    for (const [i, writes] of work.entries()) await writes(each[i]!);
-  } else {
-    const settled = await Promise.allSettled(work.map((writes, i) => writes(each[i]!)));
-    const failed = settled.find((s) => s.status === 'rejected');
-    if (failed) throw failed.reason;
-  }
+  await allQueries(
+    sequelize,
+    transaction,
+    work.map((writes, i) => () => writes(each[i]!)),
+  );
   const merged = emptyChanges();
   for (const changes of each)
     for (const key of Object.keys(merged) as (keyof MissChanges)[])
