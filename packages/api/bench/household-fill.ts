@@ -1,4 +1,5 @@
 import type { Sequelize } from 'sequelize-typescript';
+import { mergeSearchIndex } from '../src/database/search-index.js';
 
 export interface FillOptions {
   householdId: number;
@@ -138,6 +139,8 @@ export async function fillHousehold(sequelize: Sequelize, o: FillOptions): Promi
     await run('DROP TABLE tmpl');
     await run('DROP TABLE stmpl');
   });
+  // As a bulk load ends: the text index left in one piece, not for a parent's write to merge.
+  await mergeSearchIndex(sequelize);
   await sequelize.query('ANALYZE');
 }
 
@@ -431,5 +434,7 @@ export async function fillFamilies(sequelize: Sequelize, o: FamiliesOptions): Pr
       await run(`DROP TABLE ${t}`);
     }
   });
+  // As a bulk load ends: the text index left in one piece, not for a parent's write to merge.
+  await mergeSearchIndex(sequelize);
   await sequelize.query('ANALYZE');
 }

@@ -1,9 +1,11 @@
 import { readFileSync } from 'node:fs';
 import { getConnectionToken } from '@nestjs/sequelize';
 import { CAUSES, MISS_STATUSES, RULE_GROUPS } from '@workback/core';
+import { QueryTypes } from 'sequelize';
 import type { Sequelize } from 'sequelize-typescript';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import * as search0014 from '../src/database/migrations/0014-miss-search-by-household.js';
+import * as search0015 from '../src/database/migrations/0015-miss-search-merged.js';
 import { studentIds } from './support/photos.js';
 import {
   type Client,
@@ -244,6 +246,50 @@ describe('GET /api/misses filters', () => {
     await search0014.down({ context: qi });
     await search0014.up({ context: qi });
     expect(await ids('q=carried')).toEqual(before);
+  });
+
+  it('merges the text search into one segment (migration 0015) and finds the same misses', async () => {
+    const sequelize = t.app.get<Sequelize>(getConnectionToken());
+    const sqlite = sequelize.getDialect() === 'sqlite';
+    // FTS5 keeps the entries of each write apart (a segment) until it merges them; each row of
+    // misses_search_idx names one segment's leaf page (SQLite's FTS5 documentation).
+    const segments = async () => {
+      const [row] = await sequelize.query<{ n: number }>(
+        'SELECT COUNT(DISTINCT segid) AS n FROM misses_search_idx',
+        { type: QueryTypes.SELECT },
+      );
+      return Number(row!.n);
+    };
+    // Another household's misses, each logged on its own (a write, a segment), so this
+    // household's lists are as the other tests expect them.
+    const other = await registered(t, 'segments@example.test', 'Segments household');
+    const cy = await other.post('/api/students', { name: 'Cy', gradeLevel: '4' }).expect(201);
+    for (let i = 0; i < 3; i++) {
+      await other
+        .post('/api/misses', {
+          studentId: cy.body.id,
+          occurredOn: '2025-02-01',
+          problem: '72 - 48',
+          answer: '36',
+          explanation: `try ${i}: I took the small digit from the big one`,
+        })
+        .expect(201);
+    }
+    const theirs = async (q: string) => {
+      const res = await other.get(`/api/misses?pageSize=100&q=${q}`).expect(200);
+      return (res.body.items as { id: number }[]).map((m) => m.id).sort((a, b) => a - b);
+    };
+    const before = { ours: await ids('q=carried'), theirs: await theirs('small%20digit') };
+    expect(before.theirs).toHaveLength(3);
+    if (sqlite) expect(await segments()).toBeGreaterThan(1);
+
+    await search0015.up({ context: sequelize.getQueryInterface() });
+
+    if (sqlite) expect(await segments()).toBe(1);
+    // Searches not asked before, so no kept page answers them: the merged index does.
+    expect({ ours: await ids('q=carried%20the'), theirs: await theirs('digit%20from') }).toEqual(
+      before,
+    );
   });
 
   it('finds the rule in the diagnosis of the seeded borrow-across-zero misses', () => {

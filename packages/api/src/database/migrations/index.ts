@@ -12,6 +12,7 @@ import * as m0011 from './0011-check-ups.js';
 import * as m0012 from './0012-word-problem-lines.js';
 import * as m0013 from './0013-miss-kind.js';
 import * as m0014 from './0014-miss-search-by-household.js';
+import * as m0015 from './0015-miss-search-merged.js';
 
 /** Every migration in order; listed explicitly so src and dist behave alike. */
 export const MIGRATIONS = [
@@ -29,4 +30,5 @@ export const MIGRATIONS = [
   m0012,
   m0013,
   m0014,
+  m0015,
 ];
