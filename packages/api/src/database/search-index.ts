@@ -1,4 +1,4 @@
-import type { Sequelize, Transaction } from 'sequelize';
+import type { Sequelize } from 'sequelize';
 
 /**
  * Merges the notebook's text index on SQLite (FTS5's `misses_search`) into one segment.
@@ -8,16 +8,12 @@ import type { Sequelize, Transaction } from 'sequelize';
  * (`crisismerge`) (SQLite's FTS5 documentation: the 'optimize' command and the 'automerge' and
  * 'crisismerge' options). An index built in one statement (migration 0014's rebuild, a bulk fill)
  * is left in many segments, and the write that tips a level over merges them on the spot. On
- * 600,000 misses in 17 segments one insert took 569 ms of CPU, holding the write lock that every
- * family's writes queue for. Merged once (0.9 s), the next 18,000 inserts one at a time took at
- * most 50 ms each. PostgreSQL has no such index (its pg_trgm indexes are ordinary).
+ * 600,000 misses in 17 segments one insert took 569 ms with the machine otherwise idle, and
+ * under load such a write held the write lock that every family's writes queue for. Merged once
+ * (0.9 s), the next 18,000 inserts one at a time took at most 50 ms each. On PostgreSQL there is
+ * nothing to merge (pg_trgm's indexes).
  */
-export async function mergeSearchIndex(
-  sequelize: Sequelize,
-  transaction?: Transaction,
-): Promise<void> {
+export async function mergeSearchIndex(sequelize: Sequelize): Promise<void> {
   if (sequelize.getDialect() !== 'sqlite') return;
-  await sequelize.query("INSERT INTO misses_search(misses_search) VALUES('optimize')", {
-    transaction,
-  });
+  await sequelize.query("INSERT INTO misses_search(misses_search) VALUES('optimize')");
 }
