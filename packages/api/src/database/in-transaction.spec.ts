@@ -21,9 +21,12 @@ const together = ['start a', 'start b', 'start c'];
 const inTurn = ['start a', 'end a', 'start b', 'end b', 'start c', 'end c'];
 
 describe('allQueries', () => {
-  it('sends a transaction’s queries side by side on SQLite, answered in order', async () => {
+  it.each([
+    ['a transaction’s queries on SQLite', 'sqlite', transaction],
+    ['queries outside a transaction on PostgreSQL (a client each)', 'postgres', undefined],
+  ])('sends %s side by side, answered in order', async (_, dialect, within) => {
     const log: string[] = [];
-    expect(await allQueries(on('sqlite'), transaction, queries(log))).toEqual([1, 2, 3]);
+    expect(await allQueries(on(dialect), within, queries(log))).toEqual([1, 2, 3]);
     expect(log.slice(0, 3)).toEqual(together);
   });
 
@@ -31,12 +34,6 @@ describe('allQueries', () => {
     const log: string[] = [];
     expect(await allQueries(on('postgres'), transaction, queries(log))).toEqual([1, 2, 3]);
     expect(log).toEqual(inTurn);
-  });
-
-  it('sends queries outside a transaction side by side on PostgreSQL (a client each)', async () => {
-    const log: string[] = [];
-    expect(await allQueries(on('postgres'), undefined, queries(log))).toEqual([1, 2, 3]);
-    expect(log.slice(0, 3)).toEqual(together);
   });
 
   it('on SQLite throws a failure only once every query sent beside it has finished', async () => {
