@@ -268,6 +268,34 @@ describe('marks and misses', () => {
     expect(await missesOf(s.id)).toHaveLength(1);
   });
 
+  it('saves a sitting’s first marks sent six times at once (a second tap, two parents) once, answering each', async () => {
+    const s = await sitting(wren, '2026-02-04T16:00');
+    const marks = [
+      { keyItemId: item(1), correct: false, answer: '57' },
+      { keyItemId: item(2), correct: false, answer: '339' },
+      { keyItemId: item(3), correct: true },
+    ];
+    // On PostgreSQL, without the sitting's row lock, all but the first failed 409 on the
+    // marks' unique index: each read no marks, then inserted them.
+    const saves = await Promise.all(Array.from({ length: 6 }, () => putMarks(s.id, marks)));
+    expect(saves.map((r) => `${r.status} ${r.status === 200 ? '' : r.text}`)).toEqual(
+      Array(6).fill('200 '),
+    );
+    const created = saves.flatMap((r) => r.body.misses.createdMissIds as number[]);
+    expect(created).toHaveLength(2);
+    const whole = await owner.get(`/api/sittings/${s.id}`).expect(200);
+    expect(whole.body.marks.map((m: { number: number }) => m.number).sort()).toEqual([1, 2, 3]);
+    expect((await missesOf(s.id)).map((m) => m.id).sort()).toEqual([...created].sort());
+
+    // Then all turned right at once: each miss resolved once, by one of the saves.
+    const right = marks.map((m) => ({ keyItemId: m.keyItemId, correct: true }));
+    const turned = await Promise.all(Array.from({ length: 6 }, () => putMarks(s.id, right)));
+    expect(turned.map((r) => r.status)).toEqual(Array(6).fill(200));
+    const resolved = turned.flatMap((r) => r.body.misses.resolvedMissIds as number[]);
+    expect(resolved.sort()).toEqual([...created].sort());
+    expect((await missesOf(s.id)).map((m) => m.status)).toEqual(['resolved', 'resolved']);
+  });
+
   it('resolves the miss when a wrong mark turns right, and reopens it when it turns wrong again', async () => {
     const s = await sitting(wren, '2026-02-05T10:00');
     const made = await putMarks(s.id, [

@@ -66,9 +66,10 @@ export class SittingMarksService implements OnModuleInit {
     const changes = await this.sequelize.transaction(async (transaction) => {
       // The four reads at once where the database allows (allQueries): each turn of the event
       // loop is time the write queue waits. A sitting's answer key is fixed when it is made, so
-      // its items need not wait for it.
+      // its items need not wait for it. Where they go in turn (PostgreSQL) the sitting's row
+      // lock comes first, so the marks read are the ones a save just before committed.
       const [sitting, items, marks, misses] = await allQueries(this.sequelize, transaction, [
-        () => this.sittings.findModel(member, id, transaction),
+        () => this.sittings.lockModel(member, id, transaction),
         () => this.keys.itemsOf(answerKeyId, transaction),
         () => this.markModel.findAll({ where: { sittingId: id }, transaction }),
         () => this.misses.findForSitting(id, transaction),

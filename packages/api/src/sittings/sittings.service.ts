@@ -1,6 +1,6 @@
 import { Injectable, NotFoundException } from '@nestjs/common';
 import { InjectModel } from '@nestjs/sequelize';
-import { Op, type Transaction, type WhereOptions } from 'sequelize';
+import { type FindOptions, Op, type Transaction, type WhereOptions } from 'sequelize';
 import { AnswerKeysService } from '../answer-keys/answer-keys.service.js';
 import { AnswerKey } from '../answer-keys/models/answer-key.model.js';
 import type { MemberContext } from '../common/member-context.js';
@@ -106,10 +106,31 @@ export class SittingsService {
 
   /** 404 both for what does not exist and for a sitting of a student the member may not see. */
   async findModel(member: MemberContext, id: number, transaction?: Transaction) {
+    return this.readModel(member, id, { transaction });
+  }
+
+  /**
+   * The sitting, its row locked until `transaction` ends where the database locks rows
+   * (PostgreSQL): two saves of one sitting's marks at once then go in turn, and the second
+   * finds the first's marks instead of inserting them again (a unique index refused it, 409).
+   * SQLite ignores the lock; this process's write queue already runs its transactions in turn.
+   */
+  async lockModel(member: MemberContext, id: number, transaction: Transaction) {
+    return this.readModel(member, id, {
+      transaction,
+      lock: { level: transaction.LOCK.UPDATE, of: this.sittingModel },
+    });
+  }
+
+  private async readModel(
+    member: MemberContext,
+    id: number,
+    options: Pick<FindOptions, 'transaction' | 'lock'>,
+  ) {
     const sitting = await this.sittingModel.findOne({
       where: { [Op.and]: [this.scope(member), { id }] },
       include: [AnswerKey],
-      transaction,
+      ...options,
     });
     if (!sitting) throw new NotFoundException(`No sitting ${id} in this household`);
     return sitting;
