@@ -9,7 +9,14 @@ import { createApp } from '../src/app.factory.js';
 import { startServerProcess } from '../test/support/server-process.js';
 import { type Figure, report } from './figures.js';
 import { fillFamilies } from './household-fill.js';
-import { type KindStats, type LoadRequest, openLoop, type OpenLoopResult } from './open-loop.js';
+import {
+  failureSummary,
+  type KindStats,
+  type LoadRequest,
+  noteFailure,
+  openLoop,
+  type OpenLoopResult,
+} from './open-loop.js';
 import { throwawayDatabase } from './postgres.js';
 import { type Session, signIn } from '../test/support/sign-in.js';
 import { percentile, processCpuMs, table } from './stats.js';
@@ -305,7 +312,7 @@ async function burstsAt(base: string, rate: number, draw: () => LoadRequest<Kind
   instance.on('response', (_client, status, _bytes, time) => {
     const stats = byKind.get(last)!;
     stats.times.push(time);
-    if (status < 200 || status >= 300) stats.failed += 1;
+    if (status < 200 || status >= 300) noteFailure(stats, String(status));
   });
   const result: Result = await instance;
   const times = [...byKind.values()].flatMap((k) => k.times).sort((a, b) => a - b);
@@ -422,6 +429,8 @@ async function familiesOn(db: Database): Promise<RateResult[]> {
             `  ${rate} req/s offered (${load}): p99 ${Math.round(percentile(run.times, 99))} ms, ` +
               `${run.errors} errors or unanswered`,
           );
+          const failures = failureSummary(run.byKind);
+          if (failures) console.log(`    failed: ${failures}`);
         }
       }
       return results;

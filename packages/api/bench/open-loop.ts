@@ -13,6 +13,24 @@ export interface KindStats {
   times: number[];
   /** Answers that were not 2xx, and requests that failed or were not answered in time. */
   failed: number;
+  /** What each failure was: the answer's status, or the request's error code, counted. */
+  why?: Map<string, number>;
+}
+
+/** Counts one failure of a kind under `why` (a status such as 500, or an error code). */
+export function noteFailure(stats: KindStats, why: string): void {
+  stats.failed++;
+  stats.why ??= new Map();
+  stats.why.set(why, (stats.why.get(why) ?? 0) + 1);
+}
+
+/** The failures of a run, worst first: `S 500 ×2, M ECONNRESET ×1`; empty without any. */
+export function failureSummary<K extends string>(byKind: Map<K, KindStats>): string {
+  return [...byKind]
+    .flatMap(([kind, s]) => [...(s.why ?? [])].map(([why, n]) => ({ what: `${kind} ${why}`, n })))
+    .sort((a, b) => b.n - a.n)
+    .map(({ what, n }) => `${what} ×${n}`)
+    .join(', ');
 }
 
 export interface OpenLoopResult<K extends string> {
@@ -72,11 +90,9 @@ export async function openLoop<K extends string>(options: {
         await body.dump({ limit: Infinity });
         answered++;
         stats.times.push(performance.now() - due);
-        if (statusCode < 200 || statusCode >= 300) stats.failed++;
+        if (statusCode < 200 || statusCode >= 300) noteFailure(stats, String(statusCode));
       })
-      .catch(() => {
-        stats.failed++;
-      })
+      .catch((err: { code?: string }) => noteFailure(stats, err.code ?? 'no answer'))
       .finally(() => pending.delete(done));
     pending.add(done);
   };
