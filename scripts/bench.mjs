@@ -1,9 +1,17 @@
-// `npm run bench`: every package's benchmark in turn (each prints its own detail), then one
-// table of the figures they reported. Figures only: nothing here passes or fails a build.
+// `npm run bench`: the build, then every package's benchmark in turn (each prints its own
+// detail), then one table of the figures they reported. Figures only: nothing here passes or
+// fails a build.
 import { spawnSync } from 'node:child_process';
 import { existsSync, mkdtempSync, readdirSync, readFileSync, rmSync } from 'node:fs';
 import { availableParallelism, cpus, tmpdir } from 'node:os';
 import path from 'node:path';
+
+// The web bench serves the built app (a phone on slow 4G in Chromium): built first, so a fresh
+// checkout can bench, and no bench measures an older build than the code beside it.
+if (spawnSync('npm', ['run', 'build'], { stdio: 'inherit' }).status !== 0) {
+  console.error('\nthe build failed: no benchmark ran');
+  process.exit(1);
+}
 
 const dir = mkdtempSync(path.join(tmpdir(), 'workback-bench-report-'));
 const report = path.join(dir, 'figures.jsonl');
@@ -38,7 +46,6 @@ if (!env.BENCH_DATABASE_URL && !env.TEST_DATABASE_URL && initdb()) {
 }
 
 let failed = false;
-// The web bench serves the built app (`npm run build` first): a phone on slow 4G in Chromium.
 for (const workspace of ['packages/core', 'packages/api', 'packages/web']) {
   const run = spawnSync('npm', ['run', 'bench', '-w', workspace], { stdio: 'inherit', env });
   if (run.status !== 0) {
