@@ -4,6 +4,7 @@ import { type FindOptions, Op, type Transaction, type WhereOptions } from 'seque
 import { AnswerKeysService } from '../answer-keys/answer-keys.service.js';
 import { AnswerKey } from '../answer-keys/models/answer-key.model.js';
 import type { MemberContext } from '../common/member-context.js';
+import { rowLock } from '../database/row-lock.js';
 import { fieldsError } from '../common/pipes/validation.pipe.js';
 import { checkCalendarDate } from '../misses/dto/calendar-date.validator.js';
 import { MarkedMissesService } from '../misses/marked-misses.service.js';
@@ -110,15 +111,14 @@ export class SittingsService {
   }
 
   /**
-   * The sitting, its row locked until `transaction` ends where the database locks rows
-   * (PostgreSQL): two saves of one sitting's marks at once then go in turn, and the second
-   * finds the first's marks instead of inserting them again (a unique index refused it, 409).
-   * SQLite ignores the lock; this process's write queue already runs its transactions in turn.
+   * The sitting, its row locked until `transaction` ends (rowLock): two saves of one sitting's
+   * marks at once go in turn, and the second finds the first's marks instead of inserting them
+   * again (on PostgreSQL the marks' unique index refused it, 409).
    */
   async lockModel(member: MemberContext, id: number, transaction: Transaction) {
     return this.readModel(member, id, {
       transaction,
-      lock: { level: transaction.LOCK.UPDATE, of: this.sittingModel },
+      lock: rowLock(transaction, this.sittingModel),
     });
   }
 
