@@ -13,7 +13,10 @@ type Client = pg.Client & { _activeQuery?: unknown; _queryQueue?: unknown[] };
 const sentAlongside: string[] = [];
 const query = pg.Client.prototype.query as (this: Client, ...args: unknown[]) => unknown;
 pg.Client.prototype.query = function (this: Client, ...args: unknown[]) {
-  if (this._activeQuery || this._queryQueue?.length) {
+  // pg's own fields (pinned at 8.23): were they renamed, this watch would see nothing and pass.
+  if (!Array.isArray(this._queryQueue)) {
+    sentAlongside.push('pg.Client has no _queryQueue: this check no longer sees queued queries');
+  } else if (this._activeQuery || this._queryQueue.length) {
     const stack = new Error().stack?.split('\n') ?? [];
     sentAlongside.push(
       stack
