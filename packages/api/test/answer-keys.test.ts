@@ -415,6 +415,83 @@ describe('corrections', () => {
     expect(history.body.corrections).toHaveLength(1);
   });
 
+  it('saves a correction adding an item sent six times at once in turn, answering each', async () => {
+    const key = await createKey({
+      title: 'Worksheet 12',
+      kind: 'worksheet',
+      items: [
+        { number: 1, prompt: '81 - 38', answer: '53' },
+        { number: 2, prompt: '58 + 67', answer: '125' },
+      ],
+    });
+    const [misprint, right] = key.items as [KeyJson['items'][0], KeyJson['items'][0]];
+    const sitting = await owner
+      .post('/api/sittings', {
+        studentId: milo,
+        answerKeyId: key.id,
+        startedAt: '2026-01-08T10:00',
+      })
+      .expect(201);
+    await owner
+      .send('put', `/api/sittings/${sitting.body.id}/marks`, {
+        marks: [
+          { keyItemId: misprint.id, correct: true },
+          { keyItemId: right.id, correct: true },
+        ],
+      })
+      .expect(200);
+    const correction = {
+      reason: 'Item 1 was misprinted, and item 3 was left off',
+      items: [
+        { id: misprint.id, number: 1, prompt: '81 - 38', answer: '43' },
+        { id: right.id, number: 2, prompt: '58 + 67', answer: '125' },
+        { number: 3, prompt: '365 + 574', answer: '939' },
+      ],
+    };
+    // On PostgreSQL, without the key's row lock, all but the first failed 409 on the items'
+    // unique (key, number) index: each read the key's items before the others' item 3.
+    const saves = await Promise.all(
+      Array.from({ length: 6 }, () =>
+        owner.send('patch', `/api/answer-keys/${key.id}`, correction),
+      ),
+    );
+    expect(saves.map((r) => `${r.status} ${r.status === 200 ? '' : r.text}`)).toEqual(
+      Array(6).fill('200 '),
+    );
+    type Correction = { itemNumber: number; changes: Record<string, unknown> };
+    const made = saves.flatMap((r) => r.body.newCorrections as Correction[]);
+    // One corrected item 1 and re-marked the sitting; the others found it corrected already…
+    expect(made.filter((c) => 'answer' in c.changes)).toEqual([
+      expect.objectContaining({ itemNumber: 1, changes: { answer: { from: '53', to: '43' } } }),
+    ]);
+    const remarked = saves.flatMap(
+      (r) => r.body.remarkedSittings as { sittingId: number; newMissIds: number[] }[],
+    );
+    expect(remarked).toEqual([
+      expect.objectContaining({
+        sittingId: sitting.body.id,
+        after: { correct: 1, marked: 2 },
+        newMissIds: [expect.any(Number)],
+      }),
+    ]);
+    // …and, as the same correction sent again in turn does, replaced item 3 (sent without an id).
+    expect(made.filter((c) => 'removed' in c.changes).map((c) => c.itemNumber)).toEqual(
+      Array(5).fill(3),
+    );
+    expect(made).toHaveLength(6);
+    const now = await owner.get(`/api/answer-keys/${key.id}`).expect(200);
+    expect(
+      now.body.items.map((i: { number: number; answer: string }) => [i.number, i.answer]),
+    ).toEqual([
+      [1, '43'],
+      [2, '125'],
+      [3, '939'],
+    ]);
+    expect(now.body.corrections).toHaveLength(6);
+    const score = await owner.get(`/api/sittings/${sitting.body.id}`).expect(200);
+    expect(score.body.score).toMatchObject({ correct: 1, marked: 2, items: 3 });
+  });
+
   it('refuses to remove an item that has marks, and keeps it', async () => {
     const key = await createKey({
       title: 'Worksheet 11',

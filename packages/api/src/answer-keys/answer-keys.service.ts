@@ -1,6 +1,6 @@
 import { ConflictException, Injectable, NotFoundException } from '@nestjs/common';
 import { InjectConnection, InjectModel } from '@nestjs/sequelize';
-import { Op, type Transaction } from 'sequelize';
+import { type FindOptions, Op, type Transaction } from 'sequelize';
 import type { Sequelize } from 'sequelize-typescript';
 import { revisitLessons } from '@workback/core';
 import type { MemberContext } from '../common/member-context.js';
@@ -102,10 +102,16 @@ export class AnswerKeysService {
   }
 
   /** 404 both for what does not exist and for another household's key. */
-  async findKeyModel(member: MemberContext, id: number, transaction?: Transaction) {
+  async findKeyModel(
+    member: MemberContext,
+    id: number,
+    transaction?: Transaction,
+    lock?: FindOptions['lock'],
+  ) {
     const key = await this.keyModel.findOne({
       where: { id, householdId: member.householdId },
       transaction,
+      lock,
     });
     if (!key) throw new NotFoundException(`No answer key ${id} in this household`);
     return key;
