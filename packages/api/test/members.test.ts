@@ -112,6 +112,30 @@ describe('changing', () => {
     await tutor.get(`/api/students/${wren}`).expect(404);
   });
 
+  it('changes a tutor’s students sent six times at once (a second tap, two parents) once, answering each', async () => {
+    const tutor = await newTutor('grants-at-once@example.test', [wren]);
+    const m = await byEmail('grants-at-once@example.test');
+    // On PostgreSQL, without the membership's row lock, all but the first failed 409 on the
+    // grants' primary key: the role was unchanged, so nothing held the row while each deleted
+    // the grants it saw and inserted the new ones.
+    const changes = await Promise.all(
+      Array.from({ length: 6 }, () =>
+        owner.send('patch', `/api/members/${m.id}`, { studentIds: [milo, wren] }),
+      ),
+    );
+    expect(changes.map((r) => `${r.status} ${r.status === 200 ? '' : r.text}`)).toEqual(
+      Array(6).fill('200 '),
+    );
+    const both = [milo, wren].sort((a, b) => a - b);
+    for (const r of changes) expect(r.body).toMatchObject({ role: 'tutor', studentIds: both });
+    expect((await byEmail('grants-at-once@example.test')).studentIds).toEqual(both);
+    expect(
+      (await tutor.get('/api/students').expect(200)).body.items
+        .map((s: { id: number }) => s.id)
+        .sort((a: number, b: number) => a - b),
+    ).toEqual(both);
+  });
+
   it('refuses an empty grant, a foreign student, students for a parent, and an empty body', async () => {
     const m = await byEmail(DEMO.tutor);
     const empty = await owner.send('patch', `/api/members/${m.id}`, { studentIds: [] });
