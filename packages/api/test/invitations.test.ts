@@ -20,8 +20,10 @@ beforeAll(async () => {
   t = await startTestApp({
     SMTP_URL: '',
     SIGN_IN_LIMIT_PER_MINUTE: '1000',
-    // This file sends more invitations than a household may in an hour (abuse-limits tests them).
+    // This file sends more invitations than a household may in an hour, and than an address may
+    // get in a day (abuse-limits tests both).
     INVITATIONS_PER_HOUSEHOLD_PER_HOUR: '1000',
+    INVITATIONS_PER_ADDRESS_PER_DAY: '1000',
   });
   owner = await signedIn(t, DEMO.owner);
   const students = (await owner.get('/api/students').expect(200)).body.items as {
@@ -156,6 +158,41 @@ describe('inviting', () => {
       (i: { email: string }) => i.email === 'twice@example.test',
     );
     expect(open).toHaveLength(1);
+  });
+
+  it('keeps the newest of five invitations sent at once to one address, and its mailed link works', async () => {
+    const email = 'five-at-once@example.test';
+    // Without the "older than the new one" rule each removed every other open invitation to the
+    // address, the others' new ones too, so no mailed link worked.
+    const sent = await Promise.all(
+      Array.from({ length: 5 }, () => owner.post('/api/invitations', { email, role: 'parent' })),
+    );
+    expect(sent.map((r) => `${r.status} ${r.status === 201 ? '' : r.text}`)).toEqual(
+      Array(5).fill('201 '),
+    );
+    const newest = Math.max(...sent.map((r) => r.body.id as number));
+    const open = (await owner.get('/api/invitations').expect(200)).body.items.filter(
+      (i: { email: string }) => i.email === email,
+    );
+    expect(open.map((i: { id: number }) => i.id)).toEqual([newest]);
+
+    const mailed = (await outbox(owner)).filter((m) => m.to === email);
+    expect(mailed).toHaveLength(5);
+    const anon = await anonymous();
+    const previews = await Promise.all(
+      mailed.map(async (m) => ({
+        path: linkPath(m, '/invitations/'),
+        status: (await anon.get(`/api${linkPath(m, '/invitations/')}`)).status,
+      })),
+    );
+    expect(previews.map((p) => p.status).sort()).toEqual([200, 404, 404, 404, 404]);
+    const working = previews.find((p) => p.status === 200)!.path;
+    await anon
+      .post(`/api${working}/accept`, { displayName: 'Five', password: 'a-good-long-password' })
+      .expect(200);
+    expect((await owner.get('/api/members').expect(200)).body.items).toContainEqual(
+      expect.objectContaining({ email, role: 'parent' }),
+    );
   });
 });
 

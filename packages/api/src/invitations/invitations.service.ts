@@ -108,13 +108,14 @@ export class InvitationsService {
       await invitation.destroy();
       throw err;
     }
-    // A fresh invitation replaces any earlier open one to the same address.
+    // A fresh invitation replaces any earlier open one to the same address. Only earlier ones:
+    // of two sent at once, each removing the other's would leave neither mailed link working.
     await this.invitationModel.destroy({
       where: {
         householdId: member.householdId,
         email,
         acceptedAt: null,
-        id: { [Op.ne]: invitation.id },
+        id: { [Op.lt]: invitation.id },
       },
     });
     invitation.invitedBy = await this.users.findById(inviter.id);
