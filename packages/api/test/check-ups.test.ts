@@ -225,6 +225,63 @@ describe('taking a check-up', () => {
     expect(across!.contradictions.some((c) => against.has(c.problem))).toBe(true);
   });
 
+  it('takes a check-up whose answers are sent five times at once (a double tap, a retry) once, answering each', async () => {
+    const checkUp = await makeCheckUp(owner, { studentId: milo, ruleIds: RULES, digits: 4 });
+    const answers = checkUp.problems.map((p) => p.answers['sub.borrow-across-zero']!);
+    const wrong = checkUp.problems.filter(
+      (p) => p.answers['sub.borrow-across-zero'] !== p.answers.correct,
+    ).length;
+    expect(wrong).toBeGreaterThan(0);
+    const body = {
+      startedAt: '2026-11-23T16:45',
+      minutes: 10,
+      conditions: { rested: true, note: 'after the walk' },
+      answers,
+    };
+    const sittingsOfMilo = async () =>
+      (await owner.get(`/api/sittings?studentId=${milo}`).expect(200)).body.total as number;
+    const missesOfMilo = async () =>
+      (await owner.get(`/api/misses?studentId=${milo}&pageSize=100`).expect(200)).body.items as {
+        id: number;
+        sittingId: number | null;
+      }[];
+    const sittingsBefore = await sittingsOfMilo();
+    const missesBefore = (await missesOfMilo()).length;
+    const send = (b: object) => owner.post(`/api/check-ups/${checkUp.id}/answers`, b);
+
+    // Each read the check-up not taken yet, and each made a sitting and its misses.
+    const sends = await Promise.all(Array.from({ length: 5 }, () => send(body)));
+    expect(sends.map((r) => `${r.status} ${r.status === 201 ? '' : r.text}`)).toEqual(
+      Array(5).fill('201 '),
+    );
+    const sittingIds = new Set(sends.map((r) => r.body.sittingId as number));
+    expect(sittingIds.size).toBe(1);
+    const [sittingId] = [...sittingIds];
+    expect(sends.map((r) => (r.body as CheckUpJson).status)).toEqual(Array(5).fill('confirmed'));
+    const created = sends.flatMap((r) => r.body.misses.createdMissIds as number[]);
+    expect(created).toHaveLength(wrong);
+    expect(await sittingsOfMilo()).toBe(sittingsBefore + 1);
+    const misses = await missesOfMilo();
+    expect(misses).toHaveLength(missesBefore + wrong);
+    expect(
+      misses
+        .filter((m) => m.sittingId === sittingId)
+        .map((m) => m.id)
+        .sort(),
+    ).toEqual([...created].sort());
+
+    // A retry later is answered the same way; other answers are still refused, changing nothing.
+    const retry = await send(body);
+    expect(retry.status, retry.text).toBe(201);
+    expect(retry.body).toMatchObject({ sittingId, status: 'confirmed' });
+    expect(retry.body.misses.createdMissIds).toEqual([]);
+    const other = await send({ ...body, answers: checkUp.problems.map((p) => p.answers.correct) });
+    expect(other.status).toBe(400);
+    expect(other.body.fields.answers).toContain('already taken');
+    expect(await sittingsOfMilo()).toBe(sittingsBefore + 1);
+    expect(await missesOfMilo()).toHaveLength(missesBefore + wrong);
+  });
+
   it('refuses answers that do not fit the sheet, leaving no sitting behind', async () => {
     const checkUp = await makeCheckUp(owner, { studentId: wren, ruleIds: RULES });
     const before = (await owner.get(`/api/sittings?studentId=${wren}`).expect(200)).body.total;

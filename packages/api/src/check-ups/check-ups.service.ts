@@ -1,13 +1,16 @@
 import { Injectable, NotFoundException } from '@nestjs/common';
-import { InjectModel } from '@nestjs/sequelize';
+import { InjectConnection, InjectModel } from '@nestjs/sequelize';
 import { planCheckUp, readCheckUp, ruleName } from '@workback/core';
 import { Op } from 'sequelize';
+import type { Sequelize } from 'sequelize-typescript';
 import { AnswerKeysService } from '../answer-keys/answer-keys.service.js';
 import { sameAnswer } from '../answer-keys/same-answer.js';
 import type { MemberContext } from '../common/member-context.js';
 import { fieldsError } from '../common/pipes/validation.pipe.js';
-import { SittingMarksService } from '../sittings/sitting-marks.service.js';
+import { rowLock } from '../database/row-lock.js';
+import { type MissChanges, SittingMarksService } from '../sittings/sitting-marks.service.js';
 import { SittingsService } from '../sittings/sittings.service.js';
+import { readLocalTime } from '../sittings/time-of-day.js';
 import { StudentsService } from '../students/students.service.js';
 import { childSheetPdf, parentSheetPdf } from './check-up-sheets.js';
 import { hypothesisName, readingSentence } from './check-up-words.js';
@@ -20,6 +23,7 @@ import { CheckUp } from './models/check-up.model.js';
 export class CheckUpsService {
   constructor(
     @InjectModel(CheckUp) private readonly checkUpModel: typeof CheckUp,
+    @InjectConnection() private readonly sequelize: Sequelize,
     private readonly students: StudentsService,
     private readonly keys: AnswerKeysService,
     private readonly sittings: SittingsService,
@@ -127,22 +131,13 @@ export class CheckUpsService {
   /**
    * Takes the check-up: a sitting of its key with the child's answers as marks (so wrong
    * answers become misses and right ones count against the rules in patterns), then reads
-   * the answers against every hypothesis.
+   * the answers against every hypothesis. The same answers sent again (a double tap, a retry
+   * after a lost answer) are answered as the first, with no new sitting; others are refused.
    */
   async answer(member: MemberContext, id: number, dto: AnswerCheckUpDto) {
     const row = await this.findModel(member, id);
-    if (row.sittingId !== null)
-      throw fieldsError({
-        answers: 'this check-up was already taken; make a new one to ask again',
-      });
-    const problems = row.sheet.problems;
-    if (dto.answers.length !== problems.length)
-      throw fieldsError({
-        answers: `answers must hold ${problems.length} answers, one for each problem (null for a blank)`,
-      });
-    const answers = dto.answers.map((a) => (a === null || a.trim() === '' ? null : a.trim()));
-    if (answers.every((a) => a === null))
-      throw fieldsError({ answers: 'enter at least one of the child’s answers' });
+    if (row.sittingId !== null) return this.answeredAgain(member, row, dto);
+    const answers = this.readAnswers(row, dto);
     const reading = readCheckUp(row.sheet, answers);
     const items = await this.keys.itemsOf(row.answerKeyId);
     const sitting = await this.sittings.create(member, {
@@ -152,6 +147,26 @@ export class CheckUpsService {
       minutes: dto.minutes,
       conditions: dto.conditions,
     });
+    // The check-up is claimed for this sitting with its row locked and sittingId read again:
+    // of answers sent together, the ones that read "not taken" above before another claimed
+    // it give their sitting back and are answered as a repeat (or refused).
+    const claimed = await this.sequelize.transaction(async (transaction) => {
+      const locked = await this.checkUpModel.findOne({
+        where: { id: row.id },
+        transaction,
+        lock: rowLock(transaction, this.checkUpModel),
+      });
+      if (locked === null || locked.sittingId !== null) return null;
+      await locked.update(
+        { sittingId: sitting.id, reading: { ...reading, answers } },
+        { transaction },
+      );
+      return locked;
+    });
+    if (claimed === null) {
+      await this.sittings.discardUnmarked(member, sitting.id);
+      return this.answeredAgain(member, await this.findModel(member, id), dto);
+    }
     try {
       const marked = await this.marks.putMarks(member, sitting.id, {
         marks: items.flatMap((item, i) => {
@@ -162,12 +177,51 @@ export class CheckUpsService {
           ];
         }),
       });
-      await row.update({ sittingId: sitting.id, reading: { ...reading, answers } });
-      return { ...this.toJson(row), misses: marked.misses };
+      return { ...this.toJson(claimed), misses: marked.misses };
     } catch (err) {
+      // Not taken after all: the claim is let go before its sitting can be removed.
+      await this.checkUpModel.update(
+        { sittingId: null, reading: null },
+        { where: { id: row.id, sittingId: sitting.id } },
+      );
       await this.sittings.discardUnmarked(member, sitting.id);
       throw err;
     }
+  }
+
+  /** The child's answers, one for each problem, a blank as null; at least one written. */
+  private readAnswers(row: CheckUp, dto: AnswerCheckUpDto): (string | null)[] {
+    const problems = row.sheet.problems;
+    if (dto.answers.length !== problems.length)
+      throw fieldsError({
+        answers: `answers must hold ${problems.length} answers, one for each problem (null for a blank)`,
+      });
+    const answers = blanksAsNull(dto.answers);
+    if (answers.every((a) => a === null))
+      throw fieldsError({ answers: 'enter at least one of the child’s answers' });
+    return answers;
+  }
+
+  /**
+   * Answers for a check-up already taken: the same answers and sitting details as it was taken
+   * with are a repeat, answered as it was but with no misses changed; anything else is refused.
+   */
+  private async answeredAgain(member: MemberContext, row: CheckUp, dto: AnswerCheckUpDto) {
+    const taken = 'this check-up was already taken; make a new one to ask again';
+    if (row.reading === null || row.sittingId === null) throw fieldsError({ answers: taken });
+    const answers = blanksAsNull(dto.answers);
+    const saved = row.reading.answers;
+    const sitting = await this.sittings.findModel(member, row.sittingId);
+    const same =
+      answers.length === saved.length &&
+      answers.every((a, i) => a === saved[i]) &&
+      sitting.startedAt === readLocalTime(dto.startedAt) &&
+      sitting.minutes === (dto.minutes ?? null) &&
+      sitting.rested === (dto.conditions?.rested ?? null) &&
+      sitting.afterMeal === (dto.conditions?.afterMeal ?? null) &&
+      sitting.note === (dto.conditions?.note || null);
+    if (!same) throw fieldsError({ answers: taken });
+    return { ...this.toJson(row), misses: noMissChanges() };
   }
 
   async pdf(member: MemberContext, id: number, which: 'sheet' | 'answers') {
@@ -207,3 +261,15 @@ export class CheckUpsService {
     };
   }
 }
+
+/** `['12 ', '', null]` → `['12', null, null]`. */
+const blanksAsNull = (answers: readonly (string | null)[]) =>
+  answers.map((a) => (a === null || a.trim() === '' ? null : a.trim()));
+
+const noMissChanges = (): MissChanges => ({
+  heldItemIds: [],
+  createdMissIds: [],
+  reopenedMissIds: [],
+  resolvedMissIds: [],
+  updatedMissIds: [],
+});
