@@ -135,6 +135,29 @@ describe('POST /api/review-plans', () => {
     expect(res.body.message).toMatch(/missIds/);
   });
 
+  it('makes one plan of the open misses asked for five times at once (a double tap, two parents)', async () => {
+    const child = await freshStudent('Tapped plan child');
+    const missIds = [
+      await miss(child, '2026-02-02', '304 - 75', '139', { revisit: ['12'] }),
+      await miss(child, '2026-02-03', '7 x 8', '54', { revisit: ['14'] }),
+    ];
+    // On PostgreSQL each read the same last plan and open misses before any had made its plan.
+    const sends = await Promise.all(
+      Array.from({ length: 5 }, () =>
+        owner.post('/api/review-plans', { studentId: child, scheduledFor: '2026-02-06' }),
+      ),
+    );
+    expect(sends.map((r) => r.status).sort()).toEqual([201, 422, 422, 422, 422]);
+    for (const refused of sends.filter((r) => r.status === 422))
+      expect(refused.body.message).toMatch(/no open misses since the last plan.*missIds/);
+    const made = sends.find((r) => r.status === 201)!.body as ReviewPlanJson;
+    expect(made.misses.map((m) => m.id)).toEqual(missIds);
+    const plans = await owner.get(`/api/review-plans?studentId=${child}`).expect(200);
+    expect(plans.body.total).toBe(1);
+    expect(plans.body.items[0].id).toBe(made.id);
+    for (const id of missIds) expect(await statusOf(id)).toBe('planned');
+  });
+
   it('warns when the review falls on the day of work it reviews', async () => {
     const res = await owner
       .post('/api/review-plans', {

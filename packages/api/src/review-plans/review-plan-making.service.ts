@@ -1,12 +1,14 @@
-import { Injectable, UnprocessableEntityException } from '@nestjs/common';
+import { Injectable, NotFoundException, UnprocessableEntityException } from '@nestjs/common';
 import { InjectConnection, InjectModel } from '@nestjs/sequelize';
 import { buildReviewPlan, MissStatus } from '@workback/core';
 import { Op, type Transaction } from 'sequelize';
 import type { Sequelize } from 'sequelize-typescript';
 import type { MemberContext } from '../common/member-context.js';
 import { fieldsError } from '../common/pipes/validation.pipe.js';
+import { rowLock } from '../database/row-lock.js';
 import { MissesService } from '../misses/misses.service.js';
 import { StudentMissesService } from '../misses/student-misses.service.js';
+import { Student } from '../students/models/student.model.js';
 import { StudentsService } from '../students/students.service.js';
 import type { CreateReviewPlanDto } from './dto/create-review-plan.dto.js';
 import { ReviewPlanItemMiss } from './models/review-plan-item-miss.model.js';
@@ -24,6 +26,7 @@ export class ReviewPlanMakingService {
     @InjectModel(ReviewPlan) private readonly planModel: typeof ReviewPlan,
     @InjectModel(ReviewPlanItem) private readonly itemModel: typeof ReviewPlanItem,
     @InjectModel(ReviewPlanItemMiss) private readonly linkModel: typeof ReviewPlanItemMiss,
+    @InjectModel(Student) private readonly studentModel: typeof Student,
     @InjectConnection() private readonly sequelize: Sequelize,
     private readonly students: StudentsService,
     private readonly misses: MissesService,
@@ -34,10 +37,20 @@ export class ReviewPlanMakingService {
   /**
    * Builds and saves a plan in one transaction: the plan row first (its id seeds the
    * practice problems), then the checklist and its links, then the misses move to planned.
+   * The student's row is locked first, so two plans asked for at once are made in turn and the
+   * second reads the first's plan and planned misses (without missIds: 422, none left open).
    */
   async create(member: MemberContext, dto: CreateReviewPlanDto) {
     const student = await this.students.find(member, dto.studentId);
     const id = await this.sequelize.transaction(async (transaction) => {
+      const locked = await this.studentModel.findOne({
+        where: { id: student.id },
+        attributes: ['id'],
+        transaction,
+        lock: rowLock(transaction, this.studentModel),
+      });
+      if (locked === null)
+        throw new NotFoundException(`No student ${student.id} in this household`);
       const chosen = await this.chooseMisses(member, student.id, dto.missIds, transaction);
       const plan = await this.planModel.create(
         {

@@ -5,6 +5,7 @@ import { CurriculumModule } from '../curriculum/curriculum.module.js';
 import { HouseholdsModule } from '../households/households.module.js';
 import { MailModule } from '../mail/mail.module.js';
 import { MissesModule } from '../misses/misses.module.js';
+import { Student } from '../students/models/student.model.js';
 import { StudentsModule } from '../students/students.module.js';
 import { UsersModule } from '../users/users.module.js';
 import { WorkersModule } from '../workers/workers.module.js';
@@ -19,7 +20,7 @@ import { ReviewPlansService } from './review-plans.service.js';
 
 @Module({
   imports: [
-    SequelizeModule.forFeature([ReviewPlan, ReviewPlanItem, ReviewPlanItemMiss]),
+    SequelizeModule.forFeature([ReviewPlan, ReviewPlanItem, ReviewPlanItemMiss, Student]),
     StudentsModule,
     MissesModule,
     AnswerKeysModule,
