@@ -519,6 +519,35 @@ describe('PATCH /api/misses/:id', () => {
     const after = await owner.get(`/api/misses/${id}`).expect(200);
     expect(after.body).toMatchObject({ status: 'resolved', cause: 'unsure', problem: '81 - 38' });
   });
+
+  it('saves the same written steps sent five times at once, answering each', async () => {
+    const steps = { partials: ['68', '34'] };
+    const created = await owner
+      .post('/api/misses', { ...fields({ problem: '34 x 12', answer: '102' }), steps })
+      .expect(201);
+    const id = created.body.id as number;
+    // The same steps change no column of the miss, so its UPDATE locks nothing: on PostgreSQL,
+    // without the miss's row lock, the later ones each removed the diagnosis and rule rows
+    // before the first committed, then inserted them again into its primary keys (409).
+    const saves = await Promise.all(
+      Array.from({ length: 5 }, () => owner.send('patch', `/api/misses/${id}`, { steps })),
+    );
+    expect(saves.map((r) => `${r.status} ${r.status === 200 ? '' : r.text}`)).toEqual(
+      Array(5).fill('200 '),
+    );
+    for (const r of saves) expect(r.body.diagnosis).toEqual(created.body.diagnosis);
+    const after = await owner.get(`/api/misses/${id}`).expect(200);
+    expect(after.body).toMatchObject({ steps, ruleIds: created.body.ruleIds });
+    const [rows] = await db(t).query(
+      `SELECT (SELECT COUNT(*) FROM miss_diagnoses WHERE miss_id = ${id}) AS diagnoses,
+              (SELECT COUNT(*) FROM miss_rules WHERE miss_id = ${id}) AS rules`,
+    );
+    const counted = (rows as { diagnoses: number; rules: number }[])[0]!;
+    expect([Number(counted.diagnoses), Number(counted.rules)]).toEqual([
+      1,
+      created.body.ruleIds.length,
+    ]);
+  });
 });
 
 describe('DELETE', () => {
@@ -562,5 +591,26 @@ describe('POST /api/misses/:id/photos', () => {
     const none = await postMultipart(owner, `/api/misses/${id}/photos`, {});
     expect(none.status).toBe(400);
     expect(none.body.fields).toHaveProperty('photos');
+  });
+
+  it('adds photos sent four times at once up to four, in order, and refuses the rest', async () => {
+    const created = await postMultipart(owner, '/api/misses', fields(), [jpeg()]).expect(201);
+    const id = created.body.id as number;
+    const before = photoFiles(t).length;
+    // Four: a member's decode slots (two running, two waiting) answer 429 beyond that. On
+    // PostgreSQL, without the miss's row lock, each counted and numbered the photos before the
+    // others committed: all four were saved, five photos in all, two at a time on one position.
+    const adds = await Promise.all(
+      Array.from({ length: 4 }, () =>
+        postMultipart(owner, `/api/misses/${id}/photos`, {}, [jpeg()]),
+      ),
+    );
+    expect(adds.map((r) => r.status).sort()).toEqual([201, 201, 201, 400]);
+    const refused = adds.find((r) => r.status === 400)!;
+    expect(refused.body.fields.photos).toBe('a miss holds at most 4 photos; this one has 4');
+    const after = await owner.get(`/api/misses/${id}`).expect(200);
+    expect(after.body.photos.map((p: { position: number }) => p.position)).toEqual([1, 2, 3, 4]);
+    // Three files a photo, none of the refused one's left behind.
+    expect(photoFiles(t)).toHaveLength(before + 3 * 3);
   });
 });

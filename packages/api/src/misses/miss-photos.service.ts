@@ -17,13 +17,18 @@ export class MissPhotosService {
   ) {}
 
   async addPhotos(member: MemberContext, id: number, files: readonly UploadedPhoto[]) {
-    const miss = await this.misses.findModel(member, id);
+    // 404 before any decoding; the photos are decoded and written outside the transaction, so
+    // the write lock never waits on that slow work.
+    await this.misses.findModel(member, id);
     if (files.length === 0) throw fieldsError({ photos: 'attach 1 to 4 photos' });
     const processed = await this.photos.process(files, member);
     let staged: StagedPhoto[] = [];
     try {
       staged = await this.photos.stage(processed);
       await this.sequelize.transaction(async (transaction) => {
+        // Locked before counting: two uploads at once go in turn on PostgreSQL, and the second
+        // counts and numbers after the first's photos (they passed the limit and shared positions).
+        const miss = await this.misses.lockModel(member, id, transaction);
         const have = await this.photos.countFor(miss.id, transaction);
         if (have + staged.length > MAX_PHOTOS_PER_MISS) {
           throw fieldsError({
