@@ -141,6 +141,34 @@ describe('PUT /api/photos/:id/marks', () => {
     expect(cleared.body.photos[0].marks).toEqual([]);
   });
 
+  it('saves the same pins sent six times at once once, answering each', async () => {
+    const marks = [
+      { x: 0.2, y: 0.3, label: 'carried' },
+      { x: 0.7, y: 0.6 },
+    ];
+    const saved = [
+      { x: 0.2, y: 0.3, label: 'carried' },
+      { x: 0.7, y: 0.6, label: null },
+    ];
+    // On PostgreSQL, without the photo's row lock, each removed the pins there were before the
+    // others committed and then added its own: every pin was saved six times.
+    const saves = await Promise.all(
+      Array.from({ length: 6 }, () =>
+        owner.send('put', `/api/photos/${wrenPhoto}/marks`, { marks }),
+      ),
+    );
+    expect(saves.map((r) => `${r.status} ${r.status === 200 ? '' : r.text}`)).toEqual(
+      Array(6).fill('200 '),
+    );
+    for (const r of saves) expect(r.body.marks).toMatchObject(saved);
+    const miss = await owner.get(`/api/misses/${wrenMiss}`).expect(200);
+    expect(miss.body.photos[0].marks).toMatchObject(saved);
+    const [rows] = await db(t).query(
+      `SELECT COUNT(*) AS n FROM photo_marks WHERE photo_id = ${wrenPhoto}`,
+    );
+    expect(Number((rows as { n: number }[])[0]!.n)).toBe(2);
+  });
+
   it.each([
     [{ marks: [{ x: 1.2, y: 0.5 }] }, 'marks.0.x'],
     [{ marks: [{ x: 0.5, y: -0.1 }] }, 'marks.0.y'],
