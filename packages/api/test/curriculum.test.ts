@@ -137,6 +137,46 @@ describe('lessons', () => {
     expect(clash.status).toBe(409);
   });
 
+  it('adds one lesson of a number sent five times at once, refusing the rest by name', async () => {
+    const course = await newCourse();
+    // Each checks the number before any of them has written: without the unique index's
+    // answer turned into the service's own, the later ones got "That course_id is already in use".
+    const adds = await Promise.all(
+      Array.from({ length: 5 }, () =>
+        owner.post(`/api/courses/${course.id}/lessons`, { number: 4, title: 'Lesson 4' }),
+      ),
+    );
+    expect(adds.map((r) => r.status).sort()).toEqual([201, 409, 409, 409, 409]);
+    for (const r of adds.filter((a) => a.status === 409)) {
+      expect(r.body).toMatchObject({
+        message: 'Lesson 4 already exists in this course',
+        fields: { number: 'lesson 4 already exists in this course' },
+      });
+    }
+    const list = await owner.get(`/api/courses/${course.id}/lessons`).expect(200);
+    expect(list.body.items.map((l: { number: number }) => l.number)).toEqual([4]);
+  });
+
+  it('moves one of five lessons sent to the same number at once, refusing the rest by name', async () => {
+    const course = await newCourse();
+    const lessons = [];
+    for (const n of [1, 2, 3, 4, 5]) lessons.push(await addLesson(course.id, n));
+    const moves = await Promise.all(
+      lessons.map((l) => owner.send('patch', `/api/lessons/${l.id}`, { number: 9 })),
+    );
+    expect(moves.map((r) => r.status).sort()).toEqual([200, 409, 409, 409, 409]);
+    for (const r of moves.filter((m) => m.status === 409)) {
+      expect(r.body).toMatchObject({
+        message: 'Lesson 9 already exists in this course',
+        fields: { number: 'lesson 9 already exists in this course' },
+      });
+    }
+    const moved = moves.findIndex((m) => m.status === 200);
+    const list = await owner.get(`/api/courses/${course.id}/lessons`).expect(200);
+    const numbers = [1, 2, 3, 4, 5].filter((_, i) => i !== moved);
+    expect(list.body.items.map((l: { number: number }) => l.number)).toEqual([...numbers, 9]);
+  });
+
   it('refuses to delete or renumber a lesson a key item revisits, naming the item', async () => {
     const course = await newCourse('In use');
     const used = await addLesson(course.id, 31);

@@ -1,6 +1,6 @@
 import { ConflictException, Injectable, NotFoundException } from '@nestjs/common';
 import { InjectConnection, InjectModel } from '@nestjs/sequelize';
-import type { Transaction } from 'sequelize';
+import { type Transaction, UniqueConstraintError } from 'sequelize';
 import type { Sequelize } from 'sequelize-typescript';
 import type { MemberContext } from '../common/member-context.js';
 import { placeholders, SqlReader } from '../database/sql-reader.js';
@@ -150,12 +150,9 @@ export class CurriculumService {
   async createLesson(member: MemberContext, courseId: number, dto: CreateLessonDto) {
     await this.findCourseModel(member, courseId);
     await this.refuseTakenNumber(courseId, dto.number);
-    const lesson = await this.lessonModel.create({
-      courseId,
-      number: dto.number,
-      title: dto.title,
-      skills: dto.skills ?? [],
-    });
+    const lesson = await this.lessonModel
+      .create({ courseId, number: dto.number, title: dto.title, skills: dto.skills ?? [] })
+      .catch(refuseRacedNumber(dto.number));
     return toLessonJson(lesson);
   }
 
@@ -165,11 +162,13 @@ export class CurriculumService {
       await this.refuseInUse(lesson, 'renumbered');
       await this.refuseTakenNumber(lesson.courseId, dto.number);
     }
-    await lesson.update({
-      ...(dto.number !== undefined && { number: dto.number }),
-      ...(dto.title !== undefined && { title: dto.title }),
-      ...(dto.skills !== undefined && { skills: dto.skills }),
-    });
+    await lesson
+      .update({
+        ...(dto.number !== undefined && { number: dto.number }),
+        ...(dto.title !== undefined && { title: dto.title }),
+        ...(dto.skills !== undefined && { skills: dto.skills }),
+      })
+      .catch(refuseRacedNumber(dto.number ?? lesson.number));
     return toLessonJson(lesson);
   }
 
@@ -201,12 +200,7 @@ export class CurriculumService {
 
   private async refuseTakenNumber(courseId: number, number: number): Promise<void> {
     const taken = await this.lessonModel.count({ where: { courseId, number } });
-    if (taken > 0) {
-      throw new ConflictException({
-        message: `Lesson ${number} already exists in this course`,
-        fields: { number: `lesson ${number} already exists in this course` },
-      });
-    }
+    if (taken > 0) throw numberTaken(number);
   }
 
   private lessonsOf(courseId: number) {
@@ -222,6 +216,25 @@ export class CurriculumService {
     return new Map(rows.map((r) => [r.courseId, r.count]));
   }
 }
+
+const numberTaken = (number: number) =>
+  new ConflictException({
+    message: `Lesson ${number} already exists in this course`,
+    fields: { number: `lesson ${number} already exists in this course` },
+  });
+
+/**
+ * For a lesson write checked by refuseTakenNumber: another request may take the number between
+ * the check and the write (two at once), and the unique index (course_id, number) refuses it.
+ * That is answered as the check answers, not as the index's generic "course_id in use".
+ */
+const refuseRacedNumber =
+  (number: number) =>
+  (err: unknown): never => {
+    const clash =
+      err instanceof UniqueConstraintError && err.errors.some((e) => e.path === 'number');
+    throw clash ? numberTaken(number) : err;
+  };
 
 const blankToNull = (value: string | null | undefined) =>
   value === undefined || value === null || value === '' ? null : value;
