@@ -19,7 +19,7 @@ import {
 } from './open-loop.js';
 import { throwawayDatabase } from './postgres.js';
 import { type Session, signIn } from '../test/support/sign-in.js';
-import { percentile, processCpuMs, table } from './stats.js';
+import { percentile, processCpuMs, settle, table } from './stats.js';
 
 const HOUSEHOLDS = Number(process.env.BENCH_FAMILIES ?? 2000);
 const MISSES_EACH = Number(process.env.BENCH_FAMILY_MISSES ?? 300);
@@ -417,6 +417,7 @@ async function familiesOn(db: Database): Promise<RateResult[]> {
         ];
         if (BURSTS) runs.push(['autocannon bursts', () => burstsAt(server.url, rate, draw)]);
         for (const [load, go] of runs) {
+          await settle(server.child.pid!);
           const before = processCpuMs(server.child.pid!);
           const run = await go();
           const after = processCpuMs(server.child.pid!);

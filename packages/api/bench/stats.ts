@@ -34,3 +34,19 @@ export function processCpuMs(pid: number): { main: number; all: number } | undef
     return undefined;
   }
 }
+
+/**
+ * Waits until the process is quiet: all its threads together under a tenth of a core for half a
+ * second, or `limitMs` at most. Between load runs, so that what one run leaves the server doing
+ * is not charged to the next: autocannon stops at its duration with requests still unanswered,
+ * and the server goes on working through them.
+ */
+export async function settle(pid: number, limitMs = 15_000): Promise<void> {
+  const until = Date.now() + limitMs;
+  while (Date.now() < until) {
+    const before = processCpuMs(pid);
+    await new Promise((r) => setTimeout(r, 500));
+    const after = processCpuMs(pid);
+    if (!before || !after || after.all - before.all <= 50) return;
+  }
+}
