@@ -1,4 +1,4 @@
-import { mkdirSync } from 'node:fs';
+import { existsSync, mkdirSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 
 import axe from 'axe-core';
@@ -10,10 +10,17 @@ export const screenshotDir = resolve(import.meta.dirname, '../../../.screenshots
 export const WIDE = { width: 1280, height: 900 };
 export const PHONE = { width: 390, height: 844 };
 
+const CHROMIUM = '/usr/bin/chromium';
+
 /** Debian's Chromium; `extraArgs` add to the usual flags (a host mapping, say). */
 export function launchBrowser(extraArgs: string[] = []): Promise<Browser> {
+  if (!existsSync(CHROMIUM)) {
+    throw new Error(
+      `Chromium is not installed at ${CHROMIUM}: install Debian's chromium package (apt-get install chromium; .ci/run does it when missing)`,
+    );
+  }
   return chromium.launch({
-    executablePath: '/usr/bin/chromium',
+    executablePath: CHROMIUM,
     args: [
       '--no-sandbox',
       '--disable-gpu',
