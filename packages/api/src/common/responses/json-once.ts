@@ -1,5 +1,5 @@
 import { gzipSync } from 'node:zlib';
-import type { Response } from 'express';
+import type { Request, Response } from 'express';
 
 /** An answer already written, with its ETag, and gzipped once a browser has asked for it so. */
 interface Written {
@@ -51,7 +51,7 @@ export function sendJsonOnce(res: Response, body: object): void {
   res.vary('Accept-Encoding');
   const answer = writtenOnce(res, body);
   let sent: Representation;
-  if (answer.json.length >= GZIP_FROM_CHARS && acceptsGzip(res)) {
+  if (answer.json.length >= GZIP_FROM_CHARS && acceptsGzip(res.req)) {
     sent = answer.gzip ??= gzipOf(res, answer.json);
     res.setHeader('Content-Encoding', 'gzip');
   } else {
@@ -83,8 +83,8 @@ function gzipOf(res: Response, json: string): Representation {
 }
 
 /** No Accept-Encoding, or gzip refused (`gzip;q=0`), is answered as plain JSON. */
-function acceptsGzip(res: Response): boolean {
-  return !!res.req.headers['accept-encoding'] && res.req.acceptsEncodings('gzip') === 'gzip';
+export function acceptsGzip(req: Request): boolean {
+  return !!req.headers['accept-encoding'] && req.acceptsEncodings('gzip') === 'gzip';
 }
 
 function etagFn(res: Response): ETagFn | undefined {
