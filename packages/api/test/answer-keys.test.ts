@@ -66,6 +66,20 @@ async function keyCount(): Promise<number> {
   return (await owner.get('/api/answer-keys').expect(200)).body.total as number;
 }
 
+/** A sitting of `keyId` started at `startedAt`, marked with `marks`: its id and the marks' answer. */
+async function markedSitting(studentId: number, keyId: number, startedAt: string, marks: object[]) {
+  const sitting = await owner
+    .post('/api/sittings', { studentId, answerKeyId: keyId, startedAt })
+    .expect(201);
+  const marked = await owner
+    .send('put', `/api/sittings/${sitting.body.id}/marks`, { marks })
+    .expect(200);
+  return {
+    id: sitting.body.id as number,
+    misses: marked.body.misses as { createdMissIds: number[] },
+  };
+}
+
 describe('answer keys', () => {
   it('creates a key and answers it in the documented shape', async () => {
     const key = await createKey({
@@ -293,40 +307,18 @@ describe('corrections', () => {
     });
     const [first, typo] = key.items as [KeyJson['items'][0], KeyJson['items'][0]];
     // Wren wrote the right 1,128 and was marked wrong against the misprinted key.
-    const wrenSitting = await owner
-      .post('/api/sittings', {
-        studentId: wren,
-        answerKeyId: key.id,
-        startedAt: '2026-01-06T09:15',
-      })
-      .expect(201);
-    const wrenMarks = await owner
-      .send('put', `/api/sittings/${wrenSitting.body.id}/marks`, {
-        marks: [
-          { keyItemId: first.id, correct: true },
-          // The checker flags item 12; the parent went by the printed key, so a miss is made.
-          { keyItemId: typo.id, correct: false, answer: '1,128', keyAnswerRight: true },
-        ],
-      })
-      .expect(200);
-    expect(wrenMarks.body.misses.createdMissIds).toHaveLength(1);
-    const wrenMiss = wrenMarks.body.misses.createdMissIds[0] as number;
+    const wrenSitting = await markedSitting(wren, key.id, '2026-01-06T09:15', [
+      { keyItemId: first.id, correct: true },
+      // The checker flags item 12; the parent went by the printed key, so a miss is made.
+      { keyItemId: typo.id, correct: false, answer: '1,128', keyAnswerRight: true },
+    ]);
+    expect(wrenSitting.misses.createdMissIds).toHaveLength(1);
+    const wrenMiss = wrenSitting.misses.createdMissIds[0]!;
     // Milo wrote what the misprinted key said and was marked right.
-    const miloSitting = await owner
-      .post('/api/sittings', {
-        studentId: milo,
-        answerKeyId: key.id,
-        startedAt: '2026-01-06T15:40',
-      })
-      .expect(201);
-    await owner
-      .send('put', `/api/sittings/${miloSitting.body.id}/marks`, {
-        marks: [
-          { keyItemId: first.id, correct: false, answer: '57' },
-          { keyItemId: typo.id, correct: true },
-        ],
-      })
-      .expect(200);
+    const miloSitting = await markedSitting(milo, key.id, '2026-01-06T15:40', [
+      { keyItemId: first.id, correct: false, answer: '57' },
+      { keyItemId: typo.id, correct: true },
+    ]);
 
     const noReason = await owner.send('patch', `/api/answer-keys/${key.id}`, {
       items: [
@@ -369,7 +361,7 @@ describe('corrections', () => {
         changes: { answer: { from: '1,138', to: '1,128' } },
         reason: 'The printed key had a typo in item 12',
         madeBy: expect.objectContaining({ name: 'Jules' }),
-        remarkedSittingIds: [wrenSitting.body.id, miloSitting.body.id].sort((a, b) => a - b),
+        remarkedSittingIds: [wrenSitting.id, miloSitting.id].sort((a, b) => a - b),
       }),
     ]);
     const bySitting = new Map(
@@ -378,14 +370,14 @@ describe('corrections', () => {
         r,
       ]),
     );
-    expect(bySitting.get(wrenSitting.body.id)).toMatchObject({
+    expect(bySitting.get(wrenSitting.id)).toMatchObject({
       studentId: wren,
       before: { correct: 1, marked: 2 },
       after: { correct: 2, marked: 2 },
       resolvedMissIds: [wrenMiss],
       newMissIds: [],
     });
-    const milo12 = bySitting.get(miloSitting.body.id)!;
+    const milo12 = bySitting.get(miloSitting.id)!;
     expect(milo12).toMatchObject({
       studentId: milo,
       before: { correct: 1, marked: 2 },
@@ -400,7 +392,7 @@ describe('corrections', () => {
     const made = await owner.get(`/api/misses/${milo12.newMissIds[0]}`).expect(200);
     expect(made.body).toMatchObject({
       studentId: milo,
-      sittingId: miloSitting.body.id,
+      sittingId: miloSitting.id,
       keyItemId: typo.id,
       problem: '47 x 24',
       answer: '1,138',
@@ -409,7 +401,7 @@ describe('corrections', () => {
       revisit: ['10', '11'],
       expected: '1128',
     });
-    const miloNow = await owner.get(`/api/sittings/${miloSitting.body.id}`).expect(200);
+    const miloNow = await owner.get(`/api/sittings/${miloSitting.id}`).expect(200);
     expect(miloNow.body.score).toMatchObject({ correct: 0, marked: 2, items: 2 });
     const history = await tutor.get(`/api/answer-keys/${key.id}`).expect(200);
     expect(history.body.corrections).toHaveLength(1);
@@ -425,21 +417,10 @@ describe('corrections', () => {
       ],
     });
     const [misprint, right] = key.items as [KeyJson['items'][0], KeyJson['items'][0]];
-    const sitting = await owner
-      .post('/api/sittings', {
-        studentId: milo,
-        answerKeyId: key.id,
-        startedAt: '2026-01-08T10:00',
-      })
-      .expect(201);
-    await owner
-      .send('put', `/api/sittings/${sitting.body.id}/marks`, {
-        marks: [
-          { keyItemId: misprint.id, correct: true },
-          { keyItemId: right.id, correct: true },
-        ],
-      })
-      .expect(200);
+    const sitting = await markedSitting(milo, key.id, '2026-01-08T10:00', [
+      { keyItemId: misprint.id, correct: true },
+      { keyItemId: right.id, correct: true },
+    ]);
     const correction = {
       reason: 'Item 1 was misprinted, and item 3 was left off',
       items: [
@@ -469,7 +450,7 @@ describe('corrections', () => {
     );
     expect(remarked).toEqual([
       expect.objectContaining({
-        sittingId: sitting.body.id,
+        sittingId: sitting.id,
         after: { correct: 1, marked: 2 },
         newMissIds: [expect.any(Number)],
       }),
@@ -488,7 +469,7 @@ describe('corrections', () => {
       [3, '939'],
     ]);
     expect(now.body.corrections).toHaveLength(6);
-    const score = await owner.get(`/api/sittings/${sitting.body.id}`).expect(200);
+    const score = await owner.get(`/api/sittings/${sitting.id}`).expect(200);
     expect(score.body.score).toMatchObject({ correct: 1, marked: 2, items: 3 });
   });
 
@@ -501,18 +482,9 @@ describe('corrections', () => {
         { number: 2, prompt: '81 - 38', answer: '43' },
       ],
     });
-    const sitting = await owner
-      .post('/api/sittings', {
-        studentId: wren,
-        answerKeyId: key.id,
-        startedAt: '2026-01-07T10:00',
-      })
-      .expect(201);
-    await owner
-      .send('put', `/api/sittings/${sitting.body.id}/marks`, {
-        marks: [{ keyItemId: key.items[1]!.id, correct: true }],
-      })
-      .expect(200);
+    await markedSitting(wren, key.id, '2026-01-07T10:00', [
+      { keyItemId: key.items[1]!.id, correct: true },
+    ]);
     const res = await owner.send('patch', `/api/answer-keys/${key.id}`, {
       reason: 'shorter',
       items: [{ id: key.items[0]!.id, number: 1, prompt: '58 + 67', answer: '125' }],
