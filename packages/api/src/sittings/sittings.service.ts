@@ -4,8 +4,8 @@ import { type FindOptions, Op, type Transaction, type WhereOptions } from 'seque
 import { AnswerKeysService } from '../answer-keys/answer-keys.service.js';
 import { AnswerKey } from '../answer-keys/models/answer-key.model.js';
 import type { MemberContext } from '../common/member-context.js';
-import { rowLock } from '../database/row-lock.js';
 import { fieldsError } from '../common/pipes/validation.pipe.js';
+import { rowLock } from '../database/row-lock.js';
 import { checkCalendarDate } from '../misses/dto/calendar-date.validator.js';
 import { MarkedMissesService } from '../misses/marked-misses.service.js';
 import { StudentsService } from '../students/students.service.js';
