@@ -1,9 +1,10 @@
 import { ConflictException, Injectable, NotFoundException } from '@nestjs/common';
 import { InjectConnection, InjectModel } from '@nestjs/sequelize';
-import { type FindOptions, Op, type Transaction } from 'sequelize';
+import { Op, type Transaction } from 'sequelize';
 import type { Sequelize } from 'sequelize-typescript';
 import { revisitLessons } from '@workback/core';
 import type { MemberContext } from '../common/member-context.js';
+import { type FindLock, lockIf } from '../database/row-lock.js';
 import { fieldsError } from '../common/pipes/validation.pipe.js';
 import { CurriculumService } from '../curriculum/curriculum.service.js';
 import { placeholders, SqlReader } from '../database/sql-reader.js';
@@ -101,17 +102,17 @@ export class AnswerKeysService {
     return this.toKeyJson(key, transaction, member.studentIds);
   }
 
-  /** 404 both for what does not exist and for another household's key. */
+  /** 404 both for what does not exist and for another household's key. `lock`: rowLock. */
   async findKeyModel(
     member: MemberContext,
     id: number,
     transaction?: Transaction,
-    lock?: FindOptions['lock'],
+    find: FindLock = {},
   ) {
     const key = await this.keyModel.findOne({
       where: { id, householdId: member.householdId },
       transaction,
-      lock,
+      lock: lockIf(find, transaction, this.keyModel),
     });
     if (!key) throw new NotFoundException(`No answer key ${id} in this household`);
     return key;

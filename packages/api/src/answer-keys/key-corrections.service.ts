@@ -4,14 +4,13 @@ import type { Transaction } from 'sequelize';
 import type { Sequelize } from 'sequelize-typescript';
 import type { MemberContext } from '../common/member-context.js';
 import { fieldsError } from '../common/pipes/validation.pipe.js';
-import { rowLock } from '../database/row-lock.js';
 import { UsersService } from '../users/users.service.js';
 import { AnswerKeysService } from './answer-keys.service.js';
 import type { AnswerChange, RemarkedSitting } from './key-usage.js';
 import type { UpdateAnswerKeyDto } from './dto/update-answer-key.dto.js';
 import { checkItems, ITEM_FIELDS, type CourseLessons, type ItemFields } from './key-item-checks.js';
 import { toCorrectionJson } from './key-json.js';
-import { AnswerKey } from './models/answer-key.model.js';
+import type { AnswerKey } from './models/answer-key.model.js';
 import { KeyCorrection, type FieldChange } from './models/key-correction.model.js';
 import { KeyItem } from './models/key-item.model.js';
 import { sameAnswer } from './same-answer.js';
@@ -36,12 +35,7 @@ export class KeyCorrectionsService {
       // The key's row first: the same correction sent twice at once then goes in turn, and the
       // second reads the first's items instead of adding its new ones again (on PostgreSQL the
       // items' unique (key, number) index refused it, 409).
-      const key = await this.keys.findKeyModel(
-        member,
-        id,
-        transaction,
-        rowLock(transaction, AnswerKey),
-      );
+      const key = await this.keys.findKeyModel(member, id, transaction, { lock: true });
       const courseId = dto.courseId !== undefined ? dto.courseId : key.courseId;
       const lessonNumber = dto.lessonNumber !== undefined ? dto.lessonNumber : key.lessonNumber;
       const lessons = await this.keys.lessonsFor(member, courseId, lessonNumber, transaction);

@@ -7,8 +7,8 @@ import { AnswerKeysService } from '../answer-keys/answer-keys.service.js';
 import { sameAnswer } from '../answer-keys/same-answer.js';
 import type { MemberContext } from '../common/member-context.js';
 import { fieldsError } from '../common/pipes/validation.pipe.js';
-import { rowLock } from '../database/row-lock.js';
-import { type MissChanges, SittingMarksService } from '../sittings/sitting-marks.service.js';
+import { lockRow } from '../database/row-lock.js';
+import { emptyChanges, SittingMarksService } from '../sittings/sitting-marks.service.js';
 import { SittingsService } from '../sittings/sittings.service.js';
 import { readLocalTime } from '../sittings/time-of-day.js';
 import { StudentsService } from '../students/students.service.js';
@@ -151,11 +151,7 @@ export class CheckUpsService {
     // of answers sent together, the ones that read "not taken" above before another claimed
     // it give their sitting back and are answered as a repeat (or refused).
     const claimed = await this.sequelize.transaction(async (transaction) => {
-      const locked = await this.checkUpModel.findOne({
-        where: { id: row.id },
-        transaction,
-        lock: rowLock(transaction, this.checkUpModel),
-      });
+      const locked = await lockRow(this.checkUpModel, row.id, transaction);
       if (locked === null || locked.sittingId !== null) return null;
       await locked.update(
         { sittingId: sitting.id, reading: { ...reading, answers } },
@@ -221,7 +217,7 @@ export class CheckUpsService {
       sitting.afterMeal === (dto.conditions?.afterMeal ?? null) &&
       sitting.note === (dto.conditions?.note || null);
     if (!same) throw fieldsError({ answers: taken });
-    return { ...this.toJson(row), misses: noMissChanges() };
+    return { ...this.toJson(row), misses: emptyChanges() };
   }
 
   async pdf(member: MemberContext, id: number, which: 'sheet' | 'answers') {
@@ -265,11 +261,3 @@ export class CheckUpsService {
 /** `['12 ', '', null]` → `['12', null, null]`. */
 const blanksAsNull = (answers: readonly (string | null)[]) =>
   answers.map((a) => (a === null || a.trim() === '' ? null : a.trim()));
-
-const noMissChanges = (): MissChanges => ({
-  heldItemIds: [],
-  createdMissIds: [],
-  reopenedMissIds: [],
-  resolvedMissIds: [],
-  updatedMissIds: [],
-});

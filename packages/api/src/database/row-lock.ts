@@ -13,3 +13,26 @@ import type { FindOptions, Model, ModelStatic, Transaction } from 'sequelize';
 export function rowLock(transaction: Transaction, model: ModelStatic<Model>): FindOptions['lock'] {
   return { level: transaction.LOCK.NO_KEY_UPDATE, of: model };
 }
+
+/** A service's `findModel(…, { lock: true })`: its read takes the row, inside a transaction. */
+export interface FindLock {
+  lock?: boolean;
+}
+
+/** The `lock` option for a find asked to lock (FindLock): rowLock inside a transaction. */
+export function lockIf(
+  { lock = false }: FindLock,
+  transaction: Transaction | undefined,
+  model: ModelStatic<Model>,
+): FindOptions['lock'] {
+  return lock && transaction ? rowLock(transaction, model) : undefined;
+}
+
+/** Row `id` of `model`, taken with rowLock (null when it is gone): for a check that needs no scope. */
+export function lockRow<M extends Model>(
+  model: ModelStatic<M>,
+  id: number,
+  transaction: Transaction,
+): Promise<M | null> {
+  return model.findByPk(id, { transaction, lock: rowLock(transaction, model) });
+}

@@ -9,7 +9,7 @@ import { Role } from '@workback/core';
 import type { Sequelize } from 'sequelize-typescript';
 import type { MemberContext } from '../common/member-context.js';
 import { fieldsError } from '../common/pipes/validation.pipe.js';
-import { rowLock } from '../database/row-lock.js';
+import { lockRow } from '../database/row-lock.js';
 import { StudentsService } from '../students/students.service.js';
 import { User } from '../users/models/user.model.js';
 import { normalizeEmail } from '../users/users.service.js';
@@ -81,11 +81,7 @@ export class MembersService {
       // The membership's row first, as the UPDATE below sends nothing when the role is unchanged:
       // two changes of a tutor's students at once then go in turn, and the second deletes the
       // grants the first inserted (on PostgreSQL their primary key refused the second's, 409).
-      const locked = await this.membershipModel.findOne({
-        where: { id: target.id },
-        transaction,
-        lock: rowLock(transaction, this.membershipModel),
-      });
+      const locked = await lockRow(this.membershipModel, target.id, transaction);
       if (!locked) throw new NotFoundException(`No member ${id} in this household`);
       await target.update({ role }, { transaction });
       if (role !== Role.tutor || studentIds !== undefined) {

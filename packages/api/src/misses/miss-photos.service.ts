@@ -28,7 +28,7 @@ export class MissPhotosService {
       await this.sequelize.transaction(async (transaction) => {
         // Locked before counting: two uploads at once go in turn on PostgreSQL, and the second
         // counts and numbers after the first's photos (they passed the limit and shared positions).
-        const miss = await this.misses.lockModel(member, id, transaction);
+        const miss = await this.misses.findModel(member, id, transaction, { lock: true });
         const have = await this.photos.countFor(miss.id, transaction);
         if (have + staged.length > MAX_PHOTOS_PER_MISS) {
           throw fieldsError({

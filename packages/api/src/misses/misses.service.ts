@@ -1,12 +1,12 @@
 import { ConflictException, Injectable, NotFoundException } from '@nestjs/common';
 import { InjectConnection, InjectModel } from '@nestjs/sequelize';
 import { Cause, missKindOf, MissStatus } from '@workback/core';
-import { type FindOptions, Op, UniqueConstraintError, type Transaction } from 'sequelize';
+import { Op, UniqueConstraintError, type Transaction } from 'sequelize';
 import type { Sequelize } from 'sequelize-typescript';
 import type { MemberContext } from '../common/member-context.js';
 import { fieldsError } from '../common/pipes/validation.pipe.js';
 import { InsertsService } from '../database/inserts.service.js';
-import { rowLock } from '../database/row-lock.js';
+import { type FindLock, lockIf } from '../database/row-lock.js';
 import { selectList, SqlReader } from '../database/sql-reader.js';
 import { MAX_PHOTOS_PER_MISS } from '../photos/photo-limits.js';
 import { PhotosService, type UploadedPhoto } from '../photos/photos.service.js';
@@ -186,28 +186,20 @@ export class MissesService {
     };
   }
 
-  /** 404 both for what does not exist and for what is not this member's to see. */
-  async findModel(member: MemberContext, id: number, transaction?: Transaction): Promise<Miss> {
-    return this.readModel(member, id, { transaction });
-  }
-
   /**
-   * The miss, its row locked until `transaction` ends (rowLock): two changes to one miss's
-   * child rows at once (its photos, its diagnosis and rules) go in turn on PostgreSQL, and the
-   * second counts and replaces what the first committed.
+   * 404 both for what does not exist and for what is not this member's to see. `lock` takes its
+   * row until `transaction` ends (rowLock): changes to its photos or rules at once go in turn.
    */
-  async lockModel(member: MemberContext, id: number, transaction: Transaction): Promise<Miss> {
-    return this.readModel(member, id, { transaction, lock: rowLock(transaction, this.missModel) });
-  }
-
-  private async readModel(
+  async findModel(
     member: MemberContext,
     id: number,
-    options: Pick<FindOptions, 'transaction' | 'lock'>,
+    transaction?: Transaction,
+    find: FindLock = {},
   ): Promise<Miss> {
     const miss = await this.missModel.findOne({
       where: { [Op.and]: [missScope(member), { id }] },
-      ...options,
+      transaction,
+      lock: lockIf(find, transaction, this.missModel),
     });
     if (!miss) throw new NotFoundException(`No miss ${id} in this household`);
     return miss;
@@ -256,7 +248,7 @@ export class MissesService {
     await this.sequelize.transaction(async (transaction) => {
       // Locked first: new steps may change no column, and then the UPDATE locks nothing while
       // the diagnosis and rule rows are replaced (two at once met on their primary keys, 409).
-      const locked = await this.lockModel(member, id, transaction);
+      const locked = await this.findModel(member, id, transaction, { lock: true });
       await locked.update(
         {
           ...changes,

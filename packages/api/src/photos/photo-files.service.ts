@@ -1,9 +1,9 @@
 import { Inject, Injectable, Logger, NotFoundException } from '@nestjs/common';
 import { InjectConnection, InjectModel } from '@nestjs/sequelize';
-import type { FindOptions, Transaction } from 'sequelize';
+import type { Transaction } from 'sequelize';
 import type { Sequelize } from 'sequelize-typescript';
 import type { MemberContext } from '../common/member-context.js';
-import { rowLock } from '../database/row-lock.js';
+import { type FindLock, lockIf } from '../database/row-lock.js';
 import { missScope } from '../misses/miss-scope.js';
 import { Miss } from '../misses/models/miss.model.js';
 import { PHOTO_STORAGE, smallKeyOf, type PhotoStorage } from '../storage/photo-storage.js';
@@ -32,29 +32,18 @@ export class PhotoFilesService {
     private readonly photos: PhotosService,
   ) {}
 
-  /** A photo of a miss the member may see; 404 for anything else. */
-  async findModel(member: MemberContext, id: number, transaction?: Transaction): Promise<Photo> {
-    return this.readModel(member, id, { transaction });
-  }
-
-  /**
-   * The photo, its row locked until `transaction` ends (rowLock): two saves of one photo's pins
-   * at once go in turn on PostgreSQL, and the second removes the first's pins instead of only
-   * those there were before (every pin was left doubled).
-   */
-  private async lockModel(member: MemberContext, id: number, transaction: Transaction) {
-    return this.readModel(member, id, { transaction, lock: rowLock(transaction, this.photoModel) });
-  }
-
-  private async readModel(
+  /** A photo of a miss the member may see; 404 for anything else. `lock`: rowLock. */
+  async findModel(
     member: MemberContext,
     id: number,
-    options: Pick<FindOptions, 'transaction' | 'lock'>,
+    transaction?: Transaction,
+    find: FindLock = {},
   ): Promise<Photo> {
     const photo = await this.photoModel.findOne({
       where: { id },
       include: [{ model: Miss, attributes: ['id'], where: missScope(member), required: true }],
-      ...options,
+      transaction,
+      lock: lockIf(find, transaction, this.photoModel),
     });
     if (!photo) throw new NotFoundException(`No photo ${id} in this household`);
     return photo;
@@ -95,7 +84,9 @@ export class PhotoFilesService {
 
   async setMarks(member: MemberContext, id: number, marks: readonly MarkDto[]): Promise<PhotoJson> {
     const photo = await this.sequelize.transaction(async (transaction) => {
-      const found = await this.lockModel(member, id, transaction);
+      // Its row first: two saves of its pins at once go in turn, and the second removes the
+      // first's pins instead of only those there were before (every pin was left doubled).
+      const found = await this.findModel(member, id, transaction, { lock: true });
       await this.markModel.destroy({ where: { photoId: id }, transaction });
       await this.markModel.bulkCreate(
         marks.map((m) => ({

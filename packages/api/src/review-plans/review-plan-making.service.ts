@@ -5,7 +5,7 @@ import { Op, type Transaction } from 'sequelize';
 import type { Sequelize } from 'sequelize-typescript';
 import type { MemberContext } from '../common/member-context.js';
 import { fieldsError } from '../common/pipes/validation.pipe.js';
-import { rowLock } from '../database/row-lock.js';
+import { lockRow } from '../database/row-lock.js';
 import { MissesService } from '../misses/misses.service.js';
 import { StudentMissesService } from '../misses/student-misses.service.js';
 import { Student } from '../students/models/student.model.js';
@@ -43,12 +43,7 @@ export class ReviewPlanMakingService {
   async create(member: MemberContext, dto: CreateReviewPlanDto) {
     const student = await this.students.find(member, dto.studentId);
     const id = await this.sequelize.transaction(async (transaction) => {
-      const locked = await this.studentModel.findOne({
-        where: { id: student.id },
-        attributes: ['id'],
-        transaction,
-        lock: rowLock(transaction, this.studentModel),
-      });
+      const locked = await lockRow(this.studentModel, student.id, transaction);
       if (locked === null)
         throw new NotFoundException(`No student ${student.id} in this household`);
       const chosen = await this.chooseMisses(member, student.id, dto.missIds, transaction);

@@ -67,9 +67,10 @@ export class SittingMarksService implements OnModuleInit {
       // The four reads at once where the database allows (allQueries): each turn of the event
       // loop is time the write queue waits. A sitting's answer key is fixed when it is made, so
       // its items need not wait for it. Where they go in turn (PostgreSQL) the sitting's row
-      // lock comes first, so the marks read are the ones a save just before committed.
+      // lock comes first, so two saves at once go in turn and the second reads the first's
+      // marks instead of inserting them again (the marks' unique index refused it, 409).
       const [sitting, items, marks, misses] = await allQueries(this.sequelize, transaction, [
-        () => this.sittings.lockModel(member, id, transaction),
+        () => this.sittings.findModel(member, id, transaction, { lock: true }),
         () => this.keys.itemsOf(answerKeyId, transaction),
         () => this.markModel.findAll({ where: { sittingId: id }, transaction }),
         () => this.misses.findForSitting(id, transaction),
@@ -376,7 +377,7 @@ async function allItems(
   return merged;
 }
 
-const emptyChanges = (): MissChanges => ({
+export const emptyChanges = (): MissChanges => ({
   heldItemIds: [],
   createdMissIds: [],
   reopenedMissIds: [],

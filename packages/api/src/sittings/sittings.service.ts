@@ -1,11 +1,11 @@
 import { Injectable, NotFoundException } from '@nestjs/common';
 import { InjectModel } from '@nestjs/sequelize';
-import { type FindOptions, Op, type Transaction, type WhereOptions } from 'sequelize';
+import { Op, type Transaction, type WhereOptions } from 'sequelize';
 import { AnswerKeysService } from '../answer-keys/answer-keys.service.js';
 import { AnswerKey } from '../answer-keys/models/answer-key.model.js';
 import type { MemberContext } from '../common/member-context.js';
 import { fieldsError } from '../common/pipes/validation.pipe.js';
-import { rowLock } from '../database/row-lock.js';
+import { type FindLock, lockIf } from '../database/row-lock.js';
 import { checkCalendarDate } from '../misses/dto/calendar-date.validator.js';
 import { MarkedMissesService } from '../misses/marked-misses.service.js';
 import { StudentsService } from '../students/students.service.js';
@@ -105,32 +105,21 @@ export class SittingsService {
     };
   }
 
-  /** 404 both for what does not exist and for a sitting of a student the member may not see. */
-  async findModel(member: MemberContext, id: number, transaction?: Transaction) {
-    return this.readModel(member, id, { transaction });
-  }
-
   /**
-   * The sitting, its row locked until `transaction` ends (rowLock): two saves of one sitting's
-   * marks at once go in turn, and the second finds the first's marks instead of inserting them
-   * again (on PostgreSQL the marks' unique index refused it, 409).
+   * 404 both for what does not exist and for a sitting of a student the member may not see.
+   * `lock` takes its row until `transaction` ends (rowLock).
    */
-  async lockModel(member: MemberContext, id: number, transaction: Transaction) {
-    return this.readModel(member, id, {
-      transaction,
-      lock: rowLock(transaction, this.sittingModel),
-    });
-  }
-
-  private async readModel(
+  async findModel(
     member: MemberContext,
     id: number,
-    options: Pick<FindOptions, 'transaction' | 'lock'>,
+    transaction?: Transaction,
+    find: FindLock = {},
   ) {
     const sitting = await this.sittingModel.findOne({
       where: { [Op.and]: [this.scope(member), { id }] },
       include: [AnswerKey],
-      ...options,
+      transaction,
+      lock: lockIf(find, transaction, this.sittingModel),
     });
     if (!sitting) throw new NotFoundException(`No sitting ${id} in this household`);
     return sitting;
