@@ -4,9 +4,10 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { performance } from 'node:perf_hooks';
 
-import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
+import { type Browser, type BrowserContext, type Page } from 'playwright-core';
 import sharp from 'sharp';
 
+import { launchBrowser } from '../e2e/browser';
 import { startBuiltServer } from '../e2e/built-server';
 
 /**
@@ -187,19 +188,9 @@ export async function benchBrowser(): Promise<void> {
   const photoFile = join(work, 'worksheet-12mp.jpg');
   await writeFile(photoFile, photo);
 
+  // The browser first: a machine without Chromium stops here, before a server is left running.
+  const browser = await launchBrowser();
   const server = await startBuiltServer({ SIGN_IN_LIMIT_PER_MINUTE: '1000', LOG_LEVEL: 'silent' });
-  const browser = await chromium.launch({
-    executablePath: '/usr/bin/chromium',
-    args: [
-      '--no-sandbox',
-      '--disable-gpu',
-      '--disable-background-networking',
-      '--disable-component-update',
-      '--disable-sync',
-      '--no-first-run',
-      '--disable-quic',
-    ],
-  });
   try {
     const storageState = await signedInState(browser, server.baseUrl);
     const cold: Load[] = [];
